@@ -1,0 +1,206 @@
+using System.Collections.Immutable;
+using FeederLocate.Core.Evidence;
+using FeederLocate.Core.Model;
+using FeederLocate.Core.Topology;
+using Complex = System.Numerics.Complex;
+
+namespace FeederLocate.Core.Electrical;
+
+/// <summary>
+/// The reference model compiled for one energised network and voltage factor: per substation its
+/// source impedance and zero-sequence shunt, per indicator the admittance of the network on its
+/// forward side. A fault then costs O(1) to solve and O(1) per indicator to read, so every
+/// indicator's response to a fault on every segment costs segments × indicators.
+/// </summary>
+public sealed class FaultResponseModel
+{
+    private readonly SubstationTerms[] _substations;
+    private readonly MeasuringPoint[] _indicators;
+
+    public FaultResponseModel(EnergisedNetwork network, double voltageFactor = SourceImpedance.VoltageFactorMaxMediumVoltage)
+    {
+        ArgumentNullException.ThrowIfNull(network);
+        SourceImpedance.CheckVoltageFactor(voltageFactor);
+        Network = network;
+        VoltageFactor = voltageFactor;
+        var grid = network.Grid;
+        var omega = grid.AngularFrequencyRadPerS;
+        _substations = [.. grid.Substations.Select((s, i) => new SubstationTerms(
+            voltageFactor * s.NominalVoltageKv * 1000 / Math.Sqrt(3),
+            SourceImpedance.AtBusbarOhm(s, voltageFactor),
+            NeutralAdmittance.AtBus(s, network.TotalCapacitanceF(i), omega),
+            NeutralAdmittance.OfNeutral(s, network.TotalCapacitanceF(i), omega),
+            s.Grounding.DampingPercent))];
+        _indicators = [.. grid.Indicators.Select(Compile)];
+    }
+
+    public EnergisedNetwork Network { get; }
+
+    public double VoltageFactor { get; }
+
+    public Grid Grid => Network.Grid;
+
+    /// <summary>Solves a fault on segment index <paramref name="segment"/> at <paramref name="position"/> (fraction from its from node).</summary>
+    public FaultSolution Solve(int segment, double position, FaultType type, double faultResistanceOhm)
+    {
+        if (!(position is >= 0 and <= 1))
+        {
+            throw new ArgumentOutOfRangeException(nameof(position), position, "position is a fraction of the segment's length from its from node: 0 to 1");
+        }
+
+        var up = Network.SuppliedEndOf(segment);
+        var seg = Grid.Segments[segment];
+        if (up < 0)
+        {
+            throw new FaultCaseException($"segment {seg.Id} is not energised in this switching state; a fault there drives no current", seg.Id);
+        }
+
+        var sub = Network.SubstationIndexOf(up);
+        var terms = _substations[sub];
+        var type1 = Grid.LineTypeOf(seg);
+        var fromSupply = Grid.NodeIndex(seg.From) == up ? position : 1 - position;
+        var lengthKm = fromSupply * seg.LengthKm;
+        var z1 = terms.SourceOhm + Network.PositiveSequencePathOhm(up) + (new Complex(type1.R1OhmPerKm, type1.X1OhmPerKm) * lengthKm);
+        var z0Path = Network.ZeroSequencePathOhm(up) + (new Complex(type1.R0OhmPerKm, type1.X0OhmPerKm) * lengthKm);
+        var currents = SequenceFault.Solve(type, terms.PhaseVoltageV, z1, z0Path, terms.ZeroSequenceBusS, faultResistanceOhm);
+        return new FaultSolution(type, segment, up, sub, z1, z0Path, terms.PhaseVoltageV, currents,
+            SequenceFault.FaultedPhaseCurrentA(type, currents));
+    }
+
+    /// <summary>What indicator index <paramref name="indicator"/> sees for a solved fault.</summary>
+    public IndicatorReading Read(in FaultSolution fault, int indicator) => ReadAt(_indicators[indicator], fault);
+
+    /// <summary>The complete result of a fault: currents, voltages and every indicator's response.</summary>
+    public FaultResult Compute(FaultCase fault)
+    {
+        ArgumentNullException.ThrowIfNull(fault);
+        if (!Grid.HasSegment(fault.Segment))
+        {
+            throw new FaultCaseException($"segment {fault.Segment} is not in the grid", fault.Segment);
+        }
+
+        if (Math.Abs(fault.VoltageFactor - VoltageFactor) > 1e-12)
+        {
+            return new FaultResponseModel(Network, fault.VoltageFactor).Compute(fault);
+        }
+
+        var solution = Solve(Grid.SegmentIndex(fault.Segment), fault.Position, fault.Type, fault.FaultResistanceOhm);
+        var responses = ImmutableArray.CreateBuilder<IndicatorResponse>(_indicators.Length);
+        for (var i = 0; i < _indicators.Length; i++)
+        {
+            var reading = Read(solution, i);
+            responses.Add(new IndicatorResponse(Grid.Indicators[i].Id, reading.PhaseCurrentA, reading.ResidualCurrentA, reading.FaultBeyond, reading.Expected));
+        }
+
+        return new FaultResult(
+            fault,
+            Grid.Substations[solution.Substation].Id,
+            SequenceFault.FaultCurrentA(fault.Type, solution.Currents),
+            solution.FaultedPhaseCurrentA,
+            solution.Currents.NeutralVoltageAtBusV.Magnitude,
+            HealthyPhaseVoltagesV(solution),
+            responses.MoveToImmutable());
+    }
+
+    private static ImmutableArray<double> HealthyPhaseVoltagesV(in FaultSolution s)
+    {
+        if (s.Type is FaultType.LL or FaultType.LLL)
+        {
+            return [];
+        }
+
+        var c = s.Currents;
+        var u1 = s.PhaseVoltageV - (s.PositiveSequenceOhm * c.PositiveA);
+        var u2 = -s.PositiveSequenceOhm * c.NegativeA;
+        var u0 = c.NeutralVoltageAtBusV - (s.ZeroSequencePathOhm * c.ZeroA);
+        var (a, b, cc) = SymmetricalComponents.ToPhases(u0, u1, u2);
+        return s.Type == FaultType.LG ? [b.Magnitude, cc.Magnitude] : [a.Magnitude];
+    }
+
+    private IndicatorReading ReadAt(in MeasuringPoint p, in FaultSolution fault)
+    {
+        if (p.Substation < 0 || p.Substation != fault.Substation)
+        {
+            return new IndicatorReading(0, 0, false, IndicatorState.None);
+        }
+
+        var beyondFarEnd = Network.IsAtOrBeyond(p.FarNode, fault.SuppliedNode);
+        var faultBeyond = p.SelfSegment == fault.Segment || (p.AwayFromSource ? beyondFarEnd : !beyondFarEnd);
+        var onPath = p.AwayFromSource ? faultBeyond : !faultBeyond;
+        var residual = (3 * p.ForwardAdmittanceS * fault.Currents.NeutralVoltageAtBusV)
+            + (faultBeyond ? fault.Currents.EarthCurrentA : Complex.Zero);
+        var residualA = residual.Magnitude;
+        var phaseA = onPath ? fault.FaultedPhaseCurrentA : 0;
+        var picked = (!double.IsNaN(p.PhasePickupA) && phaseA >= p.PhasePickupA)
+            || (!double.IsNaN(p.EarthPickupA) && residualA >= p.EarthPickupA);
+        var expected = !picked ? IndicatorState.None
+            : !p.Directional ? IndicatorState.Fault
+            : faultBeyond ? IndicatorState.Forward : IndicatorState.Reverse;
+        return new IndicatorReading(phaseA, residualA, faultBeyond, expected);
+    }
+
+    private MeasuringPoint Compile(Indicator indicator)
+    {
+        var segment = Grid.SegmentIndex(indicator.Segment);
+        var phase = indicator.PhasePickupA ?? double.NaN;
+        var earth = indicator.EarthPickupA ?? double.NaN;
+        var up = Network.SuppliedEndOf(segment);
+        if (up < 0)
+        {
+            return new MeasuringPoint(-1, -1, false, segment, Complex.Zero, phase, earth, indicator.Directional);
+        }
+
+        var sub = Network.SubstationIndexOf(up);
+        var terms = _substations[sub];
+        var far = Network.FarEndOf(segment);
+        var away = Grid.NodeIndex(indicator.Node) == up;
+        var omega = Grid.AngularFrequencyRadPerS;
+        Complex forward;
+        if (away)
+        {
+            forward = NeutralAdmittance.OfCapacitance(Network.CapacitanceAtOrBeyondF(far), omega, terms.DampingPercent);
+        }
+        else
+        {
+            var seg = Grid.Segments[segment];
+            var own = Grid.LineTypeOf(seg).C0NfPerKm * 1e-9 * seg.LengthKm;
+            var capacitanceF = Network.TotalCapacitanceF(sub) - Network.CapacitanceAtOrBeyondF(far) + own;
+            forward = NeutralAdmittance.OfCapacitance(capacitanceF, omega, terms.DampingPercent) + terms.NeutralS;
+        }
+
+        return new MeasuringPoint(sub, far, away, segment, forward, phase, earth, indicator.Directional);
+    }
+
+    private readonly record struct SubstationTerms(
+        double PhaseVoltageV, Complex SourceOhm, Complex ZeroSequenceBusS, Complex NeutralS, double DampingPercent);
+
+    /// <summary>
+    /// A place where current is measured: the network on its forward side is the part fed through
+    /// <see cref="FarNode"/> (looking away from the source) or everything else (looking toward it),
+    /// plus <see cref="SelfSegment"/>.
+    /// </summary>
+    private readonly record struct MeasuringPoint(
+        int Substation,
+        int FarNode,
+        bool AwayFromSource,
+        int SelfSegment,
+        Complex ForwardAdmittanceS,
+        double PhasePickupA,
+        double EarthPickupA,
+        bool Directional);
+}
+
+/// <summary>A solved fault, ready for reading indicators.</summary>
+public readonly record struct FaultSolution(
+    FaultType Type,
+    int Segment,
+    int SuppliedNode,
+    int Substation,
+    Complex PositiveSequenceOhm,
+    Complex ZeroSequencePathOhm,
+    double PhaseVoltageV,
+    SequenceCurrents Currents,
+    double FaultedPhaseCurrentA);
+
+/// <summary>One indicator's currents for a fault and its expected state.</summary>
+public readonly record struct IndicatorReading(double PhaseCurrentA, double ResidualCurrentA, bool FaultBeyond, IndicatorState Expected);

@@ -1,0 +1,51 @@
+using FeederLocate.Core.Evidence;
+
+namespace FeederLocate.Core.Formats;
+
+/// <summary>Names of the incident format's tags.</summary>
+public static class IncidentFormat
+{
+    public const string FormatTag = "feederlocate-incident/1";
+
+    internal static readonly IReadOnlyDictionary<string, FaultType?> FaultTypes =
+        new Dictionary<string, FaultType?>(StringComparer.Ordinal)
+        {
+            ["LG"] = FaultType.LG,
+            ["LL"] = FaultType.LL,
+            ["LLG"] = FaultType.LLG,
+            ["LLL"] = FaultType.LLL,
+            ["unknown"] = null,
+        };
+
+    internal static readonly IReadOnlyDictionary<string, IndicatorState> States =
+        new Dictionary<string, IndicatorState>(StringComparer.Ordinal)
+        {
+            ["fault"] = IndicatorState.Fault,
+            ["none"] = IndicatorState.None,
+            ["forward"] = IndicatorState.Forward,
+            ["reverse"] = IndicatorState.Reverse,
+            ["unknown"] = IndicatorState.Unknown,
+        };
+
+    internal static readonly IReadOnlyDictionary<string, IndicationSource> Sources =
+        new Dictionary<string, IndicationSource>(StringComparer.Ordinal)
+        {
+            ["remote"] = IndicationSource.Remote,
+            ["field"] = IndicationSource.Field,
+        };
+
+    internal static readonly IReadOnlyDictionary<string, SwitchPosition> Positions =
+        new Dictionary<string, SwitchPosition>(StringComparer.Ordinal)
+        {
+            ["open"] = SwitchPosition.Open,
+            ["closed"] = SwitchPosition.Closed,
+        };
+
+    public static string Name(FaultType? type) => type?.ToString() ?? "unknown";
+
+    public static string Name(IndicatorState state) => States.First(p => p.Value == state).Key;
+
+    public static string Name(IndicationSource source) => Sources.First(p => p.Value == source).Key;
+
+    public static string Name(SwitchPosition position) => Positions.First(p => p.Value == position).Key;
+}

@@ -1,0 +1,227 @@
+using System.Collections.Immutable;
+using System.Globalization;
+using System.Text.Json;
+using FeederLocate.Core.Evidence;
+using FeederLocate.Core.Model;
+
+namespace FeederLocate.Core.Formats;
+
+/// <summary>
+/// Reads an incident file (<c>feederlocate-incident/1</c>) and, given its grid, checks every reference
+/// against it. Every problem is reported with its element and field; no incident is built while any
+/// error remains.
+/// </summary>
+public static class IncidentReader
+{
+    private const string IncidentKind = "incident";
+
+    public static LoadResult<Incident> Parse(string json, Grid? grid)
+    {
+        var log = new IssueLog();
+        using var document = JsonText.Parse(json, IncidentKind, log);
+        if (document is null)
+        {
+            return new LoadResult<Incident>(null, log.Issues);
+        }
+
+        var root = new ElementReader(document.RootElement, IncidentKind, "file", log);
+        var format = root.RequiredString("format");
+        if (format is not null && format != IncidentFormat.FormatTag)
+        {
+            root.Error("format", $"must be \"{IncidentFormat.FormatTag}\", got \"{format}\"");
+            return new LoadResult<Incident>(null, log.Issues);
+        }
+
+        var gridReference = root.OptionalString("grid");
+        var reportedAt = Time(root, "reportedAt", required: true);
+        var switchStates = SwitchStates(root, grid, log);
+        var tripped = TrippedDevice(root, grid);
+        FaultType? faultType = null;
+        var faultTypeText = root.RequiredString("faultType");
+        if (faultTypeText is not null && !IncidentFormat.FaultTypes.TryGetValue(faultTypeText, out faultType))
+        {
+            root.Error("faultType", $"must be one of {string.Join(", ", IncidentFormat.FaultTypes.Keys.Select(k => $"\"{k}\""))}, got \"{faultTypeText}\"");
+        }
+
+        var measurements = Measurements(root, grid, log);
+        var indications = Indications(root, grid, log);
+        root.WarnUnknownFields();
+        if (log.HasErrors)
+        {
+            return new LoadResult<Incident>(null, log.Issues);
+        }
+
+        var incident = new Incident(reportedAt!.Value, gridReference, switchStates, tripped, faultType, measurements, indications);
+        return new LoadResult<Incident>(incident, log.Issues);
+    }
+
+    private static DateTimeOffset? Time(ElementReader reader, string field, bool required)
+    {
+        var text = required ? reader.RequiredString(field) : reader.OptionalString(field);
+        if (text is null)
+        {
+            return null;
+        }
+
+        if (DateTimeOffset.TryParse(text, CultureInfo.InvariantCulture, DateTimeStyles.AssumeUniversal | DateTimeStyles.AdjustToUniversal, out var time)
+            && text.Contains('T', StringComparison.Ordinal))
+        {
+            return time;
+        }
+
+        reader.Error(field, $"must be an ISO 8601 date and time such as 2026-11-30T06:12:00Z, got \"{text}\"");
+        return null;
+    }
+
+    private static ImmutableDictionary<SwitchId, SwitchPosition> SwitchStates(ElementReader root, Grid? grid, IssueLog log)
+    {
+        var states = ImmutableDictionary.CreateBuilder<SwitchId, SwitchPosition>();
+        if (root.Raw("switchStates") is not { } raw || raw.ValueKind == JsonValueKind.Null)
+        {
+            return states.ToImmutable();
+        }
+
+        if (raw.ValueKind != JsonValueKind.Object)
+        {
+            root.Error("switchStates", $"must be an object of switch id to \"open\" or \"closed\", got {ElementReader.Describe(raw)}");
+            return states.ToImmutable();
+        }
+
+        foreach (var property in raw.EnumerateObject())
+        {
+            var id = new SwitchId(property.Name);
+            if (grid is not null && !grid.HasSwitch(id))
+            {
+                log.Error("incident", "file", $"switchStates.{property.Name}", "refers to unknown switch");
+                continue;
+            }
+
+            if (property.Value.ValueKind == JsonValueKind.String
+                && IncidentFormat.Positions.TryGetValue(property.Value.GetString()!, out var position))
+            {
+                states[id] = position;
+            }
+            else
+            {
+                log.Error("incident", "file", $"switchStates.{property.Name}", $"must be \"open\" or \"closed\", got {ElementReader.Describe(property.Value)}");
+            }
+        }
+
+        return states.ToImmutable();
+    }
+
+    private static SwitchId? TrippedDevice(ElementReader root, Grid? grid)
+    {
+        var text = root.OptionalString("trippedDevice");
+        if (text is null)
+        {
+            return null;
+        }
+
+        var id = new SwitchId(text);
+        if (grid is null)
+        {
+            return id;
+        }
+
+        if (!grid.HasSwitch(id))
+        {
+            root.Error("trippedDevice", $"refers to unknown switch \"{text}\"");
+        }
+        else if (grid.Switch(id).Kind is not (SwitchKind.Breaker or SwitchKind.Recloser or SwitchKind.Fuse))
+        {
+            root.Error("trippedDevice", $"must be a breaker, recloser or fuse; {text} is a {GridFormat.Name(grid.Switch(id).Kind)}");
+        }
+
+        return id;
+    }
+
+    private static ImmutableArray<SubstationMeasurement> Measurements(ElementReader root, Grid? grid, IssueLog log)
+    {
+        var measurements = ImmutableArray.CreateBuilder<SubstationMeasurement>();
+        if (root.Array("measurements", required: false) is not { } array)
+        {
+            return measurements.ToImmutable();
+        }
+
+        var index = 0;
+        foreach (var item in array)
+        {
+            if (ElementReader.ForItem(item, "measurement", index++, log) is not { } r)
+            {
+                continue;
+            }
+
+            var device = r.RequiredString("device");
+            var measurement = new SubstationMeasurement(
+                new SwitchId(device ?? string.Empty),
+                r.OptionalNumber("phaseCurrentA", NumberRange.AtLeast(0)),
+                r.OptionalNumber("residualCurrentA", NumberRange.AtLeast(0)),
+                r.OptionalNumber("neutralVoltageV", NumberRange.AtLeast(0)));
+            r.WarnUnknownFields();
+            if (device is not null && grid is not null && !grid.HasSwitch(measurement.Device))
+            {
+                r.Error("device", $"refers to unknown switch \"{device}\"");
+            }
+
+            measurements.Add(measurement);
+        }
+
+        return measurements.ToImmutable();
+    }
+
+    private static ImmutableArray<Indication> Indications(ElementReader root, Grid? grid, IssueLog log)
+    {
+        var indications = ImmutableArray.CreateBuilder<Indication>();
+        if (root.Array("indications", required: true) is not { } array)
+        {
+            return indications.ToImmutable();
+        }
+
+        var seen = new HashSet<string>(StringComparer.Ordinal);
+        var index = 0;
+        foreach (var item in array)
+        {
+            if (ElementReader.ForItem(item, "indication", index++, log) is not { } r)
+            {
+                continue;
+            }
+
+            var indicator = r.RequiredString("indicator");
+            var label = indicator ?? r.Id;
+            var reader = new ElementReader(item, "indication", label, log);
+            _ = reader.RequiredString("indicator");
+            var state = GridFormat.Choice(reader, "state", IncidentFormat.States);
+            var source = GridFormat.Choice(reader, "source", IncidentFormat.Sources);
+            var readAt = Time(reader, "readAt", required: false);
+            var suspect = reader.OptionalBool("suspect") ?? false;
+            reader.WarnUnknownFields();
+            if (indicator is null)
+            {
+                continue;
+            }
+
+            if (grid is not null && !grid.HasIndicator(new IndicatorId(indicator)))
+            {
+                reader.Error("indicator", $"refers to unknown indicator \"{indicator}\"");
+            }
+            else if (!seen.Add(indicator))
+            {
+                reader.Error("indicator", "is listed more than once; give one indication per indicator");
+            }
+            else if (grid is not null && state is IndicatorState.Forward or IndicatorState.Reverse
+                && !grid.Indicator(new IndicatorId(indicator)).Directional)
+            {
+                reader.Error("state", $"\"{IncidentFormat.Name(state.Value)}\" needs a directional indicator; {indicator} is non-directional");
+            }
+            else if (grid is not null && state is IndicatorState.Fault && grid.Indicator(new IndicatorId(indicator)).Directional)
+            {
+                reader.Error("state", $"\"fault\" is not a state of the directional indicator {indicator}: use forward or reverse");
+            }
+
+            indications.Add(new Indication(new IndicatorId(indicator), state ?? IndicatorState.Unknown, source ?? IndicationSource.Remote, readAt, suspect));
+        }
+
+        return indications.ToImmutable();
+    }
+}

@@ -1,0 +1,307 @@
+using System.Collections.Immutable;
+using System.Numerics;
+using FeederLocate.Core.Model;
+
+namespace FeederLocate.Core.Topology;
+
+/// <summary>
+/// The radial network energised for one switching state: per node its substation, the edge it is fed
+/// through and the series impedance from its bus; per segment its supplied end. Nodes are numbered in
+/// pre-order from each bus, so "lies beyond" is an interval test.
+/// </summary>
+public sealed class EnergisedNetwork
+{
+    private readonly int[] _substationOfNode;
+    private readonly EdgeRef[] _parentEdge;
+    private readonly int[] _parentNode;
+    private readonly int[] _preorder;
+    private readonly int[] _subtreeSize;
+    private readonly int[] _upNodeOfSegment;
+    private readonly int[] _downNodeOfSegment;
+    private readonly Complex[] _z1FromBusOhm;
+    private readonly Complex[] _z0FromBusOhm;
+    private readonly double[] _subtreeC0F;
+    private readonly double[] _totalC0F;
+
+    private EnergisedNetwork(NetworkGraph graph, SwitchStates states, int nodeCount, int segmentCount, int substationCount)
+    {
+        Graph = graph;
+        States = states;
+        _substationOfNode = Enumerable.Repeat(-1, nodeCount).ToArray();
+        _parentEdge = Enumerable.Repeat(EdgeRef.None, nodeCount).ToArray();
+        _parentNode = Enumerable.Repeat(-1, nodeCount).ToArray();
+        _preorder = new int[nodeCount];
+        _subtreeSize = new int[nodeCount];
+        _upNodeOfSegment = Enumerable.Repeat(-1, segmentCount).ToArray();
+        _downNodeOfSegment = Enumerable.Repeat(-1, segmentCount).ToArray();
+        _z1FromBusOhm = new Complex[nodeCount];
+        _z0FromBusOhm = new Complex[nodeCount];
+        _subtreeC0F = new double[nodeCount];
+        _totalC0F = new double[substationCount];
+    }
+
+    public NetworkGraph Graph { get; }
+
+    public Grid Grid => Graph.Grid;
+
+    public SwitchStates States { get; }
+
+    /// <summary>Node indices in breadth-first order from the buses (parents before children).</summary>
+    public ImmutableArray<int> FeedOrder { get; private set; }
+
+    internal static EnergisedNetwork Build(NetworkGraph graph, SwitchStates states) =>
+        TryBuild(graph, states, out var network, out var problem) ? network! : throw new TopologyException(problem!);
+
+    internal static bool TryBuild(NetworkGraph graph, SwitchStates states, out EnergisedNetwork? network, out TopologyProblem? problem)
+    {
+        ArgumentNullException.ThrowIfNull(graph);
+        ArgumentNullException.ThrowIfNull(states);
+        var grid = graph.Grid;
+        var n = new EnergisedNetwork(graph, states, grid.Nodes.Length, grid.Segments.Length, grid.Substations.Length);
+        problem = n.Feed();
+        network = problem is null ? n : null;
+        return problem is null;
+    }
+
+    /// <summary>Index of the substation feeding the node, or -1 when the node is dead.</summary>
+    public int SubstationIndexOf(int node) => _substationOfNode[node];
+
+    public Substation? SubstationOf(NodeId node) =>
+        _substationOfNode[Grid.NodeIndex(node)] is var s and >= 0 ? Grid.Substations[s] : null;
+
+    public bool IsEnergised(int node) => _substationOfNode[node] >= 0;
+
+    public bool IsEnergised(NodeId node) => IsEnergised(Grid.NodeIndex(node));
+
+    public bool IsSegmentEnergised(int segment) => _upNodeOfSegment[segment] >= 0;
+
+    public bool IsSegmentEnergised(SegmentId segment) => IsSegmentEnergised(Grid.SegmentIndex(segment));
+
+    /// <summary>The end of the segment toward its source (its supplied end), or -1 when it is dead.</summary>
+    public int SuppliedEndOf(int segment) => _upNodeOfSegment[segment];
+
+    /// <summary>The end of the segment away from its source, or -1 when it is dead.</summary>
+    public int FarEndOf(int segment) => _downNodeOfSegment[segment];
+
+    public EdgeRef FeedingEdgeOf(int node) => _parentEdge[node];
+
+    public int ParentOf(int node) => _parentNode[node];
+
+    /// <summary>True when <paramref name="node"/> lies in the part fed through <paramref name="ancestor"/> (or is it).</summary>
+    public bool IsAtOrBeyond(int ancestor, int node) =>
+        _substationOfNode[ancestor] >= 0 && _substationOfNode[node] == _substationOfNode[ancestor]
+        && _preorder[node] >= _preorder[ancestor] && _preorder[node] < _preorder[ancestor] + _subtreeSize[ancestor];
+
+    /// <summary>Sum of r1 + j·x1 over the energised path from the bus to the node, Ω (source excluded).</summary>
+    public Complex PositiveSequencePathOhm(int node) => _z1FromBusOhm[node];
+
+    /// <summary>Sum of r0 + j·x0 over the energised path from the bus to the node, Ω.</summary>
+    public Complex ZeroSequencePathOhm(int node) => _z0FromBusOhm[node];
+
+    /// <summary>Phase-to-earth capacitance, F per phase, of every segment fed through the node (including the edge into it).</summary>
+    public double CapacitanceAtOrBeyondF(int node) => _subtreeC0F[node];
+
+    /// <summary>Phase-to-earth capacitance, F per phase, of every energised segment galvanically connected to the substation's bus.</summary>
+    public double TotalCapacitanceF(int substation) => _totalC0F[substation];
+
+    /// <summary>The edges from the node's bus to the node, in feeding order; empty for a bus or a dead node.</summary>
+    public IReadOnlyList<EdgeRef> PathFromSource(NodeId node)
+    {
+        var path = new List<EdgeRef>();
+        for (var v = Grid.NodeIndex(node); v >= 0 && !_parentEdge[v].IsNone; v = _parentNode[v])
+        {
+            path.Add(_parentEdge[v]);
+        }
+
+        path.Reverse();
+        return path;
+    }
+
+    /// <summary>True when the indicator's node is the supplied end of its segment (it looks away from the source).</summary>
+    public bool FacesAwayFromSource(Indicator indicator)
+    {
+        var segment = Grid.SegmentIndex(indicator.Segment);
+        return _upNodeOfSegment[segment] == Grid.NodeIndex(indicator.Node);
+    }
+
+    /// <summary>
+    /// The energised segments on the indicator's forward side: its segment and everything reached
+    /// through the segment's other end. Empty when its segment is dead.
+    /// </summary>
+    public IReadOnlyList<SegmentId> ForwardRegion(Indicator indicator)
+    {
+        ArgumentNullException.ThrowIfNull(indicator);
+        var segment = Grid.SegmentIndex(indicator.Segment);
+        if (!IsSegmentEnergised(segment))
+        {
+            return [];
+        }
+
+        var far = _downNodeOfSegment[segment];
+        var away = FacesAwayFromSource(indicator);
+        var region = new List<SegmentId>();
+        for (var s = 0; s < Grid.Segments.Length; s++)
+        {
+            if (!IsSegmentEnergised(s) || _substationOfNode[_downNodeOfSegment[s]] != _substationOfNode[far])
+            {
+                continue;
+            }
+
+            var beyond = IsAtOrBeyond(far, _downNodeOfSegment[s]);
+            if (s == segment || beyond == away)
+            {
+                region.Add(Grid.Segments[s].Id);
+            }
+        }
+
+        return region;
+    }
+
+    private TopologyProblem? Feed()
+    {
+        var grid = Grid;
+        var adjacency = Graph.Graph;
+        var order = new List<int>(grid.Nodes.Length);
+        var reported = new HashSet<EdgeRef>();
+        TopologyProblem? problem = null;
+        for (var s = 0; s < grid.Substations.Length; s++)
+        {
+            var bus = grid.NodeIndex(grid.Substations[s].BusNode);
+            if (_substationOfNode[bus] >= 0)
+            {
+                return Paralleled(bus, bus, EdgeRef.None);
+            }
+
+            _substationOfNode[bus] = s;
+            order.Add(bus);
+            for (var head = order.Count - 1; head < order.Count; head++)
+            {
+                var u = order[head];
+                foreach (var edge in adjacency.AdjacentEdges(u))
+                {
+                    var tag = edge.Tag;
+                    if (tag == _parentEdge[u] || (tag.Kind == EdgeKind.Switch && !States.IsClosed(tag.Index)))
+                    {
+                        continue;
+                    }
+
+                    var v = edge.Source == u ? edge.Target : edge.Source;
+                    if (_substationOfNode[v] >= 0)
+                    {
+                        if (reported.Add(tag))
+                        {
+                            problem ??= _substationOfNode[v] == s ? Loop(u, v, tag) : Paralleled(u, v, tag);
+                        }
+
+                        continue;
+                    }
+
+                    _substationOfNode[v] = s;
+                    _parentEdge[v] = tag;
+                    _parentNode[v] = u;
+                    order.Add(v);
+                    if (tag.Kind == EdgeKind.Segment)
+                    {
+                        var segment = grid.Segments[tag.Index];
+                        var type = grid.LineTypeOf(segment);
+                        _upNodeOfSegment[tag.Index] = u;
+                        _downNodeOfSegment[tag.Index] = v;
+                        _z1FromBusOhm[v] = _z1FromBusOhm[u] + new Complex(type.R1OhmPerKm, type.X1OhmPerKm) * segment.LengthKm;
+                        _z0FromBusOhm[v] = _z0FromBusOhm[u] + new Complex(type.R0OhmPerKm, type.X0OhmPerKm) * segment.LengthKm;
+                        _subtreeC0F[v] = type.C0NfPerKm * 1e-9 * segment.LengthKm;
+                    }
+                    else
+                    {
+                        _z1FromBusOhm[v] = _z1FromBusOhm[u];
+                        _z0FromBusOhm[v] = _z0FromBusOhm[u];
+                    }
+                }
+            }
+
+            if (problem is not null)
+            {
+                return problem;
+            }
+        }
+
+        FeedOrder = [.. order];
+        Number(order);
+        return null;
+    }
+
+    /// <summary>Subtree sizes and capacitances bottom-up, then pre-order numbers top-down.</summary>
+    private void Number(List<int> order)
+    {
+        for (var i = order.Count - 1; i >= 0; i--)
+        {
+            var v = order[i];
+            _subtreeSize[v] += 1;
+            if (_parentNode[v] is var p and >= 0)
+            {
+                _subtreeSize[p] += _subtreeSize[v];
+                _subtreeC0F[p] += _subtreeC0F[v];
+            }
+            else
+            {
+                _totalC0F[_substationOfNode[v]] = _subtreeC0F[v];
+            }
+        }
+
+        // Each child's range starts after its parent and its earlier siblings.
+        var nextFree = new int[_preorder.Length];
+        var offset = 0;
+        foreach (var v in order)
+        {
+            if (_parentNode[v] is var p and >= 0)
+            {
+                _preorder[v] = nextFree[p];
+                nextFree[p] += _subtreeSize[v];
+            }
+            else
+            {
+                _preorder[v] = offset;
+                offset += _subtreeSize[v];
+            }
+
+            nextFree[v] = _preorder[v] + 1;
+        }
+    }
+
+    private TopologyProblem Loop(int u, int v, EdgeRef closing)
+    {
+        var up = PathToRoot(u);
+        var vp = PathToRoot(v);
+        var common = up.Intersect(vp).First();
+        var elements = EdgesUpTo(u, common).Concat(EdgesUpTo(v, common).Reverse()).Append(Graph.Describe(closing)).ToImmutableArray();
+        return new TopologyProblem($"the switching state closes a loop: {string.Join(", ", elements)}", elements);
+    }
+
+    private TopologyProblem Paralleled(int u, int v, EdgeRef closing)
+    {
+        var a = Grid.Substations[_substationOfNode[u]].Id;
+        var b = Grid.Substations[Math.Max(0, _substationOfNode[v])].Id;
+        var elements = closing.IsNone ? [] : ImmutableArray.Create(Graph.Describe(closing));
+        return new TopologyProblem(
+            $"the switching state parallels substations {a} and {b}{(closing.IsNone ? string.Empty : $" through {elements[0]}")}; a node must be fed from one bus only",
+            elements);
+    }
+
+    private List<int> PathToRoot(int v)
+    {
+        var path = new List<int>();
+        for (; v >= 0; v = _parentNode[v])
+        {
+            path.Add(v);
+        }
+
+        return path;
+    }
+
+    private IEnumerable<string> EdgesUpTo(int v, int ancestor)
+    {
+        for (; v != ancestor; v = _parentNode[v])
+        {
+            yield return Graph.Describe(_parentEdge[v]);
+        }
+    }
+}

@@ -1,0 +1,24 @@
+namespace FeederLocate.Core.Tests.Support;
+
+/// <summary>Finds files of the repository from the test's output folder.</summary>
+public static class RepositoryFiles
+{
+    public static string Root { get; } = FindRoot();
+
+    public static string Path(params string[] parts) => System.IO.Path.Combine([Root, .. parts]);
+
+    public static string Read(params string[] parts) => File.ReadAllText(Path(parts));
+
+    private static string FindRoot()
+    {
+        for (var dir = new DirectoryInfo(AppContext.BaseDirectory); dir is not null; dir = dir.Parent)
+        {
+            if (File.Exists(System.IO.Path.Combine(dir.FullName, "FeederLocate.sln")))
+            {
+                return dir.FullName;
+            }
+        }
+
+        throw new InvalidOperationException("FeederLocate.sln not found above " + AppContext.BaseDirectory);
+    }
+}
