@@ -113,6 +113,11 @@ public static class GridReader
             z0Reader.WarnUnknownFields();
         }
 
+        if (z0 is { ResistanceOhm: 0, ReactanceOhm: 0 })
+        {
+            r.Error("transformerZ0Ohm", "must not be 0 + j0 Ω: the transformer's zero-sequence path has an impedance");
+        }
+
         var ratedMva = r.OptionalNumber("transformerRatedMva", NumberRange.Positive);
         var grounding = ReadGrounding(r, z0 is not null);
         return new Substation(new SubstationId(r.Id), new NodeId(busNode), nominalVoltageKv, supply, z0, ratedMva, grounding);

@@ -1,0 +1,182 @@
+using System.Text;
+using System.Text.Json;
+using FeederLocate.Core.Model;
+
+namespace FeederLocate.Core.Formats;
+
+/// <summary>Writes a grid in the <c>feederlocate-grid/1</c> format; <see cref="GridReader"/> reads it back unchanged.</summary>
+public static class GridWriter
+{
+    public static string Write(Grid grid)
+    {
+        ArgumentNullException.ThrowIfNull(grid);
+        using var stream = new MemoryStream();
+        using (var w = new Utf8JsonWriter(stream, new JsonWriterOptions { Indented = true }))
+        {
+            w.WriteStartObject();
+            w.WriteString("format", GridFormat.FormatTag);
+            w.WriteString("name", grid.Name);
+            w.WriteNumber("frequencyHz", grid.FrequencyHz);
+            Array(w, "lineTypes", grid.LineTypes, WriteLineType);
+            Array(w, "substations", grid.Substations, WriteSubstation);
+            Array(w, "nodes", grid.Nodes, WriteNode);
+            Array(w, "segments", grid.Segments, (w, s) =>
+            {
+                w.WriteString("id", s.Id.Value);
+                w.WriteString("from", s.From.Value);
+                w.WriteString("to", s.To.Value);
+                w.WriteString("lineType", s.LineType.Value);
+                w.WriteNumber("lengthKm", s.LengthKm);
+            });
+            Array(w, "switches", grid.Switches, (w, s) =>
+            {
+                w.WriteString("id", s.Id.Value);
+                w.WriteString("from", s.From.Value);
+                w.WriteString("to", s.To.Value);
+                w.WriteString("kind", GridFormat.Name(s.Kind));
+                w.WriteBoolean("normallyOpen", s.NormallyOpen);
+                w.WriteBoolean("remote", s.Remote);
+                Optional(w, "travelMinutes", s.TravelMinutes);
+            });
+            Array(w, "indicators", grid.Indicators, (w, i) =>
+            {
+                w.WriteString("id", i.Id.Value);
+                w.WriteString("segment", i.Segment.Value);
+                w.WriteString("node", i.Node.Value);
+                Optional(w, "phasePickupA", i.PhasePickupA);
+                Optional(w, "earthPickupA", i.EarthPickupA);
+                w.WriteBoolean("directional", i.Directional);
+                w.WriteBoolean("remote", i.Remote);
+                Optional(w, "resetMinutes", i.ResetMinutes);
+            });
+            w.WriteEndObject();
+        }
+
+        return Encoding.UTF8.GetString(stream.ToArray()) + "\n";
+    }
+
+    private static void WriteLineType(Utf8JsonWriter w, LineType t)
+    {
+        w.WriteString("id", t.Id.Value);
+        w.WriteString("construction", GridFormat.Name(t.Construction));
+        w.WriteNumber("r1OhmPerKm", t.R1OhmPerKm);
+        w.WriteNumber("x1OhmPerKm", t.X1OhmPerKm);
+        w.WriteNumber("r0OhmPerKm", t.R0OhmPerKm);
+        w.WriteNumber("x0OhmPerKm", t.X0OhmPerKm);
+        w.WriteNumber("c0NfPerKm", t.C0NfPerKm);
+        w.WriteNumber("ampacityA", t.AmpacityA);
+        Optional(w, "faultsPer100KmYear", t.FaultsPer100KmYear);
+        Optional(w, "description", t.Description);
+        Optional(w, "conductorMaterial", t.ConductorMaterial);
+        Optional(w, "crossSectionMm2", t.CrossSectionMm2);
+        Optional(w, "dataSource", t.DataSource);
+    }
+
+    private static void WriteSubstation(Utf8JsonWriter w, Substation s)
+    {
+        w.WriteString("id", s.Id.Value);
+        w.WriteString("busNode", s.BusNode.Value);
+        w.WriteNumber("nominalVoltageKv", s.NominalVoltageKv);
+        switch (s.Supply)
+        {
+            case BusbarShortCircuit b:
+                w.WriteNumber("shortCircuitMva", b.ShortCircuitMva);
+                w.WriteNumber("rOverX", b.ROverX);
+                break;
+            case UpstreamViaTransformer u:
+                w.WriteStartObject("upstream");
+                w.WriteNumber("nominalVoltageKv", u.Upstream.NominalVoltageKv);
+                w.WriteNumber("shortCircuitMva", u.Upstream.ShortCircuitMva);
+                w.WriteNumber("rOverX", u.Upstream.ROverX);
+                w.WriteEndObject();
+                w.WriteStartObject("transformer");
+                w.WriteNumber("ratedMva", u.Transformer.RatedMva);
+                w.WriteNumber("hvKv", u.Transformer.HvKv);
+                w.WriteNumber("mvKv", u.Transformer.MvKv);
+                w.WriteNumber("ukrPercent", u.Transformer.UkrPercent);
+                w.WriteNumber("pkrKw", u.Transformer.PkrKw);
+                w.WriteEndObject();
+                break;
+        }
+
+        if (s.TransformerZ0Ohm is { } z0)
+        {
+            w.WriteStartObject("transformerZ0Ohm");
+            w.WriteNumber("r", z0.ResistanceOhm);
+            w.WriteNumber("x", z0.ReactanceOhm);
+            w.WriteEndObject();
+        }
+
+        Optional(w, "transformerRatedMva", s.TransformerRatedMva);
+        var g = s.Grounding;
+        w.WriteStartObject("grounding");
+        w.WriteString("scheme", GridFormat.Name(g.Scheme));
+        switch (g.Scheme)
+        {
+            case GroundingScheme.Resonant:
+                w.WriteNumber("detuningPercent", g.DetuningPercent);
+                w.WriteNumber("dampingPercent", g.DampingPercent);
+                break;
+            case GroundingScheme.Isolated when g.DampingPercent != 0:
+                w.WriteNumber("dampingPercent", g.DampingPercent);
+                break;
+            case GroundingScheme.Impedance:
+                w.WriteNumber("neutralResistanceOhm", g.NeutralResistanceOhm);
+                if (g.NeutralReactanceOhm != 0)
+                {
+                    w.WriteNumber("neutralReactanceOhm", g.NeutralReactanceOhm);
+                }
+
+                break;
+        }
+
+        w.WriteEndObject();
+    }
+
+    private static void WriteNode(Utf8JsonWriter w, Node n)
+    {
+        w.WriteString("id", n.Id.Value);
+        if (n.LoadKw != 0)
+        {
+            w.WriteNumber("loadKw", n.LoadKw);
+        }
+
+        Optional(w, "loadKvar", n.LoadKvar);
+        if (n.Customers != 0)
+        {
+            w.WriteNumber("customers", n.Customers);
+        }
+
+        Optional(w, "x", n.X);
+        Optional(w, "y", n.Y);
+    }
+
+    private static void Array<T>(Utf8JsonWriter w, string name, IEnumerable<T> items, Action<Utf8JsonWriter, T> write)
+    {
+        w.WriteStartArray(name);
+        foreach (var item in items)
+        {
+            w.WriteStartObject();
+            write(w, item);
+            w.WriteEndObject();
+        }
+
+        w.WriteEndArray();
+    }
+
+    private static void Optional(Utf8JsonWriter w, string name, double? value)
+    {
+        if (value is { } v)
+        {
+            w.WriteNumber(name, v);
+        }
+    }
+
+    private static void Optional(Utf8JsonWriter w, string name, string? value)
+    {
+        if (value is not null)
+        {
+            w.WriteString(name, value);
+        }
+    }
+}
