@@ -1,1 +1,3 @@
-return 0;
+using FeederLocate.Cli;
+
+return CliApp.Run(args, Console.Out, Console.Error);

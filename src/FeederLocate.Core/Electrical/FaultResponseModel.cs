@@ -127,9 +127,9 @@ public sealed class FaultResponseModel
         var beyondFarEnd = Network.IsAtOrBeyond(p.FarNode, fault.SuppliedNode);
         var faultBeyond = p.SelfSegment == fault.Segment || (p.AwayFromSource ? beyondFarEnd : !beyondFarEnd);
         var onPath = p.AwayFromSource ? faultBeyond : !faultBeyond;
-        var residual = (3 * p.ForwardAdmittanceS * fault.Currents.NeutralVoltageAtBusV)
-            + (faultBeyond ? fault.Currents.EarthCurrentA : Complex.Zero);
-        var residualA = residual.Magnitude;
+        // 3I0 = 3·Y0B·U0bus + [F in B]·I_E with I_E = −3·Y0bus·U0bus, so |3I0| = |U0bus|·3·|Y0B − [F in B]·Y0bus|:
+        // one gain per side, fixed by the topology, times the fault's neutral displacement.
+        var residualA = fault.NeutralVoltageMagnitudeV * (faultBeyond ? p.BeyondGainS : p.NotBeyondGainS);
         var phaseA = onPath ? fault.FaultedPhaseCurrentA : 0;
         var picked = (!double.IsNaN(p.PhasePickupA) && phaseA >= p.PhasePickupA)
             || (!double.IsNaN(p.EarthPickupA) && residualA >= p.EarthPickupA);
@@ -147,7 +147,7 @@ public sealed class FaultResponseModel
         var up = Network.SuppliedEndOf(segment);
         if (up < 0)
         {
-            return new MeasuringPoint(-1, -1, false, segment, Complex.Zero, phase, earth, indicator.Directional);
+            return new MeasuringPoint(-1, -1, false, segment, 0, 0, phase, earth, indicator.Directional);
         }
 
         var sub = Network.SubstationIndexOf(up);
@@ -168,7 +168,8 @@ public sealed class FaultResponseModel
             forward = NeutralAdmittance.OfCapacitance(capacitanceF, omega, terms.DampingPercent) + terms.NeutralS;
         }
 
-        return new MeasuringPoint(sub, far, away, segment, forward, phase, earth, indicator.Directional);
+        return new MeasuringPoint(sub, far, away, segment, 3 * forward.Magnitude, 3 * (forward - terms.ZeroSequenceBusS).Magnitude,
+            phase, earth, indicator.Directional);
     }
 
     private readonly record struct SubstationTerms(
@@ -177,14 +178,16 @@ public sealed class FaultResponseModel
     /// <summary>
     /// A place where current is measured: the network on its forward side is the part fed through
     /// <see cref="FarNode"/> (looking away from the source) or everything else (looking toward it),
-    /// plus <see cref="SelfSegment"/>.
+    /// plus <see cref="SelfSegment"/>. The gains give |3I0| per volt of |U0bus| with the fault
+    /// beyond it or not: 3·|Y0B − Y0bus| and 3·|Y0B|, Y0B the admittance on the forward side.
     /// </summary>
     private readonly record struct MeasuringPoint(
         int Substation,
         int FarNode,
         bool AwayFromSource,
         int SelfSegment,
-        Complex ForwardAdmittanceS,
+        double NotBeyondGainS,
+        double BeyondGainS,
         double PhasePickupA,
         double EarthPickupA,
         bool Directional);
@@ -200,7 +203,11 @@ public readonly record struct FaultSolution(
     Complex ZeroSequencePathOhm,
     double PhaseVoltageV,
     SequenceCurrents Currents,
-    double FaultedPhaseCurrentA);
+    double FaultedPhaseCurrentA)
+{
+    /// <summary>|U0| at the bus, V.</summary>
+    public double NeutralVoltageMagnitudeV { get; } = Currents.NeutralVoltageAtBusV.Magnitude;
+}
 
 /// <summary>One indicator's currents for a fault and its expected state.</summary>
 public readonly record struct IndicatorReading(double PhaseCurrentA, double ResidualCurrentA, bool FaultBeyond, IndicatorState Expected);

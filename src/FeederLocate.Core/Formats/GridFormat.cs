@@ -28,14 +28,14 @@ public static class GridFormat
         _ => "fuse",
     };
 
-    internal static readonly IReadOnlyDictionary<string, Model.Construction> Constructions =
+    public static readonly IReadOnlyDictionary<string, Model.Construction> Constructions =
         new Dictionary<string, Model.Construction>(StringComparer.Ordinal)
         {
             ["cable"] = Model.Construction.Cable,
             ["overhead"] = Model.Construction.Overhead,
         };
 
-    internal static readonly IReadOnlyDictionary<string, Model.GroundingScheme> Schemes =
+    public static readonly IReadOnlyDictionary<string, Model.GroundingScheme> Schemes =
         new Dictionary<string, Model.GroundingScheme>(StringComparer.Ordinal)
         {
             ["isolated"] = Model.GroundingScheme.Isolated,
@@ -44,7 +44,7 @@ public static class GridFormat
             ["impedance"] = Model.GroundingScheme.Impedance,
         };
 
-    internal static readonly IReadOnlyDictionary<string, Model.SwitchKind> SwitchKinds =
+    public static readonly IReadOnlyDictionary<string, Model.SwitchKind> SwitchKinds =
         new Dictionary<string, Model.SwitchKind>(StringComparer.Ordinal)
         {
             ["breaker"] = Model.SwitchKind.Breaker,

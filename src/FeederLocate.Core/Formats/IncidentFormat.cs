@@ -7,7 +7,7 @@ public static class IncidentFormat
 {
     public const string FormatTag = "feederlocate-incident/1";
 
-    internal static readonly IReadOnlyDictionary<string, FaultType?> FaultTypes =
+    public static readonly IReadOnlyDictionary<string, FaultType?> FaultTypes =
         new Dictionary<string, FaultType?>(StringComparer.Ordinal)
         {
             ["LG"] = FaultType.LG,
@@ -17,7 +17,7 @@ public static class IncidentFormat
             ["unknown"] = null,
         };
 
-    internal static readonly IReadOnlyDictionary<string, IndicatorState> States =
+    public static readonly IReadOnlyDictionary<string, IndicatorState> States =
         new Dictionary<string, IndicatorState>(StringComparer.Ordinal)
         {
             ["fault"] = IndicatorState.Fault,
@@ -27,14 +27,14 @@ public static class IncidentFormat
             ["unknown"] = IndicatorState.Unknown,
         };
 
-    internal static readonly IReadOnlyDictionary<string, IndicationSource> Sources =
+    public static readonly IReadOnlyDictionary<string, IndicationSource> Sources =
         new Dictionary<string, IndicationSource>(StringComparer.Ordinal)
         {
             ["remote"] = IndicationSource.Remote,
             ["field"] = IndicationSource.Field,
         };
 
-    internal static readonly IReadOnlyDictionary<string, SwitchPosition> Positions =
+    public static readonly IReadOnlyDictionary<string, SwitchPosition> Positions =
         new Dictionary<string, SwitchPosition>(StringComparer.Ordinal)
         {
             ["open"] = SwitchPosition.Open,

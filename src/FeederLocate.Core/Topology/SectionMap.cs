@@ -1,7 +1,7 @@
 using System.Collections.Immutable;
 using FeederLocate.Core.Model;
 using QuikGraph;
-using QuikGraph.Algorithms;
+using QuikGraph.Collections;
 
 namespace FeederLocate.Core.Topology;
 
@@ -41,12 +41,18 @@ public sealed class SectionMap
 
     internal static SectionMap Build(Grid grid, UndirectedGraph<int, TaggedEdge<int, EdgeRef>> network)
     {
-        // Sections are the connected components of the graph with only its segment edges.
-        var segmentsOnly = new UndirectedGraph<int, TaggedEdge<int, EdgeRef>>(allowParallelEdges: true);
-        segmentsOnly.AddVertexRange(network.Vertices);
-        segmentsOnly.AddEdgeRange(network.Edges.Where(e => e.Tag.Kind == EdgeKind.Segment));
-        var componentOfNode = new Dictionary<int, int>();
-        segmentsOnly.ConnectedComponents(componentOfNode);
+        // Sections are the connected components of the graph with only its segment edges. A disjoint
+        // set is near-linear; QuikGraph's depth-first component search grows much faster on long feeders.
+        var components = new ForestDisjointSet<int>(network.VertexCount);
+        foreach (var vertex in network.Vertices)
+        {
+            components.MakeSet(vertex);
+        }
+
+        foreach (var edge in network.Edges.Where(e => e.Tag.Kind == EdgeKind.Segment))
+        {
+            components.Union(edge.Source, edge.Target);
+        }
 
         // Number sections in grid order of their first segment, so ids and order are stable.
         var sectionOfComponent = new Dictionary<int, int>();
@@ -54,7 +60,7 @@ public sealed class SectionMap
         var members = new List<List<int>>();
         for (var i = 0; i < grid.Segments.Length; i++)
         {
-            var component = componentOfNode[grid.NodeIndex(grid.Segments[i].From)];
+            var component = components.FindSet(grid.NodeIndex(grid.Segments[i].From));
             if (!sectionOfComponent.TryGetValue(component, out var section))
             {
                 section = members.Count;
@@ -66,21 +72,47 @@ public sealed class SectionMap
             members[section].Add(i);
         }
 
-        var sections = members.Select(segmentIndices =>
+        // One pass over nodes and one over switches: each node belongs to at most one section.
+        var sectionOfNode = new int[grid.Nodes.Length];
+        Array.Fill(sectionOfNode, -1);
+        foreach (var segment in grid.Segments)
         {
-            var nodes = segmentIndices
-                .SelectMany(i => new[] { grid.Segments[i].From, grid.Segments[i].To })
-                .Distinct()
-                .ToHashSet();
-            var boundary = grid.Switches.Where(s => nodes.Contains(s.From) || nodes.Contains(s.To)).Select(s => s.Id);
-            var first = grid.Segments[segmentIndices[0]];
-            return new Section(
-                new SectionId($"SEC-{first.Id}"),
-                [.. segmentIndices.Select(i => grid.Segments[i].Id)],
-                [.. grid.Nodes.Select(n => n.Id).Where(nodes.Contains)],
-                [.. boundary],
-                segmentIndices.Sum(i => grid.Segments[i].LengthKm));
-        });
+            var section = sectionOfSegment[grid.SegmentIndex(segment.Id)];
+            sectionOfNode[grid.NodeIndex(segment.From)] = section;
+            sectionOfNode[grid.NodeIndex(segment.To)] = section;
+        }
+
+        var nodesOf = members.Select(_ => new List<NodeId>()).ToList();
+        for (var v = 0; v < grid.Nodes.Length; v++)
+        {
+            if (sectionOfNode[v] >= 0)
+            {
+                nodesOf[sectionOfNode[v]].Add(grid.Nodes[v].Id);
+            }
+        }
+
+        var boundaryOf = members.Select(_ => new List<SwitchId>()).ToList();
+        foreach (var device in grid.Switches)
+        {
+            var a = sectionOfNode[grid.NodeIndex(device.From)];
+            var b = sectionOfNode[grid.NodeIndex(device.To)];
+            if (a >= 0)
+            {
+                boundaryOf[a].Add(device.Id);
+            }
+
+            if (b >= 0 && b != a)
+            {
+                boundaryOf[b].Add(device.Id);
+            }
+        }
+
+        var sections = members.Select((segmentIndices, k) => new Section(
+            new SectionId($"SEC-{grid.Segments[segmentIndices[0]].Id}"),
+            [.. segmentIndices.Select(i => grid.Segments[i].Id)],
+            [.. nodesOf[k]],
+            [.. boundaryOf[k]],
+            segmentIndices.Sum(i => grid.Segments[i].LengthKm)));
         return new SectionMap([.. sections], sectionOfSegment);
     }
 }
