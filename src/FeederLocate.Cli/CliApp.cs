@@ -23,6 +23,8 @@ public static class CliApp
         {
             CheckCommand.Create(console),
             FaultCommand.Create(console),
+            RankCommand.Create(console),
+            EvaluateCommand.Create(console),
             GenerateCommand.Create(console),
             BenchCommand.Create(console),
         };

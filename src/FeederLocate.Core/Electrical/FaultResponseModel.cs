@@ -70,6 +70,44 @@ public sealed class FaultResponseModel
     /// <summary>What indicator index <paramref name="indicator"/> sees for a solved fault.</summary>
     public IndicatorReading Read(in FaultSolution fault, int indicator) => ReadAt(_indicators[indicator], fault);
 
+    /// <summary>The compiled measuring point of indicator index <paramref name="indicator"/>.</summary>
+    internal MeasuringPoint IndicatorPoint(int indicator) => _indicators[indicator];
+
+    /// <summary>
+    /// A measuring point at switch index <paramref name="device"/> looking away from the source (a feeder
+    /// breaker's CTs: currents toward the feeder), without pickups. Dead or open switches measure nothing.
+    /// </summary>
+    internal MeasuringPoint SwitchPoint(int device)
+    {
+        var d = Grid.Switches[device];
+        var a = Grid.NodeIndex(d.From);
+        var b = Grid.NodeIndex(d.To);
+        var edge = new Topology.EdgeRef(Topology.EdgeKind.Switch, device);
+        var far = Network.FeedingEdgeOf(b) == edge ? b : Network.FeedingEdgeOf(a) == edge ? a : -1;
+        if (far < 0)
+        {
+            return new MeasuringPoint(-1, -1, true, -1, 0, 0, double.NaN, double.NaN, false);
+        }
+
+        var sub = Network.SubstationIndexOf(far);
+        var terms = _substations[sub];
+        var forward = NeutralAdmittance.OfCapacitance(Network.CapacitanceAtOrBeyondF(far), Grid.AngularFrequencyRadPerS, terms.DampingPercent);
+        return new MeasuringPoint(sub, far, true, -1, 3 * forward.Magnitude, 3 * (forward - terms.ZeroSequenceBusS).Magnitude, double.NaN, double.NaN, false);
+    }
+
+    /// <summary>True when a fault on segment index <paramref name="segment"/> lies on the point's forward side (both energised, same network).</summary>
+    internal bool IsFaultBeyond(in MeasuringPoint p, int segment)
+    {
+        var up = Network.SuppliedEndOf(segment);
+        if (p.Substation < 0 || up < 0 || Network.SubstationIndexOf(up) != p.Substation)
+        {
+            return false;
+        }
+
+        var beyondFarEnd = Network.IsAtOrBeyond(p.FarNode, up);
+        return p.SelfSegment == segment || (p.AwayFromSource ? beyondFarEnd : !beyondFarEnd);
+    }
+
     /// <summary>The complete result of a fault: currents, voltages and every indicator's response.</summary>
     public FaultResult Compute(FaultCase fault)
     {
@@ -126,17 +164,23 @@ public sealed class FaultResponseModel
 
         var beyondFarEnd = Network.IsAtOrBeyond(p.FarNode, fault.SuppliedNode);
         var faultBeyond = p.SelfSegment == fault.Segment || (p.AwayFromSource ? beyondFarEnd : !beyondFarEnd);
-        var onPath = p.AwayFromSource ? faultBeyond : !faultBeyond;
+        var onPath = p.OnPath(faultBeyond);
+
         // 3I0 = 3·Y0B·U0bus + [F in B]·I_E with I_E = −3·Y0bus·U0bus, so |3I0| = |U0bus|·3·|Y0B − [F in B]·Y0bus|:
         // one gain per side, fixed by the topology, times the fault's neutral displacement.
         var residualA = fault.NeutralVoltageMagnitudeV * (faultBeyond ? p.BeyondGainS : p.NotBeyondGainS);
         var phaseA = onPath ? fault.FaultedPhaseCurrentA : 0;
-        var picked = (!double.IsNaN(p.PhasePickupA) && phaseA >= p.PhasePickupA)
-            || (!double.IsNaN(p.EarthPickupA) && residualA >= p.EarthPickupA);
-        var expected = !picked ? IndicatorState.None
+        var expected = ExpectedState(p, faultBeyond, onPath, phaseA, residualA);
+        return new IndicatorReading(phaseA, residualA, faultBeyond, expected);
+    }
+
+    /// <summary>The state an indicator is expected to show for the currents it sees (reference model).</summary>
+    internal static IndicatorState ExpectedState(in MeasuringPoint p, bool faultBeyond, bool onPath, double phaseCurrentA, double residualCurrentA)
+    {
+        var picked = (onPath && phaseCurrentA >= p.PhasePickupA) || residualCurrentA >= p.EarthPickupA;
+        return !picked ? IndicatorState.None
             : !p.Directional ? IndicatorState.Fault
             : faultBeyond ? IndicatorState.Forward : IndicatorState.Reverse;
-        return new IndicatorReading(phaseA, residualA, faultBeyond, expected);
     }
 
     private MeasuringPoint Compile(Indicator indicator)
@@ -174,23 +218,6 @@ public sealed class FaultResponseModel
 
     private readonly record struct SubstationTerms(
         double PhaseVoltageV, Complex SourceOhm, Complex ZeroSequenceBusS, Complex NeutralS, double DampingPercent);
-
-    /// <summary>
-    /// A place where current is measured: the network on its forward side is the part fed through
-    /// <see cref="FarNode"/> (looking away from the source) or everything else (looking toward it),
-    /// plus <see cref="SelfSegment"/>. The gains give |3I0| per volt of |U0bus| with the fault
-    /// beyond it or not: 3·|Y0B − Y0bus| and 3·|Y0B|, Y0B the admittance on the forward side.
-    /// </summary>
-    private readonly record struct MeasuringPoint(
-        int Substation,
-        int FarNode,
-        bool AwayFromSource,
-        int SelfSegment,
-        double NotBeyondGainS,
-        double BeyondGainS,
-        double PhasePickupA,
-        double EarthPickupA,
-        bool Directional);
 }
 
 /// <summary>A solved fault, ready for reading indicators.</summary>

@@ -62,7 +62,8 @@ public sealed record SubstationMeasurement(
 /// <summary>
 /// What is known of one incident: switch states deviating from normal, the device that cleared the
 /// fault (null when nothing tripped), the fault type (null when unknown), substation records and
-/// indications.
+/// indications. <see cref="ReenergisedAt"/> is the time of the latest trial re-energisation, if any:
+/// indications read before it are stale.
 /// </summary>
 public sealed record Incident(
     DateTimeOffset ReportedAt,
@@ -71,7 +72,8 @@ public sealed record Incident(
     SwitchId? TrippedDevice,
     FaultType? FaultType,
     ImmutableArray<SubstationMeasurement> Measurements,
-    ImmutableArray<Indication> Indications)
+    ImmutableArray<Indication> Indications,
+    DateTimeOffset? ReenergisedAt = null)
 {
     /// <summary>The indication given for <paramref name="indicator"/>, or null (state unknown).</summary>
     public Indication? IndicationOf(IndicatorId indicator)

@@ -43,6 +43,7 @@ public static class IncidentReader
             root.Error("faultType", $"must be one of {string.Join(", ", IncidentFormat.FaultTypes.Keys.Select(k => $"\"{k}\""))}, got \"{faultTypeText}\"");
         }
 
+        var reenergisedAt = Time(root, "reenergisedAt", required: false);
         var measurements = Measurements(root, grid, log);
         var indications = Indications(root, grid, log);
         root.WarnUnknownFields();
@@ -51,7 +52,7 @@ public static class IncidentReader
             return new LoadResult<Incident>(null, log.Issues);
         }
 
-        var incident = new Incident(reportedAt!.Value, gridReference, switchStates, tripped, faultType, measurements, indications);
+        var incident = new Incident(reportedAt!.Value, gridReference, switchStates, tripped, faultType, measurements, indications, reenergisedAt);
         return new LoadResult<Incident>(incident, log.Issues);
     }
 

@@ -39,6 +39,11 @@ public static class IncidentWriter
             }
 
             w.WriteString("faultType", IncidentFormat.Name(incident.FaultType));
+            if (incident.ReenergisedAt is { } reenergisedAt)
+            {
+                w.WriteString("reenergisedAt", Time(reenergisedAt));
+            }
+
             w.WriteStartArray("measurements");
             foreach (var m in incident.Measurements)
             {

@@ -1,0 +1,87 @@
+using System.CommandLine;
+using System.Globalization;
+using FeederLocate.Cli.Input;
+using FeederLocate.Cli.Output;
+using FeederLocate.Core.Ranking;
+
+namespace FeederLocate.Cli.Commands;
+
+/// <summary><c>rank GRID INCIDENT</c>: suspect segments and sections with their probabilities and reasons.</summary>
+internal static class RankCommand
+{
+    public static Command Create(CliConsole console)
+    {
+        var grid = CliOptions.Grid();
+        var incident = new Argument<string>("INCIDENT") { Description = "Incident file (feederlocate-incident/1)" };
+        var json = CliOptions.Json();
+        var command = new Command("rank", "Rank the suspect segments and sections of an incident") { grid, incident, json };
+        command.SetAction(parse => Run(console, parse.GetValue(grid)!, parse.GetValue(incident)!, parse.GetValue(json)));
+        return command;
+    }
+
+    private static int Run(CliConsole console, string gridPath, string incidentPath, bool json)
+    {
+        var grid = InputFiles.LoadGrid(gridPath, console.Error);
+        var incident = InputFiles.LoadIncident(incidentPath, grid, console.Error);
+        if (!FaultRanking.TryRank(grid, incident, out var result, out var problem))
+        {
+            throw new BadInputException($"error: {problem}");
+        }
+
+        var document = RankingDocument.From(result!);
+        if (json)
+        {
+            JsonOutput.Write(console.Out, document);
+            return CliApp.Success;
+        }
+
+        Write(console.Out, document);
+        return CliApp.Success;
+    }
+
+    private static void Write(TextWriter output, RankingDocument d)
+    {
+        if (!d.Consistent)
+        {
+            output.WriteLine("WARNING: no single explanation fits the evidence. Check these indications and the switch states:");
+            foreach (var c in d.Disagreeing)
+            {
+                output.WriteLine($"  {c.Indicator}: recorded {c.Observed}, expected {c.Expected} ({c.Verdict})");
+            }
+        }
+
+        var sections = TableOutput.Table("rank", "section", "probability", "segments");
+        foreach (var (s, i) in d.Sections.Take(8).Select((s, i) => (s, i)))
+        {
+            sections.AddRow((i + 1).ToString(CultureInfo.InvariantCulture), s.Id, Percent(s.Probability), string.Join(" ", s.Segments));
+        }
+
+        TableOutput.Write(output, sections);
+        foreach (var suspect in d.Suspects)
+        {
+            output.WriteLine($"segment {suspect.Segment}: {Percent(suspect.Probability)}, best fit {suspect.FaultType} with Rf {suspect.FaultResistanceOhm.ToString(CultureInfo.InvariantCulture)} Ω"
+                + (suspect.DistanceWindowKm is { } w ? $", {w.FromKm:F1}–{w.ToKm:F1} km from the substation" : string.Empty));
+            foreach (var c in suspect.Agreeing)
+            {
+                output.WriteLine($"  + {c.Indicator} {c.Observed}{(c.Stale ? " (stale)" : string.Empty)}");
+            }
+
+            foreach (var c in suspect.Disagreeing)
+            {
+                output.WriteLine($"  - {c.Indicator} {c.Observed}, expected {c.Expected}: {c.Verdict}, probability {Percent(c.Probability)}{(c.Stale ? " (stale)" : string.Empty)}");
+            }
+
+            foreach (var m in suspect.Measurements)
+            {
+                output.WriteLine($"  = {m.Device} {m.Quantity}: {m.Measured:F1} recorded, {m.Predicted:F1} predicted ({m.DeviationSigma:+0.0;-0.0} σ)");
+            }
+        }
+
+        foreach (var leftOut in d.LeftOut)
+        {
+            output.WriteLine($"left out (marked suspect): {leftOut}");
+        }
+    }
+
+    private static string Percent(double p) => (p * 100).ToString("F1", CultureInfo.InvariantCulture) + " %";
+}

@@ -1,0 +1,58 @@
+using FeederLocate.Core.Formats;
+using FeederLocate.Core.Ranking;
+
+namespace FeederLocate.Cli.Output;
+
+/// <summary>The <c>rank</c> document: the contract's fields first, then the reasons.</summary>
+internal sealed record RankingDocument(
+    bool Consistent,
+    IReadOnlyList<RankingDocument.SegmentEntry> Segments,
+    IReadOnlyList<RankingDocument.SectionEntry> Sections,
+    IReadOnlyList<RankingDocument.SuspectEntry> Suspects,
+    IReadOnlyList<RankingDocument.CheckEntry> Disagreeing,
+    IReadOnlyList<RankingDocument.PairEntry> CrossCountry,
+    IReadOnlyList<string> LeftOut,
+    IReadOnlyDictionary<string, double> FaultTypes,
+    IReadOnlyList<string> Assumptions)
+{
+    public static RankingDocument From(RankingResult r) => new(
+        r.Consistent,
+        [.. r.Segments.Select(s => new SegmentEntry(s.Id.Value, s.Section.Value, s.Probability))],
+        [.. r.Sections.Select(s => new SectionEntry(s.Id.Value, [.. s.Segments.Select(x => x.Value)], s.Probability))],
+        [.. r.Explanations.Select(e => new SuspectEntry(
+            e.Segment.Value, e.Probability, e.FaultType.ToString(), e.FaultResistanceOhm,
+            [.. e.Agreeing.Select(CheckEntry.From)], [.. e.Disagreeing.Select(CheckEntry.From)],
+            [.. e.Measurements.Select(m => new MeasurementEntry(m.Device.Value, m.Quantity, m.MeasuredValue, m.PredictedValue, m.DeviationSigma))],
+            e.DistanceWindow is { } w ? new WindowEntry(w.FromKm, w.ToKm) : null))],
+        [.. r.Disagreeing.Select(CheckEntry.From)],
+        [.. r.CrossCountry.Select(c => new PairEntry([c.First.Value, c.Second.Value], c.Probability))],
+        [.. r.LeftOut.Select(i => i.Value)],
+        r.FaultTypeProbabilities.ToDictionary(p => p.Key.ToString(), p => p.Value),
+        r.Assumptions);
+
+    internal sealed record SegmentEntry(string Id, string Section, double Probability);
+
+    internal sealed record SectionEntry(string Id, IReadOnlyList<string> Segments, double Probability);
+
+    internal sealed record SuspectEntry(
+        string Segment,
+        double Probability,
+        string FaultType,
+        double FaultResistanceOhm,
+        IReadOnlyList<CheckEntry> Agreeing,
+        IReadOnlyList<CheckEntry> Disagreeing,
+        IReadOnlyList<MeasurementEntry> Measurements,
+        WindowEntry? DistanceWindowKm);
+
+    internal sealed record CheckEntry(string Indicator, string Observed, string Expected, double Probability, bool Stale, string Verdict)
+    {
+        public static CheckEntry From(IndicationCheck c) =>
+            new(c.Indicator.Value, IncidentFormat.Name(c.Observed), IncidentFormat.Name(c.Expected), c.Probability, c.Stale, c.Verdict);
+    }
+
+    internal sealed record MeasurementEntry(string Device, string Quantity, double Measured, double Predicted, double DeviationSigma);
+
+    internal sealed record WindowEntry(double FromKm, double ToKm);
+
+    internal sealed record PairEntry(IReadOnlyList<string> Segments, double Probability);
+}

@@ -1,0 +1,24 @@
+namespace FeederLocate.Core.Evaluation;
+
+/// <summary>
+/// How simulated incidents go wrong: each indication is lost (unknown) with <see cref="UnknownProbability"/>;
+/// one that should show a pickup shows none with <see cref="MissProbability"/>; one that should show none
+/// reports falsely with <see cref="FalseProbability"/>. Substation records carry relative noise.
+/// </summary>
+public sealed record SimulationSettings(
+    double MissProbability = 0.05,
+    double FalseProbability = 0.02,
+    double UnknownProbability = 0.10,
+    double RecordNoiseRelative = 0.02)
+{
+    public void Validate()
+    {
+        foreach (var (name, p) in new[] { ("miss", MissProbability), ("false", FalseProbability), ("unknown", UnknownProbability) })
+        {
+            if (!(p is >= 0 and <= 1))
+            {
+                throw new ArgumentOutOfRangeException(name, p, $"--{name} is a probability: 0 to 1");
+            }
+        }
+    }
+}

@@ -1,0 +1,56 @@
+namespace FeederLocate.Core.Learning;
+
+/// <summary>How strongly the fault-rate priors are held and how long the history counts for.</summary>
+public sealed record FaultRateOptions
+{
+    /// <summary>Days in the year used to turn a span of time into years (the Julian year).</summary>
+    public const double DaysPerYear = 365.25;
+
+    public static FaultRateOptions Default { get; } = new();
+
+    /// <summary>
+    /// E0: the line type's stated rate weighs like this much observed exposure, in km·years
+    /// (default 50). Prior Gamma((r/100)·E0, E0) for r faults per 100 km·year. Must be &gt; 0.
+    /// </summary>
+    public double PriorExposureKmYears
+    {
+        get;
+        init => field = Positive(value, nameof(PriorExposureKmYears));
+    } = 50;
+
+    /// <summary>
+    /// S: the line type's learned rate weighs like this much exposure of the segment itself, in
+    /// km·years (default 10): a segment's own record outweighs its type once its length × years passes S.
+    /// Must be &gt; 0.
+    /// </summary>
+    public double SegmentShrinkKmYears
+    {
+        get;
+        init => field = Positive(value, nameof(SegmentShrinkKmYears));
+    } = 10;
+
+    /// <summary>
+    /// Length of the observed history in years. Null (the default) takes the span from the earliest to
+    /// the latest confirmed fault, but at least <see cref="MinimumObservationYears"/>. Must be &gt; 0 when given.
+    /// </summary>
+    public double? ObservationYears
+    {
+        get;
+        init => field = value is { } years ? Positive(years, nameof(ObservationYears)) : null;
+    }
+
+    /// <summary>
+    /// Floor on the span-derived history length in years (default 1): one fault, or several in a short
+    /// spell, would otherwise claim almost no exposure and an absurd rate. Must be &gt; 0.
+    /// </summary>
+    public double MinimumObservationYears
+    {
+        get;
+        init => field = Positive(value, nameof(MinimumObservationYears));
+    } = 1;
+
+    private static double Positive(double value, string name) =>
+        double.IsFinite(value) && value > 0
+            ? value
+            : throw new ArgumentOutOfRangeException(name, value, $"{name} must be finite and > 0");
+}

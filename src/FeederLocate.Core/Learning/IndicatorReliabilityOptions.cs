@@ -1,0 +1,52 @@
+namespace FeederLocate.Core.Learning;
+
+/// <summary>
+/// Prior rates of the indicator kinds and how strongly they are held. The default rates are from memory,
+/// typical figures for fault passage indicators (common practice, no single source): a remote indicator
+/// misses 5 % of the faults it should see and reports falsely in 2 % of the faults it should not; one read
+/// in the field misses 8 % and reports falsely 4 %, the extra covering flags reset or misread before the crew arrives.
+/// </summary>
+public sealed record IndicatorReliabilityOptions
+{
+    public static IndicatorReliabilityOptions Default { get; } = new();
+
+    /// <summary>Prior P(miss) of a remote indicator (default 0.05). Strictly between 0 and 1.</summary>
+    public double RemoteMissProbability { get; init => field = Probability(value, nameof(RemoteMissProbability)); } = 0.05;
+
+    /// <summary>Prior P(false report) of a remote indicator (default 0.02). Strictly between 0 and 1.</summary>
+    public double RemoteFalseReportProbability { get; init => field = Probability(value, nameof(RemoteFalseReportProbability)); } = 0.02;
+
+    /// <summary>Prior P(miss) of an indicator read in the field (default 0.08). Strictly between 0 and 1.</summary>
+    public double FieldMissProbability { get; init => field = Probability(value, nameof(FieldMissProbability)); } = 0.08;
+
+    /// <summary>Prior P(false report) of an indicator read in the field (default 0.04). Strictly between 0 and 1.</summary>
+    public double FieldFalseReportProbability { get; init => field = Probability(value, nameof(FieldFalseReportProbability)); } = 0.04;
+
+    /// <summary>
+    /// n0: the kind's prior rate weighs like this many trials (default 20): prior Beta(p·n0, (1 − p)·n0).
+    /// Must be &gt; 0.
+    /// </summary>
+    public double PriorStrength { get; init => field = Positive(value, nameof(PriorStrength)); } = 20;
+
+    /// <summary>
+    /// s: the kind's learned rate weighs like this many trials of the indicator itself (default 10).
+    /// Must be &gt; 0.
+    /// </summary>
+    public double ShrinkStrength { get; init => field = Positive(value, nameof(ShrinkStrength)); } = 10;
+
+    /// <summary>Prior P(miss) of the kind.</summary>
+    public double MissProbability(IndicatorKind kind) => kind.Remote ? RemoteMissProbability : FieldMissProbability;
+
+    /// <summary>Prior P(false report) of the kind.</summary>
+    public double FalseReportProbability(IndicatorKind kind) => kind.Remote ? RemoteFalseReportProbability : FieldFalseReportProbability;
+
+    private static double Probability(double value, string name) =>
+        value > 0 && value < 1
+            ? value
+            : throw new ArgumentOutOfRangeException(name, value, $"{name} must lie strictly between 0 and 1");
+
+    private static double Positive(double value, string name) =>
+        double.IsFinite(value) && value > 0
+            ? value
+            : throw new ArgumentOutOfRangeException(name, value, $"{name} must be finite and > 0");
+}

@@ -1,0 +1,87 @@
+using FeederLocate.Core.Electrical;
+using FeederLocate.Core.Evidence;
+using FeederLocate.Core.Model;
+
+namespace FeederLocate.Core.Ranking;
+
+/// <summary>
+/// An indication that carries evidence, compiled: the indicator's measuring point and the log-probability
+/// of its record for each state it could be expected to show, already weighted for staleness.
+/// </summary>
+internal sealed record ObservedIndication(
+    int IndicatorIndex,
+    Indicator Indicator,
+    Indication Indication,
+    MeasuringPoint Point,
+    IndicatorErrorRates Rates,
+    bool Stale,
+    double Weight,
+    double[] LogProbabilityByExpected)
+{
+    public double LogProbability(IndicatorState expected) => LogProbabilityByExpected[(int)expected];
+}
+
+/// <summary>A substation record compiled against the measuring point of its device.</summary>
+internal sealed record MeasuredRecord(SubstationMeasurement Measurement, MeasuringPoint Point);
+
+internal static class EvidencePoints
+{
+    public static List<ObservedIndication> Indications(Grid grid, Incident incident, FaultResponseModel model, RankingOptions options, RankingPriors priors, List<IndicatorId> leftOut)
+    {
+        var observed = new List<ObservedIndication>();
+        foreach (var indication in incident.Indications)
+        {
+            if (indication.Suspect)
+            {
+                leftOut.Add(indication.Indicator);
+                continue;
+            }
+
+            if (indication.State == IndicatorState.Unknown)
+            {
+                continue;
+            }
+
+            var index = grid.IndicatorIndex(indication.Indicator);
+            var indicator = grid.Indicators[index];
+            var rates = RatesOf(indicator, indication, options, priors);
+            var stale = IsStale(indicator, indication, incident);
+            var weight = stale ? options.StaleWeight : 1.0;
+            var table = new double[Enum.GetValues<IndicatorState>().Length];
+            foreach (var expected in Enum.GetValues<IndicatorState>())
+            {
+                table[(int)expected] = weight * Math.Log(IndicationLikelihood.Probability(indicator, rates, expected, indication.State));
+            }
+
+            observed.Add(new ObservedIndication(index, indicator, indication, model.IndicatorPoint(index), rates, stale, weight, table));
+        }
+
+        return observed;
+    }
+
+    public static List<MeasuredRecord> Measurements(Grid grid, Incident incident, FaultResponseModel model) =>
+        [.. incident.Measurements.Select(m => new MeasuredRecord(m, model.SwitchPoint(grid.SwitchIndex(m.Device))))];
+
+    /// <summary>
+    /// Read after the flag may have reset, or before a trial re-energisation changed what it shows.
+    /// </summary>
+    public static bool IsStale(Indicator indicator, Indication indication, Incident incident)
+    {
+        if (indication.ReadAt is not { } readAt)
+        {
+            return false;
+        }
+
+        var afterReset = indicator.ResetMinutes is { } reset && readAt - incident.ReportedAt > TimeSpan.FromMinutes(reset);
+        var beforeReenergising = incident.ReenergisedAt is { } reenergised && readAt < reenergised;
+        return afterReset || beforeReenergising;
+    }
+
+    private static IndicatorErrorRates RatesOf(Indicator indicator, Indication indication, RankingOptions options, RankingPriors priors)
+    {
+        var byKind = indication.Source == IndicationSource.Field ? options.FieldRates : options.RemoteRates;
+        return priors.IndicatorRates.TryGetValue(indicator.Id, out var learned)
+            ? learned with { MisreadProbability = byKind.MisreadProbability }
+            : byKind;
+    }
+}

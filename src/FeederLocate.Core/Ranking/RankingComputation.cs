@@ -1,0 +1,244 @@
+using System.Collections.Immutable;
+using FeederLocate.Core.Electrical;
+using FeederLocate.Core.Evidence;
+using FeederLocate.Core.Model;
+using FeederLocate.Core.Topology;
+
+namespace FeederLocate.Core.Ranking;
+
+/// <summary>
+/// One ranking: every energised segment a hypothesis, its likelihood marginalised over fault type,
+/// fault resistance and (for the substation records) position, times its prior.
+/// Indications are compared at the segment's midpoint, so the cost is segments × indicators × resistances.
+/// </summary>
+internal sealed class RankingComputation
+{
+    private readonly Grid _grid;
+    private readonly Incident _incident;
+    private readonly RankingOptions _options;
+    private readonly RankingPriors _priors;
+    private readonly NetworkGraph _graph;
+    private readonly FaultResponseModel _model;
+    private readonly List<ObservedIndication> _observed;
+    private readonly List<MeasuredRecord> _measured;
+    private readonly MeasuringPoint? _trip;
+    private readonly List<IndicatorId> _leftOut = [];
+    private readonly ImmutableArray<FaultTypePlan>[] _plans;
+    private readonly bool[] _beyond;
+    private readonly bool[] _measuredBeyond;
+
+    public RankingComputation(NetworkGraph graph, Incident incident, RankingOptions options, RankingPriors priors)
+    {
+        _graph = graph;
+        _grid = graph.Grid;
+        _incident = incident;
+        _options = options;
+        _priors = priors;
+        if (!graph.TryEnergise(SwitchStates.AtFaultTime(_grid, incident), out var network, out var problem))
+        {
+            throw new RankingException($"the incident's switch states give no radial network: {problem}");
+        }
+
+        Network = network!;
+        _model = new FaultResponseModel(Network);
+        _observed = EvidencePoints.Indications(_grid, incident, _model, options, priors, _leftOut);
+        _measured = EvidencePoints.Measurements(_grid, incident, _model);
+        _trip = incident.TrippedDevice is { } tripped ? _model.SwitchPoint(_grid.SwitchIndex(tripped)) : null;
+        _plans = [.. _grid.Substations.Select(s => HypothesisPlan.For(s.Grounding.Scheme, incident, options))];
+        _beyond = new bool[_observed.Count];
+        _measuredBeyond = new bool[_measured.Count];
+    }
+
+    public EnergisedNetwork Network { get; }
+
+    internal FaultResponseModel Model => _model;
+
+    internal IReadOnlyList<ObservedIndication> Observed => _observed;
+
+    internal IReadOnlyList<MeasuredRecord> Measured => _measured;
+
+    internal IReadOnlyList<IndicatorId> LeftOut => _leftOut;
+
+    internal Incident Incident => _incident;
+
+    internal RankingOptions Options => _options;
+
+    internal NetworkGraph Graph => _graph;
+
+    /// <summary>Scores every energised segment.</summary>
+    public List<SegmentScore> ScoreSegments()
+    {
+        var scores = new List<SegmentScore>();
+        for (var s = 0; s < _grid.Segments.Length; s++)
+        {
+            if (Network.IsSegmentEnergised(s))
+            {
+                scores.Add(Score(s));
+            }
+        }
+
+        if (scores.Count == 0)
+        {
+            throw new RankingException("no segment is energised in the incident's switch states: nothing to rank");
+        }
+
+        return scores;
+    }
+
+    /// <summary>Log-factor of the tripped device: 0 where it would have seen the fault, log(ε) elsewhere.</summary>
+    public double TripLogFactor(int segment) =>
+        _trip is not { } trip || _model.IsFaultBeyond(trip, segment) ? 0 : Math.Log(_options.OutsideTrippedZoneFactor);
+
+    /// <summary>The expected state of every observed indicator for a fault on the segment.</summary>
+    public IndicatorState[] ExpectedStates(int segment, in FaultSolution fault)
+    {
+        FillBeyond(segment);
+        var states = new IndicatorState[_observed.Count];
+        for (var i = 0; i < states.Length; i++)
+        {
+            states[i] = Expected(i, fault);
+        }
+
+        return states;
+    }
+
+    /// <summary>The value a record's device would have measured for a solved fault.</summary>
+    public (double PhaseA, double ResidualA, double NeutralV) Predicted(MeasuredRecord record, int segment, in FaultSolution fault)
+    {
+        var point = record.Point;
+        var same = point.Substation >= 0 && point.Substation == fault.Substation;
+        var beyond = same && _model.IsFaultBeyond(point, segment);
+        return Predicted(point, same, beyond, fault);
+    }
+
+    private static (double PhaseA, double ResidualA, double NeutralV) Predicted(in MeasuringPoint point, bool same, bool beyond, in FaultSolution fault)
+    {
+        if (!same)
+        {
+            return (0, 0, 0);
+        }
+
+        var u0 = fault.NeutralVoltageMagnitudeV;
+        return (beyond ? fault.FaultedPhaseCurrentA : 0, u0 * (beyond ? point.BeyondGainS : point.NotBeyondGainS), u0);
+    }
+
+    private SegmentScore Score(int segment)
+    {
+        var sub = Network.SubstationIndexOf(Network.SuppliedEndOf(segment));
+        FillBeyond(segment);
+        for (var m = 0; m < _measured.Count; m++)
+        {
+            var point = _measured[m].Point;
+            _measuredBeyond[m] = point.Substation == sub && _model.IsFaultBeyond(point, segment);
+        }
+
+        var tripLog = TripLogFactor(segment);
+        var marginal = double.NegativeInfinity;
+        var best = new BestHypothesis(FaultType.LG, 0, 0.5, double.NegativeInfinity);
+        var byType = new Dictionary<FaultType, double>();
+        foreach (var plan in _plans[sub])
+        {
+            var logWeight = plan.LogWeight - Math.Log(plan.ResistancesOhm.Length);
+            var typeMarginal = double.NegativeInfinity;
+            foreach (var rf in plan.ResistancesOhm)
+            {
+                var mid = _model.Solve(segment, 0.5, plan.Type, rf);
+                var indications = 0.0;
+                for (var i = 0; i < _observed.Count; i++)
+                {
+                    indications += _observed[i].LogProbability(Expected(i, mid));
+                }
+
+                var (records, position) = RecordsLikelihood(segment, sub, plan.Type, rf);
+                var likelihood = indications + records;
+                typeMarginal = LogMath.Add(typeMarginal, logWeight + likelihood);
+                if (likelihood + tripLog > best.LogLikelihood)
+                {
+                    best = new BestHypothesis(plan.Type, rf, position, likelihood + tripLog);
+                }
+            }
+
+            byType[plan.Type] = tripLog + typeMarginal;
+            marginal = LogMath.Add(marginal, typeMarginal);
+        }
+
+        var logPrior = Math.Log(Math.Max(1e-12, _priors.FaultsPerYear(_grid, _grid.Segments[segment])));
+        return new SegmentScore(segment, logPrior, tripLog + marginal, best, byType);
+    }
+
+    /// <summary>The substation records' likelihood averaged over positions, and the best-fitting position.</summary>
+    private (double LogLikelihood, double BestPosition) RecordsLikelihood(int segment, int substation, FaultType type, double rf)
+    {
+        if (_measured.Count == 0)
+        {
+            return (0, 0.5);
+        }
+
+        var total = double.NegativeInfinity;
+        var best = (Log: double.NegativeInfinity, Position: 0.5);
+        foreach (var position in _options.Positions)
+        {
+            var fault = _model.Solve(segment, position, type, rf);
+            var log = 0.0;
+            for (var m = 0; m < _measured.Count; m++)
+            {
+                var record = _measured[m];
+                var same = record.Point.Substation == substation;
+                var predicted = Predicted(record.Point, same, _measuredBeyond[m], fault);
+                log += RecordLogLikelihood(record.Measurement, predicted);
+            }
+
+            total = LogMath.Add(total, log);
+            if (log > best.Log)
+            {
+                best = (log, position);
+            }
+        }
+
+        return (total - Math.Log(_options.Positions.Length), best.Position);
+    }
+
+    internal double RecordLogLikelihood(SubstationMeasurement m, (double PhaseA, double ResidualA, double NeutralV) predicted)
+    {
+        var log = 0.0;
+        if (m.PhaseCurrentA is { } phase)
+        {
+            log += MeasurementLikelihood.Log(_options.PhaseCurrentTolerance, phase, predicted.PhaseA);
+        }
+
+        if (m.ResidualCurrentA is { } residual)
+        {
+            log += MeasurementLikelihood.Log(_options.ResidualCurrentTolerance, residual, predicted.ResidualA);
+        }
+
+        if (m.NeutralVoltageV is { } neutral)
+        {
+            log += MeasurementLikelihood.Log(_options.NeutralVoltageTolerance, neutral, predicted.NeutralV);
+        }
+
+        return log;
+    }
+
+    private void FillBeyond(int segment)
+    {
+        for (var i = 0; i < _observed.Count; i++)
+        {
+            _beyond[i] = _model.IsFaultBeyond(_observed[i].Point, segment);
+        }
+    }
+
+    private IndicatorState Expected(int i, in FaultSolution fault)
+    {
+        var point = _observed[i].Point;
+        if (point.Substation != fault.Substation)
+        {
+            return IndicatorState.None;
+        }
+
+        var beyond = _beyond[i];
+        var onPath = point.OnPath(beyond);
+        var phase = onPath ? fault.FaultedPhaseCurrentA : 0;
+        var residual = fault.NeutralVoltageMagnitudeV * (beyond ? point.BeyondGainS : point.NotBeyondGainS);
+        return FaultResponseModel.ExpectedState(point, beyond, onPath, phase, residual);
+    }
+}

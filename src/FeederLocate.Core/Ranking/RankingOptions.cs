@@ -1,0 +1,96 @@
+using System.Collections.Immutable;
+
+namespace FeederLocate.Core.Ranking;
+
+/// <summary>Error rates of one indicator: probabilities of missing a fault, reporting falsely, and being misread.</summary>
+/// <param name="MissProbability">P(reports none | it should have picked up).</param>
+/// <param name="FalseReportProbability">P(reports a pickup | it should not have), including a wrong direction.</param>
+/// <param name="MisreadProbability">P(the reading written down is another state than shown): field readings.</param>
+public sealed record IndicatorErrorRates(double MissProbability, double FalseReportProbability, double MisreadProbability = 0)
+{
+    public void Validate()
+    {
+        foreach (var (name, p) in new[] { ("miss", MissProbability), ("false report", FalseReportProbability), ("misread", MisreadProbability) })
+        {
+            if (!(p is >= 0 and < 0.5))
+            {
+                throw new ArgumentOutOfRangeException(name, p, $"{name} probability must be within 0 to 0.5");
+            }
+        }
+    }
+}
+
+/// <summary>Measurement tolerance: σ = relative·|predicted| + absolute, in the quantity's unit.</summary>
+public sealed record MeasurementTolerance(double Relative, double Absolute);
+
+/// <summary>
+/// Settings of the ranking. Defaults are common practice for MV distribution; every number here is
+/// shown with the result so the operator can see what was assumed.
+/// </summary>
+public sealed record RankingOptions
+{
+    /// <summary>Remote (telecontrol) indicators: miss 5 %, false 2 % (common practice).</summary>
+    public IndicatorErrorRates RemoteRates { get; init; } = new(0.05, 0.02);
+
+    /// <summary>Field-read indicators: as remote plus 3 % misreading (common practice, from memory).</summary>
+    public IndicatorErrorRates FieldRates { get; init; } = new(0.05, 0.02, 0.03);
+
+    /// <summary>Weight (0..1) of an indication read after its indicator's reset time or before a trial re-energisation.</summary>
+    public double StaleWeight { get; init; } = 0.3;
+
+    /// <summary>Faulted-phase current at the feeder breaker: 5 % + 20 A (CT and recorder class, common practice).</summary>
+    public MeasurementTolerance PhaseCurrentTolerance { get; init; } = new(0.05, 20);
+
+    /// <summary>Residual current |3I0|: 10 % + 1 A (summation CTs on cable feeders, common practice).</summary>
+    public MeasurementTolerance ResidualCurrentTolerance { get; init; } = new(0.10, 1);
+
+    /// <summary>Neutral voltage |U0|: 5 % + 200 V (common practice).</summary>
+    public MeasurementTolerance NeutralVoltageTolerance { get; init; } = new(0.05, 200);
+
+    /// <summary>Fault resistances for earth faults on isolated and resonant networks, Ω (a few Ω to a few kΩ, common practice).</summary>
+    public ImmutableArray<double> HighResistanceEarthFaultOhms { get; init; } = [0, 5, 20, 60, 150, 400, 1000, 2500, 5000];
+
+    /// <summary>Fault resistances for earth faults that trip on solid and impedance networks, Ω (mostly under 20 Ω, common practice).</summary>
+    public ImmutableArray<double> LowResistanceEarthFaultOhms { get; init; } = [0, 1, 3, 6, 10, 15, 20];
+
+    /// <summary>Fault resistances of short circuits, Ω (a few ohms at most, common practice).</summary>
+    public ImmutableArray<double> ShortCircuitOhms { get; init; } = [0, 0.5, 1.5, 3];
+
+    /// <summary>Positions along a segment (fraction from its from node) at which the substation records are compared.</summary>
+    public ImmutableArray<double> Positions { get; init; } = [0.1, 0.3, 0.5, 0.7, 0.9];
+
+    /// <summary>Likelihood factor of a fault where the tripped device would not have seen it (maloperation, wrong switch state).</summary>
+    public double OutsideTrippedZoneFactor { get; init; } = 1e-3;
+
+    /// <summary>Significance below which the best explanation's disagreements make the evidence inconsistent.</summary>
+    public double InconsistencySignificance { get; init; } = 0.01;
+
+    /// <summary>A measurement further than this many σ from the best explanation makes the evidence inconsistent.</summary>
+    public double InconsistentMeasurementSigma { get; init; } = 4;
+
+    /// <summary>Share of prior mass given to cross-country faults when single faults explain the evidence badly.</summary>
+    public double CrossCountryPrior { get; init; } = 0.05;
+
+    /// <summary>How many of the best single-fault segments are paired for cross-country hypotheses.</summary>
+    public int CrossCountryCandidates { get; init; } = 25;
+
+    /// <summary>How many top suspects get an explanation.</summary>
+    public int ExplainedSuspects { get; init; } = 3;
+
+    public static RankingOptions Default { get; } = new();
+
+    public void Validate()
+    {
+        RemoteRates.Validate();
+        FieldRates.Validate();
+        if (!(StaleWeight is >= 0 and <= 1))
+        {
+            throw new ArgumentOutOfRangeException(nameof(StaleWeight), StaleWeight, "stale weight must be within 0 to 1");
+        }
+
+        if (Positions.IsDefaultOrEmpty || Positions.Any(p => !(p is >= 0 and <= 1)))
+        {
+            throw new ArgumentOutOfRangeException(nameof(Positions), "positions must be fractions 0 to 1, at least one");
+        }
+    }
+}

@@ -1,0 +1,105 @@
+using System.Collections.Immutable;
+using FeederLocate.Core.Electrical;
+using FeederLocate.Core.Evidence;
+using FeederLocate.Core.Model;
+
+namespace FeederLocate.Core.Ranking;
+
+/// <summary>Explains a suspect: each indication against its best-fitting fault, the records, and a distance window.</summary>
+internal static class SuspectExplainer
+{
+    public static ImmutableArray<IndicationCheck> Checks(RankingComputation computation, int segment, BestHypothesis best)
+    {
+        var fault = computation.Model.Solve(segment, 0.5, best.Type, best.FaultResistanceOhm);
+        var expected = computation.ExpectedStates(segment, fault);
+        return [.. computation.Observed.Select((o, i) =>
+        {
+            var observed = o.Indication.State;
+            var probability = IndicationLikelihood.Probability(o.Indicator, o.Rates, expected[i], observed);
+            var error = 1 - IndicationLikelihood.Probability(o.Indicator, o.Rates, expected[i], expected[i]);
+            return new IndicationCheck(o.Indicator.Id, observed, expected[i], expected[i] == observed, probability, error, o.Stale,
+                IndicationLikelihood.Describe(expected[i], observed));
+        })];
+    }
+
+    public static SuspectExplanation Explain(RankingComputation computation, SegmentScore score, double probability, DistanceCalculator distances)
+    {
+        var checks = Checks(computation, score.Segment, score.Best);
+        var fault = computation.Model.Solve(score.Segment, score.Best.Position, score.Best.Type, score.Best.FaultResistanceOhm);
+        var options = computation.Options;
+        var measurements = ImmutableArray.CreateBuilder<MeasurementCheck>();
+        foreach (var record in computation.Measured)
+        {
+            var (phase, residual, neutral) = computation.Predicted(record, score.Segment, fault);
+            var m = record.Measurement;
+            if (m.PhaseCurrentA is { } p)
+            {
+                measurements.Add(Check(m.Device, "phaseCurrentA", p, phase, options.PhaseCurrentTolerance));
+            }
+
+            if (m.ResidualCurrentA is { } r)
+            {
+                measurements.Add(Check(m.Device, "residualCurrentA", r, residual, options.ResidualCurrentTolerance));
+            }
+
+            if (m.NeutralVoltageV is { } u)
+            {
+                measurements.Add(Check(m.Device, "neutralVoltageV", u, neutral, options.NeutralVoltageTolerance));
+            }
+        }
+
+        return new SuspectExplanation(
+            computation.Model.Grid.Segments[score.Segment].Id,
+            probability,
+            score.Best.Type,
+            score.Best.FaultResistanceOhm,
+            [.. checks.Where(c => c.Agrees)],
+            [.. checks.Where(c => !c.Agrees)],
+            measurements.ToImmutable(),
+            Window(computation, score, distances));
+    }
+
+    /// <summary>
+    /// Where along the segment the faulted-phase current recorded at the substation fits (within 2σ) for
+    /// the best-fitting fault type and resistance; only where that current falls with distance (solid and
+    /// impedance earthing, or short circuits).
+    /// </summary>
+    private static DistanceWindow? Window(RankingComputation computation, SegmentScore score, DistanceCalculator distances)
+    {
+        var grid = computation.Model.Grid;
+        var network = computation.Network;
+        var scheme = network.SubstationOf(grid.Segments[score.Segment].From)?.Grounding.Scheme;
+        var fallsWithDistance = scheme is GroundingScheme.Solid or GroundingScheme.Impedance || score.Best.Type is not (FaultType.LG or FaultType.LLG);
+        var records = computation.Measured.Where(r => r.Measurement.PhaseCurrentA is not null).ToList();
+        if (!fallsWithDistance || records.Count == 0)
+        {
+            return null;
+        }
+
+        double? from = null;
+        double? to = null;
+        const int steps = 50;
+        for (var k = 0; k <= steps; k++)
+        {
+            var position = k / (double)steps;
+            var fault = computation.Model.Solve(score.Segment, position, score.Best.Type, score.Best.FaultResistanceOhm);
+            var fits = records.All(r =>
+            {
+                var predicted = computation.Predicted(r, score.Segment, fault).PhaseA;
+                var sigma = MeasurementLikelihood.Sigma(computation.Options.PhaseCurrentTolerance, predicted);
+                return Math.Abs(r.Measurement.PhaseCurrentA!.Value - predicted) <= 2 * sigma;
+            });
+            if (fits)
+            {
+                var km = distances.AlongSegmentKm(score.Segment, position);
+                from = Math.Min(from ?? km, km);
+                to = Math.Max(to ?? km, km);
+            }
+        }
+
+        return from is null ? null : new DistanceWindow(from.Value, to!.Value);
+    }
+
+    private static MeasurementCheck Check(SwitchId device, string quantity, double measured, double predicted, MeasurementTolerance tolerance) =>
+        new(device, quantity, measured, predicted, (measured - predicted) / MeasurementLikelihood.Sigma(tolerance, predicted));
+}

@@ -1,0 +1,153 @@
+using System.Text.Json;
+using System.Text.Json.Serialization;
+using FeederLocate.Core.Evidence;
+using FeederLocate.Core.Formats;
+using FeederLocate.Core.Model;
+using FeederLocate.Storage.Database;
+using FeederLocate.Storage.Errors;
+
+namespace FeederLocate.Storage.Events;
+
+/// <summary>
+/// The stored form of each event kind: a kind name and a camelCase JSON payload. States, sources, positions
+/// and fault types are written with the incident format's names; the opened incident is the incident file's text.
+/// </summary>
+internal static class EventPayload
+{
+    public const string IncidentOpenedKind = "incidentOpened";
+    public const string IndicationEnteredKind = "indicationEntered";
+    public const string MeasurementRecordedKind = "measurementRecorded";
+    public const string SwitchStateChangedKind = "switchStateChanged";
+    public const string PlanStepCompletedKind = "planStepCompleted";
+    public const string OutcomeLoggedKind = "outcomeLogged";
+    public const string IncidentClosedKind = "incidentClosed";
+
+    private static readonly JsonSerializerOptions Options = new()
+    {
+        PropertyNamingPolicy = JsonNamingPolicy.CamelCase,
+        DefaultIgnoreCondition = JsonIgnoreCondition.WhenWritingNull,
+        RespectNullableAnnotations = true,
+        RespectRequiredConstructorParameters = true,
+    };
+
+    public static string KindOf(IncidentEvent e) => e switch
+    {
+        IncidentOpened => IncidentOpenedKind,
+        IndicationEntered => IndicationEnteredKind,
+        MeasurementRecorded => MeasurementRecordedKind,
+        SwitchStateChanged => SwitchStateChangedKind,
+        PlanStepCompleted => PlanStepCompletedKind,
+        OutcomeLogged => OutcomeLoggedKind,
+        IncidentClosed => IncidentClosedKind,
+        _ => throw new ArgumentException($"unknown event type {e.GetType().Name}", nameof(e)),
+    };
+
+    public static string Serialize(IncidentEvent e)
+    {
+        ArgumentNullException.ThrowIfNull(e);
+        object payload = e switch
+        {
+            IncidentOpened o => new OpenedPayload(o.GridName, IncidentWriter.Write(o.Incident), IsoTime.Format(o.ReportedAt)),
+            IndicationEntered { Indication: var i } => new IndicationPayload(
+                i.Indicator.Value, IncidentFormat.Name(i.State), IncidentFormat.Name(i.Source),
+                i.ReadAt is { } readAt ? IsoTime.Format(readAt) : null, i.Suspect),
+            MeasurementRecorded { Measurement: var m } => new MeasurementPayload(
+                m.Device.Value, m.PhaseCurrentA, m.ResidualCurrentA, m.NeutralVoltageV),
+            SwitchStateChanged s => new SwitchPayload(s.Switch.Value, IncidentFormat.Name(s.Position)),
+            PlanStepCompleted p => new PlanStepPayload(p.Order, p.Action, p.Device, p.Note),
+            OutcomeLogged o => new OutcomePayload(o.ConfirmedSegment.Value, IncidentFormat.Name(o.FaultType), o.Cause, o.Notes),
+            IncidentClosed c => new ClosedPayload(c.Note),
+            _ => throw new ArgumentException($"unknown event type {e.GetType().Name}", nameof(e)),
+        };
+        return JsonSerializer.Serialize(payload, payload.GetType(), Options);
+    }
+
+    /// <summary>Reads a stored payload back; throws <see cref="CorruptEventException"/> naming the event when it cannot.</summary>
+    public static IncidentEvent Deserialize(EventId id, string kind, string json)
+    {
+        try
+        {
+            return kind switch
+            {
+                IncidentOpenedKind => Opened(id, Read<OpenedPayload>(json)),
+                IndicationEnteredKind => Indication(id, Read<IndicationPayload>(json)),
+                MeasurementRecordedKind => Read<MeasurementPayload>(json).ToEvent(),
+                SwitchStateChangedKind => Read<SwitchPayload>(json).ToEvent(id),
+                PlanStepCompletedKind => Read<PlanStepPayload>(json).ToEvent(),
+                OutcomeLoggedKind => Read<OutcomePayload>(json).ToEvent(id),
+                IncidentClosedKind => new IncidentClosed(Read<ClosedPayload>(json).Note),
+                _ => throw new CorruptEventException(id, $"has unknown kind \"{kind}\""),
+            };
+        }
+        catch (JsonException e)
+        {
+            throw new CorruptEventException(id, $"has a {kind} payload that cannot be read: {e.Message}", e);
+        }
+    }
+
+    private static T Read<T>(string json) =>
+        JsonSerializer.Deserialize<T>(json, Options) ?? throw new JsonException("payload is null");
+
+    private static IncidentOpened Opened(EventId id, OpenedPayload payload)
+    {
+        var read = IncidentReader.Parse(payload.Incident, grid: null);
+        if (read.Value is not { } incident)
+        {
+            throw new CorruptEventException(id, "holds an incident that does not read back: " + string.Join("; ", read.Errors));
+        }
+
+        return new IncidentOpened(payload.GridName, incident);
+    }
+
+    private static IndicationEntered Indication(EventId id, IndicationPayload payload)
+    {
+        DateTimeOffset? readAt = null;
+        if (payload.ReadAt is not null)
+        {
+            readAt = IsoTime.TryParse(payload.ReadAt, out var time)
+                ? time
+                : throw new CorruptEventException(id, $"has readAt \"{payload.ReadAt}\" that is not an ISO 8601 time");
+        }
+
+        return new IndicationEntered(new Indication(
+            new IndicatorId(payload.Indicator),
+            Choice(id, "state", payload.State, IncidentFormat.States),
+            Choice(id, "source", payload.Source, IncidentFormat.Sources),
+            readAt,
+            payload.Suspect));
+    }
+
+    private static T Choice<T>(EventId id, string field, string text, IReadOnlyDictionary<string, T> names) =>
+        names.TryGetValue(text, out var value)
+            ? value
+            : throw new CorruptEventException(id, $"has {field} \"{text}\"; expected one of {string.Join(", ", names.Keys)}");
+
+    private sealed record OpenedPayload(string GridName, string Incident, string ReportedAt);
+
+    private sealed record IndicationPayload(string Indicator, string State, string Source, string? ReadAt, bool Suspect);
+
+    private sealed record MeasurementPayload(string Device, double? PhaseCurrentA, double? ResidualCurrentA, double? NeutralVoltageV)
+    {
+        public MeasurementRecorded ToEvent() =>
+            new(new SubstationMeasurement(new SwitchId(Device), PhaseCurrentA, ResidualCurrentA, NeutralVoltageV));
+    }
+
+    private sealed record SwitchPayload(string Switch, string Position)
+    {
+        public SwitchStateChanged ToEvent(EventId id) =>
+            new(new SwitchId(Switch), Choice(id, "position", Position, IncidentFormat.Positions));
+    }
+
+    private sealed record PlanStepPayload(int Order, string Action, string? Device, string? Note)
+    {
+        public PlanStepCompleted ToEvent() => new(Order, Action, Device, Note);
+    }
+
+    private sealed record OutcomePayload(string ConfirmedSegment, string FaultType, string? Cause, string? Notes)
+    {
+        public OutcomeLogged ToEvent(EventId id) =>
+            new(new SegmentId(ConfirmedSegment), Choice(id, "faultType", FaultType, IncidentFormat.FaultTypes), Cause, Notes);
+    }
+
+    private sealed record ClosedPayload(string? Note);
+}

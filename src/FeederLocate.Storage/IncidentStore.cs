@@ -1,0 +1,220 @@
+using FeederLocate.Core.Evidence;
+using FeederLocate.Core.Model;
+using FeederLocate.Storage.Database;
+using FeederLocate.Storage.Errors;
+using FeederLocate.Storage.Events;
+using FeederLocate.Storage.Incidents;
+using FeederLocate.Storage.Maintenance;
+using FeederLocate.Storage.Migrations;
+using Microsoft.Data.Sqlite;
+
+namespace FeederLocate.Storage;
+
+/// <summary>
+/// The incident log in one SQLite file: an append-only list of events per incident, from which each
+/// incident's state is derived. Several processes may read and write the same file at once (write-ahead
+/// log, busy timeout, every change in one immediate transaction). One instance is for one thread.
+/// </summary>
+public sealed class IncidentStore : IDisposable
+{
+    private readonly SqliteConnection _connection;
+    private readonly TimeProvider _clock;
+
+    private IncidentStore(string path, SqliteConnection connection, TimeProvider clock, int schemaVersion)
+    {
+        Path = path;
+        _connection = connection;
+        _clock = clock;
+        SchemaVersion = schemaVersion;
+    }
+
+    /// <summary>The database file.</summary>
+    public string Path { get; }
+
+    /// <summary>The schema version of the file once opened: always <see cref="LatestSchemaVersion"/>.</summary>
+    public int SchemaVersion { get; }
+
+    /// <summary>The schema version this program writes.</summary>
+    public static int LatestSchemaVersion => SchemaMigrator.LatestVersion;
+
+    internal SqliteConnection Connection => _connection;
+
+    /// <summary>
+    /// Opens the database at <paramref name="path"/>, creating the file if absent and bringing its schema up
+    /// to date. <paramref name="clock"/> stamps the events (the system clock by default).
+    /// Throws <see cref="SchemaVersionException"/> for a file written by a newer program.
+    /// </summary>
+    public static IncidentStore Open(string path, TimeProvider? clock = null)
+    {
+        ArgumentException.ThrowIfNullOrWhiteSpace(path);
+        clock ??= TimeProvider.System;
+        var connection = StoreConnection.Open(path);
+        try
+        {
+            var version = SchemaMigrator.Migrate(connection, clock, path);
+            return new IncidentStore(path, connection, clock, version);
+        }
+        catch
+        {
+            connection.Dispose();
+            throw;
+        }
+    }
+
+    /// <summary>Logs a new incident on the grid named <paramref name="gridName"/>; returns its id.</summary>
+    public IncidentId OpenIncident(string gridName, Incident incident, Actor actor) =>
+        Write(transaction => OpenIn(transaction, gridName, incident, actor));
+
+    /// <summary>
+    /// Logs an incident with its confirmed fault location and closes it, all in one transaction: the
+    /// <c>record</c> command. The outcome's segment must be in <paramref name="grid"/>.
+    /// </summary>
+    public IncidentId Record(Grid grid, Incident incident, OutcomeLogged outcome, Actor actor)
+    {
+        ArgumentNullException.ThrowIfNull(grid);
+        ArgumentNullException.ThrowIfNull(outcome);
+        return Write(transaction =>
+        {
+            var id = OpenIn(transaction, grid.Name, incident, actor);
+            AppendIn(transaction, id, [outcome, new IncidentClosed()], actor, grid);
+            return id;
+        });
+    }
+
+    /// <summary>Appends one event to an open incident; see <see cref="Append(IncidentId, IReadOnlyList{IncidentEvent}, Actor, Grid?)"/>.</summary>
+    public StoredEvent Append(IncidentId incident, IncidentEvent e, Actor actor, Grid? grid = null) =>
+        Append(incident, [e], actor, grid)[0];
+
+    /// <summary>
+    /// Appends events, in order, to an open incident in one transaction: all are logged or none.
+    /// With <paramref name="grid"/> given, it must be the incident's grid and the events may name only its
+    /// elements (<see cref="IncidentGridMismatchException"/>). Throws <see cref="UnknownIncidentException"/>
+    /// for an id not logged and <see cref="IncidentClosedException"/> for a closed incident.
+    /// </summary>
+    public IReadOnlyList<StoredEvent> Append(IncidentId incident, IReadOnlyList<IncidentEvent> events, Actor actor, Grid? grid = null)
+    {
+        ArgumentNullException.ThrowIfNull(events);
+        ArgumentNullException.ThrowIfNull(actor);
+        return Write(transaction => AppendIn(transaction, incident, events, actor, grid));
+    }
+
+    /// <summary>The incident's events in order; throws <see cref="UnknownIncidentException"/> for an id not logged.</summary>
+    public IReadOnlyList<StoredEvent> Events(IncidentId incident)
+    {
+        var events = EventTable.EventsOf(_connection, incident);
+        return events.Count > 0 || EventTable.IncidentExists(_connection, incident)
+            ? events
+            : throw new UnknownIncidentException(incident, Path);
+    }
+
+    /// <summary>The incident as its events add up to; throws <see cref="UnknownIncidentException"/> for an id not logged.</summary>
+    public IncidentState State(IncidentId incident) => IncidentFold.Fold(Events(incident));
+
+    /// <summary>Every logged incident, by id.</summary>
+    public IReadOnlyList<IncidentSummary> Incidents() =>
+        States(gridName: null).Select(IncidentSummary.Of).ToList();
+
+    /// <summary>
+    /// Every incident of the grid named <paramref name="gridName"/> (exact match) with an outcome logged, by id,
+    /// each with its evidence as last updated and the confirmed segment.
+    /// </summary>
+    public IReadOnlyList<RecordedOutcome> Outcomes(string gridName)
+    {
+        ArgumentNullException.ThrowIfNull(gridName);
+        return States(gridName)
+            .Where(s => s.Outcome is not null)
+            .Select(s => new RecordedOutcome(s.Id, s.Incident, s.Outcome!.Outcome.ConfirmedSegment, s.ReportedAt))
+            .ToList();
+    }
+
+    /// <summary>Writes a consistent copy of the database to <paramref name="destinationPath"/> while it stays in use.</summary>
+    public void BackupTo(string destinationPath) => DatabaseChecks.Backup(_connection, Path, destinationPath);
+
+    /// <summary>Runs SQLite's integrity and foreign key checks on the file.</summary>
+    public IntegrityReport CheckIntegrity() => DatabaseChecks.Check(_connection);
+
+    public void Dispose() => _connection.Dispose();
+
+    private IEnumerable<IncidentState> States(string? gridName)
+    {
+        var events = EventTable.AllEvents(_connection, gridName);
+        var start = 0;
+        for (var i = 1; i <= events.Count; i++)
+        {
+            if (i == events.Count || events[i].Incident != events[start].Incident)
+            {
+                yield return IncidentFold.Fold(events.GetRange(start, i - start));
+                start = i;
+            }
+        }
+    }
+
+    private T Write<T>(Func<SqliteTransaction, T> change)
+    {
+        // BeginTransaction() is BEGIN IMMEDIATE: the write lock is taken (waiting up to the busy timeout)
+        // before anything is read, so the sequence number read below cannot be taken by another process.
+        using var transaction = _connection.BeginTransaction();
+        var result = change(transaction);
+        transaction.Commit();
+        return result;
+    }
+
+    private IncidentId OpenIn(SqliteTransaction transaction, string gridName, Incident incident, Actor actor)
+    {
+        ArgumentException.ThrowIfNullOrWhiteSpace(gridName);
+        ArgumentNullException.ThrowIfNull(incident);
+        ArgumentNullException.ThrowIfNull(actor);
+        var now = _clock.GetUtcNow();
+        var id = EventTable.InsertIncident(_connection, transaction, gridName, incident.ReportedAt, now);
+        EventTable.InsertEvent(_connection, transaction, id, 1, now, actor, new IncidentOpened(gridName, incident));
+        return id;
+    }
+
+    private List<StoredEvent> AppendIn(SqliteTransaction transaction, IncidentId incident, IReadOnlyList<IncidentEvent> events, Actor actor, Grid? grid)
+    {
+        foreach (var e in events)
+        {
+            CheckEvent(e);
+        }
+
+        var head = EventTable.ReadHead(_connection, transaction, incident) ?? throw new UnknownIncidentException(incident, Path);
+        if (grid is not null)
+        {
+            GridReferences.Check(incident, head.GridName, grid, events);
+        }
+
+        var stored = new List<StoredEvent>(events.Count);
+        var closed = head.Closed;
+        var sequence = head.LastSequence;
+        var now = _clock.GetUtcNow();
+        foreach (var e in events)
+        {
+            if (closed)
+            {
+                throw new IncidentClosedException(incident, EventPayload.KindOf(e));
+            }
+
+            stored.Add(EventTable.InsertEvent(_connection, transaction, incident, ++sequence, now, actor, e));
+            closed = e is IncidentClosed;
+        }
+
+        return stored;
+    }
+
+    private static void CheckEvent(IncidentEvent e)
+    {
+        ArgumentNullException.ThrowIfNull(e);
+        switch (e)
+        {
+            case IncidentOpened:
+                throw new ArgumentException("an incident is opened with OpenIncident, not by appending incidentOpened", nameof(e));
+            case PlanStepCompleted step:
+                ArgumentOutOfRangeException.ThrowIfLessThan(step.Order, 1, nameof(step.Order));
+                ArgumentException.ThrowIfNullOrWhiteSpace(step.Action, nameof(step.Action));
+                break;
+            case OutcomeLogged outcome:
+                ArgumentException.ThrowIfNullOrWhiteSpace(outcome.ConfirmedSegment.Value, nameof(outcome.ConfirmedSegment));
+                break;
+        }
+    }
+}

@@ -1,0 +1,123 @@
+using System.Collections.Immutable;
+using FeederLocate.Core.Evidence;
+using FeederLocate.Storage.Errors;
+using FeederLocate.Storage.Events;
+
+namespace FeederLocate.Storage.Incidents;
+
+/// <summary>
+/// Adds up an incident's events, in sequence order, into its <see cref="IncidentState"/>:
+/// an indication replaces the earlier one of the same indicator where it stood in the list (new indicators go
+/// last); a measurement's given values replace those of the same device; a switch state replaces the earlier
+/// one; the latest outcome is in force; plan steps accumulate; incidentClosed closes, and nothing may follow it.
+/// </summary>
+internal static class IncidentFold
+{
+    public static IncidentState Fold(IReadOnlyList<StoredEvent> events)
+    {
+        ArgumentNullException.ThrowIfNull(events);
+        if (events.Count == 0 || events[0].Event is not IncidentOpened opened)
+        {
+            throw events.Count == 0
+                ? new InvalidOperationException("an incident has at least its opening event")
+                : new CorruptEventException(events[0].Id, $"is the first event of incident {events[0].Incident} but is not incidentOpened");
+        }
+
+        var first = events[0];
+        var incident = opened.Incident;
+        var indications = incident.Indications.ToBuilder();
+        var measurements = incident.Measurements.ToBuilder();
+        var switchStates = incident.SwitchStates.ToBuilder();
+        var steps = ImmutableArray.CreateBuilder<CompletedPlanStep>();
+        LoggedOutcome? outcome = null;
+        DateTimeOffset? closedAt = null;
+
+        foreach (var stored in events.Skip(1))
+        {
+            if (closedAt is not null)
+            {
+                throw new CorruptEventException(stored.Id, $"follows the closing of incident {stored.Incident}");
+            }
+
+            switch (stored.Event)
+            {
+                case IndicationEntered { Indication: var indication }:
+                    var at = IndexOf(indications, i => i.Indicator == indication.Indicator);
+                    if (at < 0)
+                    {
+                        indications.Add(indication);
+                    }
+                    else
+                    {
+                        indications[at] = indication;
+                    }
+
+                    break;
+                case MeasurementRecorded { Measurement: var measurement }:
+                    var m = IndexOf(measurements, x => x.Device == measurement.Device);
+                    if (m < 0)
+                    {
+                        measurements.Add(measurement);
+                    }
+                    else
+                    {
+                        var old = measurements[m];
+                        measurements[m] = new SubstationMeasurement(
+                            measurement.Device,
+                            measurement.PhaseCurrentA ?? old.PhaseCurrentA,
+                            measurement.ResidualCurrentA ?? old.ResidualCurrentA,
+                            measurement.NeutralVoltageV ?? old.NeutralVoltageV);
+                    }
+
+                    break;
+                case SwitchStateChanged change:
+                    switchStates[change.Switch] = change.Position;
+                    break;
+                case PlanStepCompleted step:
+                    steps.Add(new CompletedPlanStep(step, stored.Actor, stored.Time));
+                    break;
+                case OutcomeLogged logged:
+                    outcome = new LoggedOutcome(logged, stored.Actor, stored.Time);
+                    break;
+                case IncidentClosed:
+                    closedAt = stored.Time;
+                    break;
+                case IncidentOpened:
+                    throw new CorruptEventException(stored.Id, $"opens incident {stored.Incident} a second time");
+                default:
+                    throw new InvalidOperationException($"event kind {stored.Event.GetType().Name} is not folded");
+            }
+        }
+
+        var current = incident with
+        {
+            Indications = indications.ToImmutable(),
+            Measurements = measurements.ToImmutable(),
+            SwitchStates = switchStates.ToImmutable(),
+        };
+        return new IncidentState(
+            first.Incident,
+            opened.GridName,
+            current,
+            closedAt is null ? IncidentStatus.Open : IncidentStatus.Closed,
+            steps.ToImmutable(),
+            outcome,
+            first.Actor,
+            first.Time,
+            closedAt,
+            events.Count);
+    }
+
+    private static int IndexOf<T>(ImmutableArray<T>.Builder items, Func<T, bool> match)
+    {
+        for (var i = 0; i < items.Count; i++)
+        {
+            if (match(items[i]))
+            {
+                return i;
+            }
+        }
+
+        return -1;
+    }
+}

@@ -1,0 +1,26 @@
+using System.Collections.Immutable;
+using FeederLocate.Core.Evidence;
+using FeederLocate.Storage.Events;
+
+namespace FeederLocate.Storage.Incidents;
+
+/// <summary>
+/// An incident as its events add up to: the evidence (<see cref="Incident"/>, with every later indication,
+/// measurement and switch state applied in order), the plan steps done, the outcome if logged, open or closed.
+/// </summary>
+/// <param name="OpenedAt">When the incident was logged (not when it was reported: see <see cref="ReportedAt"/>).</param>
+/// <param name="EventCount">Events logged for the incident, the opening one included.</param>
+public sealed record IncidentState(
+    IncidentId Id,
+    string GridName,
+    Incident Incident,
+    IncidentStatus Status,
+    ImmutableArray<CompletedPlanStep> CompletedSteps,
+    LoggedOutcome? Outcome,
+    Actor OpenedBy,
+    DateTimeOffset OpenedAt,
+    DateTimeOffset? ClosedAt,
+    int EventCount)
+{
+    public DateTimeOffset ReportedAt => Incident.ReportedAt;
+}

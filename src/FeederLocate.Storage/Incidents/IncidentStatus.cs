@@ -1,0 +1,7 @@
+namespace FeederLocate.Storage.Incidents;
+
+public enum IncidentStatus
+{
+    Open,
+    Closed,
+}
