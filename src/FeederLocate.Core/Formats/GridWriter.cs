@@ -111,23 +111,25 @@ public static class GridWriter
         var g = s.Grounding;
         w.WriteStartObject("grounding");
         w.WriteString("scheme", GridFormat.Name(g.Scheme));
-        switch (g.Scheme)
+        // Every parameter that is set is written, whatever the scheme, so a round trip changes nothing.
+        if (g.Scheme == GroundingScheme.Resonant || g.DetuningPercent != 0)
         {
-            case GroundingScheme.Resonant:
-                w.WriteNumber("detuningPercent", g.DetuningPercent);
-                w.WriteNumber("dampingPercent", g.DampingPercent);
-                break;
-            case GroundingScheme.Isolated when g.DampingPercent != 0:
-                w.WriteNumber("dampingPercent", g.DampingPercent);
-                break;
-            case GroundingScheme.Impedance:
-                w.WriteNumber("neutralResistanceOhm", g.NeutralResistanceOhm);
-                if (g.NeutralReactanceOhm != 0)
-                {
-                    w.WriteNumber("neutralReactanceOhm", g.NeutralReactanceOhm);
-                }
+            w.WriteNumber("detuningPercent", g.DetuningPercent);
+        }
 
-                break;
+        if (g.Scheme == GroundingScheme.Resonant || g.DampingPercent != 0)
+        {
+            w.WriteNumber("dampingPercent", g.DampingPercent);
+        }
+
+        if (g.Scheme == GroundingScheme.Impedance || g.NeutralResistanceOhm != 0)
+        {
+            w.WriteNumber("neutralResistanceOhm", g.NeutralResistanceOhm);
+        }
+
+        if (g.NeutralReactanceOhm != 0)
+        {
+            w.WriteNumber("neutralReactanceOhm", g.NeutralReactanceOhm);
         }
 
         w.WriteEndObject();

@@ -163,6 +163,12 @@ public sealed class EnergisedNetwork
         var adjacency = Graph.Graph;
         var order = new List<int>(grid.Nodes.Length);
         var reported = new HashSet<EdgeRef>();
+        var busOf = new Dictionary<int, int>();
+        for (var s = 0; s < grid.Substations.Length; s++)
+        {
+            busOf[grid.NodeIndex(grid.Substations[s].BusNode)] = s;
+        }
+
         TopologyProblem? problem = null;
         for (var s = 0; s < grid.Substations.Length; s++)
         {
@@ -193,6 +199,13 @@ public sealed class EnergisedNetwork
                             problem ??= _substationOfNode[v] == s ? Loop(u, v, tag) : Paralleled(u, v, tag);
                         }
 
+                        continue;
+                    }
+
+                    if (busOf.TryGetValue(v, out var otherBus) && otherBus != s)
+                    {
+                        // Reaching another substation's bus: the two are paralleled through this path.
+                        problem ??= ParalleledWith(u, otherBus, tag);
                         continue;
                     }
 
@@ -276,13 +289,15 @@ public sealed class EnergisedNetwork
         return new TopologyProblem($"the switching state closes a loop: {string.Join(", ", elements)}", elements);
     }
 
-    private TopologyProblem Paralleled(int u, int v, EdgeRef closing)
+    private TopologyProblem Paralleled(int u, int v, EdgeRef closing) => ParalleledWith(u, _substationOfNode[v], closing);
+
+    private TopologyProblem ParalleledWith(int u, int otherSubstation, EdgeRef closing)
     {
         var a = Grid.Substations[_substationOfNode[u]].Id;
-        var b = Grid.Substations[Math.Max(0, _substationOfNode[v])].Id;
-        var elements = closing.IsNone ? [] : ImmutableArray.Create(Graph.Describe(closing));
+        var b = Grid.Substations[Math.Max(0, otherSubstation)].Id;
+        var elements = closing.IsNone ? [] : EdgesUpTo(u, -1).Reverse().Append(Graph.Describe(closing)).ToImmutableArray();
         return new TopologyProblem(
-            $"the switching state parallels substations {a} and {b}{(closing.IsNone ? string.Empty : $" through {elements[0]}")}; a node must be fed from one bus only",
+            $"the switching state parallels substations {a} and {b}{(closing.IsNone ? string.Empty : $" through {string.Join(", ", elements)}")}; a node must be fed from one bus only",
             elements);
     }
 
@@ -299,7 +314,7 @@ public sealed class EnergisedNetwork
 
     private IEnumerable<string> EdgesUpTo(int v, int ancestor)
     {
-        for (; v != ancestor; v = _parentNode[v])
+        for (; v >= 0 && v != ancestor && !_parentEdge[v].IsNone; v = _parentNode[v])
         {
             yield return Graph.Describe(_parentEdge[v]);
         }

@@ -1,3 +1,5 @@
+using System.Runtime.CompilerServices;
+
 namespace FeederLocate.Core.Tests.Support;
 
 /// <summary>Finds files of the repository from the test's output folder.</summary>
@@ -11,14 +13,22 @@ public static class RepositoryFiles
 
     private static string FindRoot()
     {
-        for (var dir = new DirectoryInfo(AppContext.BaseDirectory); dir is not null; dir = dir.Parent)
+        // The output folder lies inside the repository unless the build is given an artifacts path
+        // elsewhere; then the folder this source file was compiled from still does.
+        foreach (var start in new[] { AppContext.BaseDirectory, SourceDirectory() })
         {
-            if (File.Exists(System.IO.Path.Combine(dir.FullName, "FeederLocate.sln")))
+            for (var dir = new DirectoryInfo(start); dir is not null; dir = dir.Parent)
             {
-                return dir.FullName;
+                if (File.Exists(System.IO.Path.Combine(dir.FullName, "FeederLocate.sln")))
+                {
+                    return dir.FullName;
+                }
             }
         }
 
-        throw new InvalidOperationException("FeederLocate.sln not found above " + AppContext.BaseDirectory);
+        throw new InvalidOperationException("FeederLocate.sln not found above " + AppContext.BaseDirectory + " or " + SourceDirectory());
     }
+
+    private static string SourceDirectory([CallerFilePath] string file = "") =>
+        System.IO.Path.GetDirectoryName(file) ?? string.Empty;
 }
