@@ -16,6 +16,9 @@ public sealed class FaultResponseModel
 {
     private readonly SubstationTerms[] _substations;
     private readonly MeasuringPoint[] _indicators;
+    private readonly Complex[] _segmentZ1Ohm;
+    private readonly Complex[] _segmentZ0Ohm;
+    private readonly bool[] _suppliedFromFrom;
 
     public FaultResponseModel(EnergisedNetwork network, double voltageFactor = SourceImpedance.VoltageFactorMaxMediumVoltage)
     {
@@ -32,6 +35,17 @@ public sealed class FaultResponseModel
             NeutralAdmittance.OfNeutral(s, network.TotalCapacitanceF(i), omega),
             s.Grounding.DampingPercent))];
         _indicators = [.. grid.Indicators.Select(Compile)];
+        _segmentZ1Ohm = new Complex[grid.Segments.Length];
+        _segmentZ0Ohm = new Complex[grid.Segments.Length];
+        _suppliedFromFrom = new bool[grid.Segments.Length];
+        for (var i = 0; i < grid.Segments.Length; i++)
+        {
+            var segment = grid.Segments[i];
+            var type = grid.LineTypeOf(segment);
+            _segmentZ1Ohm[i] = new Complex(type.R1OhmPerKm, type.X1OhmPerKm) * segment.LengthKm;
+            _segmentZ0Ohm[i] = new Complex(type.R0OhmPerKm, type.X0OhmPerKm) * segment.LengthKm;
+            _suppliedFromFrom[i] = grid.NodeIndex(segment.From) == network.SuppliedEndOf(i);
+        }
     }
 
     public EnergisedNetwork Network { get; }
@@ -49,19 +63,17 @@ public sealed class FaultResponseModel
         }
 
         var up = Network.SuppliedEndOf(segment);
-        var seg = Grid.Segments[segment];
         if (up < 0)
         {
-            throw new FaultCaseException($"segment {seg.Id} is not energised in this switching state; a fault there drives no current", seg.Id);
+            var dead = Grid.Segments[segment].Id;
+            throw new FaultCaseException($"segment {dead} is not energised in this switching state; a fault there drives no current", dead);
         }
 
         var sub = Network.SubstationIndexOf(up);
         var terms = _substations[sub];
-        var type1 = Grid.LineTypeOf(seg);
-        var fromSupply = Grid.NodeIndex(seg.From) == up ? position : 1 - position;
-        var lengthKm = fromSupply * seg.LengthKm;
-        var z1 = terms.SourceOhm + Network.PositiveSequencePathOhm(up) + (new Complex(type1.R1OhmPerKm, type1.X1OhmPerKm) * lengthKm);
-        var z0Path = Network.ZeroSequencePathOhm(up) + (new Complex(type1.R0OhmPerKm, type1.X0OhmPerKm) * lengthKm);
+        var fromSupply = _suppliedFromFrom[segment] ? position : 1 - position;
+        var z1 = terms.SourceOhm + Network.PositiveSequencePathOhm(up) + (_segmentZ1Ohm[segment] * fromSupply);
+        var z0Path = Network.ZeroSequencePathOhm(up) + (_segmentZ0Ohm[segment] * fromSupply);
         var currents = SequenceFault.Solve(type, terms.PhaseVoltageV, z1, z0Path, terms.ZeroSequenceBusS, faultResistanceOhm);
         return new FaultSolution(type, segment, up, sub, z1, z0Path, terms.PhaseVoltageV, currents,
             SequenceFault.FaultedPhaseCurrentA(type, currents));

@@ -75,7 +75,7 @@ public static class SequenceFault
     /// <summary>The largest faulted-phase current magnitude, A.</summary>
     public static double FaultedPhaseCurrentA(FaultType type, SequenceCurrents currents)
     {
-        var (a, b, c) = SymmetricalComponents.ToPhases(currents.ZeroA, currents.PositiveA, currents.NegativeA);
+        var (a, b, c) = SymmetricalComponents.ToPhasesScalar(currents.ZeroA, currents.PositiveA, currents.NegativeA);
         return type switch
         {
             FaultType.LG => a.Magnitude,

@@ -17,10 +17,16 @@ public static class SymmetricalComponents
         { Complex.One, A, A * A },
     });
 
-    /// <summary>Phase quantities (a, b, c) from sequence quantities (0, 1, 2).</summary>
+    private static readonly Complex ASquared = A * A;
+
+    /// <summary>Phase quantities (a, b, c) from sequence quantities (0, 1, 2), through the matrix <see cref="SequenceToPhase"/>.</summary>
     public static (Complex A, Complex B, Complex C) ToPhases(Complex zero, Complex positive, Complex negative)
     {
         var phases = SequenceToPhase * Vector<Complex>.Build.DenseOfArray([zero, positive, negative]);
         return (phases[0], phases[1], phases[2]);
     }
+
+    /// <summary>The same transform written out, without allocating: for the inner loops of the ranking.</summary>
+    public static (Complex A, Complex B, Complex C) ToPhasesScalar(Complex zero, Complex positive, Complex negative) =>
+        (zero + positive + negative, zero + (ASquared * positive) + (A * negative), zero + (A * positive) + (ASquared * negative));
 }

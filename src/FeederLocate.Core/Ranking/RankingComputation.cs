@@ -26,6 +26,9 @@ internal sealed class RankingComputation
     private readonly ImmutableArray<FaultTypePlan>[] _plans;
     private readonly bool[] _beyond;
     private readonly bool[] _measuredBeyond;
+    private readonly IndicationSums _sums;
+    private readonly RecordSums _records;
+    private readonly List<int> _recordsBeyond = [];
 
     public RankingComputation(NetworkGraph graph, Incident incident, RankingOptions options, RankingPriors priors)
     {
@@ -47,6 +50,8 @@ internal sealed class RankingComputation
         _plans = [.. _grid.Substations.Select(s => HypothesisPlan.For(s.Grounding.Scheme, incident, options))];
         _beyond = new bool[_observed.Count];
         _measuredBeyond = new bool[_measured.Count];
+        _sums = new IndicationSums(_model, _observed);
+        _records = new RecordSums(this, _measured, _model);
     }
 
     public EnergisedNetwork Network { get; }
@@ -102,6 +107,37 @@ internal sealed class RankingComputation
         return states;
     }
 
+    /// <summary>Σ log P(record | expected) over the observed indications, indicator by indicator (the slow, plain sum).</summary>
+    public double IndicationLogLikelihoodDirect(int segment, in FaultSolution fault)
+    {
+        var expected = ExpectedStates(segment, fault);
+        return _observed.Select((o, i) => o.LogProbability(expected[i])).Sum();
+    }
+
+    /// <summary>Σ log-likelihood of the substation records, record by record (the slow, plain sum).</summary>
+    public double RecordLogLikelihoodDirect(int segment, in FaultSolution fault)
+    {
+        var total = 0.0;
+        foreach (var record in _measured)
+        {
+            total += RecordLogLikelihood(record.Measurement, Predicted(record, segment, fault));
+        }
+
+        return total;
+    }
+
+    /// <summary>The same sum through the tabulated shortcut the ranking uses.</summary>
+    public double RecordLogLikelihoodFast(int segment, in FaultSolution fault)
+    {
+        var sub = fault.Substation;
+        var beyond = Enumerable.Range(0, _measured.Count)
+            .Where(m => _measured[m].Point.Substation == sub && _model.IsFaultBeyond(_measured[m].Point, segment)).ToList();
+        return _records.LogLikelihood(fault, beyond);
+    }
+
+    /// <summary>The same sum through the sorted-threshold shortcut the ranking uses.</summary>
+    public double IndicationLogLikelihood(int segment, in FaultSolution fault) => _sums.LogLikelihood(segment, fault);
+
     /// <summary>The value a record's device would have measured for a solved fault.</summary>
     public (double PhaseA, double ResidualA, double NeutralV) Predicted(MeasuredRecord record, int segment, in FaultSolution fault)
     {
@@ -125,11 +161,15 @@ internal sealed class RankingComputation
     private SegmentScore Score(int segment)
     {
         var sub = Network.SubstationIndexOf(Network.SuppliedEndOf(segment));
-        FillBeyond(segment);
+        _recordsBeyond.Clear();
         for (var m = 0; m < _measured.Count; m++)
         {
             var point = _measured[m].Point;
             _measuredBeyond[m] = point.Substation == sub && _model.IsFaultBeyond(point, segment);
+            if (_measuredBeyond[m])
+            {
+                _recordsBeyond.Add(m);
+            }
         }
 
         var tripLog = TripLogFactor(segment);
@@ -143,13 +183,9 @@ internal sealed class RankingComputation
             foreach (var rf in plan.ResistancesOhm)
             {
                 var mid = _model.Solve(segment, 0.5, plan.Type, rf);
-                var indications = 0.0;
-                for (var i = 0; i < _observed.Count; i++)
-                {
-                    indications += _observed[i].LogProbability(Expected(i, mid));
-                }
+                var indications = _sums.LogLikelihood(segment, mid);
 
-                var (records, position) = RecordsLikelihood(segment, sub, plan.Type, rf);
+                var (records, position) = RecordsLikelihood(segment, plan.Type, rf, mid);
                 var likelihood = indications + records;
                 typeMarginal = LogMath.Add(typeMarginal, logWeight + likelihood);
                 if (likelihood + tripLog > best.LogLikelihood)
@@ -167,7 +203,7 @@ internal sealed class RankingComputation
     }
 
     /// <summary>The substation records' likelihood averaged over positions, and the best-fitting position.</summary>
-    private (double LogLikelihood, double BestPosition) RecordsLikelihood(int segment, int substation, FaultType type, double rf)
+    private (double LogLikelihood, double BestPosition) RecordsLikelihood(int segment, FaultType type, double rf, in FaultSolution mid)
     {
         if (_measured.Count == 0)
         {
@@ -178,16 +214,8 @@ internal sealed class RankingComputation
         var best = (Log: double.NegativeInfinity, Position: 0.5);
         foreach (var position in _options.Positions)
         {
-            var fault = _model.Solve(segment, position, type, rf);
-            var log = 0.0;
-            for (var m = 0; m < _measured.Count; m++)
-            {
-                var record = _measured[m];
-                var same = record.Point.Substation == substation;
-                var predicted = Predicted(record.Point, same, _measuredBeyond[m], fault);
-                log += RecordLogLikelihood(record.Measurement, predicted);
-            }
-
+            var fault = position == 0.5 ? mid : _model.Solve(segment, position, type, rf);
+            var log = _records.LogLikelihood(fault, _recordsBeyond);
             total = LogMath.Add(total, log);
             if (log > best.Log)
             {

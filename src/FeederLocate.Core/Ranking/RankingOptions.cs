@@ -57,7 +57,7 @@ public sealed record RankingOptions
     public ImmutableArray<double> ShortCircuitOhms { get; init; } = [0, 0.5, 1.5, 3];
 
     /// <summary>Positions along a segment (fraction from its from node) at which the substation records are compared.</summary>
-    public ImmutableArray<double> Positions { get; init; } = [0.1, 0.3, 0.5, 0.7, 0.9];
+    public ImmutableArray<double> Positions { get; init; } = [1.0 / 6, 0.5, 5.0 / 6];
 
     /// <summary>Likelihood factor of a fault where the tripped device would not have seen it (maloperation, wrong switch state).</summary>
     public double OutsideTrippedZoneFactor { get; init; } = 1e-3;

@@ -1,0 +1,81 @@
+using FeederLocate.Core.Electrical;
+
+namespace FeederLocate.Core.Ranking;
+
+/// <summary>
+/// The substation records' log-likelihood for a fault, in O(k): a record whose device does not have
+/// the fault beyond it predicts no phase current, a residual of |U0|·3|Y0B| and the bus |U0|, so all
+/// of them together are one smooth function of |U0| per substation, tabulated once and interpolated.
+/// Only the k records with the fault beyond their device are evaluated one by one.
+/// </summary>
+internal sealed class RecordSums
+{
+    private const int TableSteps = 1024;
+    private readonly RankingComputation _computation;
+    private readonly IReadOnlyList<MeasuredRecord> _records;
+    private readonly double[] _otherNetworks;
+    private readonly double[][] _table;
+    private readonly double[] _stepV;
+
+    public RecordSums(RankingComputation computation, IReadOnlyList<MeasuredRecord> records, FaultResponseModel model)
+    {
+        _computation = computation;
+        _records = records;
+        var substations = model.Grid.Substations;
+        _otherNetworks = new double[substations.Length];
+        _table = new double[substations.Length][];
+        _stepV = new double[substations.Length];
+        for (var sub = 0; sub < substations.Length; sub++)
+        {
+            foreach (var r in records.Where(r => r.Point.Substation != sub))
+            {
+                _otherNetworks[sub] += computation.RecordLogLikelihood(r.Measurement, (0, 0, 0));
+            }
+
+            // |U0| of an earth fault stays below about 1.5·E even near resonance; above, values are computed directly.
+            var maximumV = 1.5 * model.VoltageFactor * substations[sub].NominalVoltageKv * 1000 / Math.Sqrt(3);
+            _stepV[sub] = maximumV / TableSteps;
+            var same = records.Where(r => r.Point.Substation == sub).ToList();
+            _table[sub] = new double[TableSteps + 1];
+            for (var k = 0; k <= TableSteps; k++)
+            {
+                _table[sub][k] = NotBeyond(same, k * _stepV[sub]);
+            }
+        }
+    }
+
+    /// <summary>Σ log-likelihood of every record for the fault; <paramref name="beyond"/> lists the records whose device has it beyond.</summary>
+    public double LogLikelihood(in FaultSolution fault, IReadOnlyList<int> beyond)
+    {
+        var sub = fault.Substation;
+        var u0 = fault.NeutralVoltageMagnitudeV;
+        var sum = _otherNetworks[sub] + Interpolate(sub, u0);
+        foreach (var m in beyond)
+        {
+            var record = _records[m];
+            var p = record.Point;
+            var asNotBeyond = _computation.RecordLogLikelihood(record.Measurement, (0, u0 * p.NotBeyondGainS, u0));
+            var actual = _computation.RecordLogLikelihood(record.Measurement, (fault.FaultedPhaseCurrentA, u0 * p.BeyondGainS, u0));
+            sum += actual - asNotBeyond;
+        }
+
+        return sum;
+    }
+
+    private double Interpolate(int sub, double u0)
+    {
+        var x = u0 / _stepV[sub];
+        var k = (int)x;
+        if (k >= TableSteps)
+        {
+            var same = _records.Where(r => r.Point.Substation == sub).ToList();
+            return NotBeyond(same, u0);
+        }
+
+        var t = x - k;
+        return (_table[sub][k] * (1 - t)) + (_table[sub][k + 1] * t);
+    }
+
+    private double NotBeyond(List<MeasuredRecord> same, double u0) =>
+        same.Sum(r => _computation.RecordLogLikelihood(r.Measurement, (0, u0 * r.Point.NotBeyondGainS, u0)));
+}
