@@ -35,6 +35,7 @@ internal static class CrossCountryRanking
         var logs = scores.Select(s => logSingleShare + s.LogPrior - Math.Log(priorSum) + s.LogMarginal).ToList();
 
         var pairs = new List<(int A, int B, double Log, IndicatorState[] Expected, (double, double)[] Predicted, bool InsideTrip)>();
+        var beyond = candidates.Select(c => Beyond(computation, c.Segment)).ToList();
         for (var i = 0; i < candidates.Count; i++)
         {
             for (var j = i + 1; j < candidates.Count; j++)
@@ -51,7 +52,7 @@ internal static class CrossCountryRanking
                 foreach (var rf in LoopResistancesOhm)
                 {
                     var current = LoopCurrentA(model, a, b, rf);
-                    var (log, expected, predicted, inside) = Likelihood(computation, a, b, current, options);
+                    var (log, expected, predicted, inside) = Likelihood(computation, a, b, beyond[i], beyond[j], current, options);
                     marginal = LogMath.Add(marginal, log - Math.Log(LoopResistancesOhm.Length));
                     if (log > best.Log)
                     {
@@ -98,7 +99,8 @@ internal static class CrossCountryRanking
             .Select(o => computation.Model.Grid.SegmentIndex(o.Indicator.Segment))
             .Where(bySegment.ContainsKey)
             .Select(s => bySegment[s]);
-        return [.. scores.OrderByDescending(s => s.LogPosterior).Take(options.CrossCountryCandidates).Concat(picked).Distinct()];
+        return [.. scores.OrderByDescending(s => s.LogPosterior).Take(options.CrossCountryCandidates)
+            .Concat(picked.OrderByDescending(s => s.LogPosterior).Take(options.CrossCountryCandidates)).Distinct()];
     }
 
     /// <summary>√3·E over the loop: both phases from the source to where the paths part, then each phase and earth to its fault point.</summary>
@@ -136,8 +138,14 @@ internal static class CrossCountryRanking
         return Math.Sqrt(3) * e / loop.Magnitude;
     }
 
+    /// <summary>Which observed indicators and which records have a fault on the segment beyond them.</summary>
+    private static (bool[] Indicators, bool[] Records) Beyond(RankingComputation computation, int segment) =>
+        ([.. computation.Observed.Select(o => computation.Model.IsFaultBeyond(o.Point, segment))],
+         [.. computation.Measured.Select(r => computation.Model.IsFaultBeyond(r.Point, segment))]);
+
     private static (double Log, IndicatorState[] Expected, (double, double)[] Predicted, bool InsideTrip) Likelihood(
-        RankingComputation computation, int a, int b, double currentA, RankingOptions options)
+        RankingComputation computation, int a, int b, (bool[] Indicators, bool[] Records) beyondOfA, (bool[] Indicators, bool[] Records) beyondOfB,
+        double currentA, RankingOptions options)
     {
         var model = computation.Model;
         var substation = model.Network.SubstationIndexOf(model.Network.SuppliedEndOf(a));
@@ -146,7 +154,7 @@ internal static class CrossCountryRanking
         for (var i = 0; i < expected.Length; i++)
         {
             var o = computation.Observed[i];
-            var (beyondA, beyondB) = (model.IsFaultBeyond(o.Point, a), model.IsFaultBeyond(o.Point, b));
+            var (beyondA, beyondB) = (beyondOfA.Indicators[i], beyondOfB.Indicators[i]);
             var same = o.Point.Substation == substation;
             var onPath = same && (o.Point.OnPath(beyondA) || o.Point.OnPath(beyondB));
             var phase = onPath ? currentA : 0;
@@ -162,7 +170,7 @@ internal static class CrossCountryRanking
         for (var m = 0; m < predicted.Length; m++)
         {
             var record = computation.Measured[m];
-            var (beyondA, beyondB) = (model.IsFaultBeyond(record.Point, a), model.IsFaultBeyond(record.Point, b));
+            var (beyondA, beyondB) = (beyondOfA.Records[m], beyondOfB.Records[m]);
             predicted[m] = (beyondA || beyondB ? currentA : 0, beyondA != beyondB ? currentA : 0);
 
             // The neutral voltage of a cross-country fault is not modelled: that record carries no evidence here.

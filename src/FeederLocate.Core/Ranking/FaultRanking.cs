@@ -54,11 +54,17 @@ public static class FaultRanking
         var options = computation.Options;
         var distances = new DistanceCalculator(computation.Network);
 
-        // Consistency is judged on the single hypothesis that explains the evidence best.
+        // Consistency is judged on the single hypothesis that explains the evidence best; where the coarse
+        // grid finds none, the few best segments are refined on a finer grid before the verdict.
         var best = scores.MaxBy(s => s.Best.LogLikelihood)!;
-        var bestChecks = SuspectExplainer.Checks(computation, best.Segment, best.Best);
-        var bestExplanation = SuspectExplainer.Explain(computation, best, 0, distances);
-        var consistent = ConsistencyCheck.Explains(bestChecks, bestExplanation.Measurements, computation.TripLogFactor(best.Segment) == 0, options);
+        var (bestChecks, consistent) = Judge(computation, best, distances, refined: false);
+        if (!consistent)
+        {
+            best = scores.OrderByDescending(s => s.Best.LogLikelihood).Take(3)
+                .Select(s => s with { Best = computation.Refine(s.Segment) })
+                .MaxBy(s => s.Best.LogLikelihood)!;
+            (bestChecks, consistent) = Judge(computation, best, distances, refined: true);
+        }
 
         var singleLogs = scores.Select(s => s.LogPosterior).ToList();
         var crossCountry = ImmutableArray<CrossCountrySuspect>.Empty;
@@ -111,6 +117,14 @@ public static class FaultRanking
             [.. computation.LeftOut],
             FaultTypeProbabilities(scores),
             Assumptions(computation));
+    }
+
+    private static (ImmutableArray<IndicationCheck> Checks, bool Consistent) Judge(RankingComputation computation, SegmentScore best, DistanceCalculator distances, bool refined)
+    {
+        var checks = SuspectExplainer.Checks(computation, best.Segment, best.Best, refined ? best.Best.Position : 0.5);
+        var explanation = SuspectExplainer.Explain(computation, best, 0, distances, refined);
+        var consistent = ConsistencyCheck.Explains(checks, explanation.Measurements, computation.TripLogFactor(best.Segment) == 0, computation.Options);
+        return (checks, consistent);
     }
 
     private static ImmutableDictionary<FaultType, double> FaultTypeProbabilities(List<SegmentScore> scores)

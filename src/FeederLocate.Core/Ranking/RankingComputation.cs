@@ -13,6 +13,7 @@ namespace FeederLocate.Core.Ranking;
 /// </summary>
 internal sealed class RankingComputation
 {
+    private static readonly double[] RefinedPositions = [0.05, 0.25, 0.5, 0.75, 0.95];
     private readonly Grid _grid;
     private readonly Incident _incident;
     private readonly RankingOptions _options;
@@ -88,6 +89,52 @@ internal sealed class RankingComputation
         }
 
         return scores;
+    }
+
+    /// <summary>
+    /// The best hypothesis on a segment over a finer grid of fault resistance and position, with every
+    /// indication and record evaluated at the same point: what the consistency judgement rests on, so
+    /// the coarse grid of the ranking does not make a true explanation look wrong.
+    /// </summary>
+    public BestHypothesis Refine(int segment)
+    {
+        var sub = Network.SubstationIndexOf(Network.SuppliedEndOf(segment));
+        var trip = TripLogFactor(segment);
+        var best = new BestHypothesis(FaultType.LG, 0, 0.5, double.NegativeInfinity);
+        foreach (var plan in _plans[sub])
+        {
+            foreach (var rf in FineResistances(plan.ResistancesOhm))
+            {
+                foreach (var position in RefinedPositions)
+                {
+                    var fault = _model.Solve(segment, position, plan.Type, rf);
+                    var log = IndicationLogLikelihoodDirect(segment, fault) + RecordLogLikelihoodDirect(segment, fault) + trip;
+                    if (log > best.LogLikelihood)
+                    {
+                        best = new BestHypothesis(plan.Type, rf, position, log);
+                    }
+                }
+            }
+        }
+
+        return best;
+    }
+
+    /// <summary>The coarse grid with 3 log-spaced values between each pair of its points.</summary>
+    private static IEnumerable<double> FineResistances(ImmutableArray<double> coarse)
+    {
+        for (var k = 0; k < coarse.Length; k++)
+        {
+            yield return coarse[k];
+            if (k + 1 < coarse.Length)
+            {
+                var (a, b) = (Math.Max(coarse[k], 0.2), coarse[k + 1]);
+                for (var j = 1; j <= 3; j++)
+                {
+                    yield return a * Math.Pow(b / a, j / 4.0);
+                }
+            }
+        }
     }
 
     /// <summary>Log-factor of the tripped device: 0 where it would have seen the fault, log(ε) elsewhere.</summary>

@@ -8,9 +8,9 @@ namespace FeederLocate.Core.Ranking;
 /// <summary>Explains a suspect: each indication against its best-fitting fault, the records, and a distance window.</summary>
 internal static class SuspectExplainer
 {
-    public static ImmutableArray<IndicationCheck> Checks(RankingComputation computation, int segment, BestHypothesis best)
+    public static ImmutableArray<IndicationCheck> Checks(RankingComputation computation, int segment, BestHypothesis best, double position = 0.5)
     {
-        var fault = computation.Model.Solve(segment, 0.5, best.Type, best.FaultResistanceOhm);
+        var fault = computation.Model.Solve(segment, position, best.Type, best.FaultResistanceOhm);
         var expected = computation.ExpectedStates(segment, fault);
         return [.. computation.Observed.Select((o, i) =>
         {
@@ -22,9 +22,9 @@ internal static class SuspectExplainer
         })];
     }
 
-    public static SuspectExplanation Explain(RankingComputation computation, SegmentScore score, double probability, DistanceCalculator distances)
+    public static SuspectExplanation Explain(RankingComputation computation, SegmentScore score, double probability, DistanceCalculator distances, bool refined = false)
     {
-        var checks = Checks(computation, score.Segment, score.Best);
+        var checks = Checks(computation, score.Segment, score.Best, refined ? score.Best.Position : 0.5);
         var fault = computation.Model.Solve(score.Segment, score.Best.Position, score.Best.Type, score.Best.FaultResistanceOhm);
         var options = computation.Options;
         var measurements = ImmutableArray.CreateBuilder<MeasurementCheck>();
