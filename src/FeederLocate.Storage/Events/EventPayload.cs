@@ -22,6 +22,8 @@ internal static class EventPayload
     public const string OutcomeLoggedKind = "outcomeLogged";
     public const string IncidentClosedKind = "incidentClosed";
 
+    // Required constructor parameters and nullable annotations are enforced, so a payload missing a
+    // non-optional field fails to read instead of yielding nulls; optional fields have defaults.
     private static readonly JsonSerializerOptions Options = new()
     {
         PropertyNamingPolicy = JsonNamingPolicy.CamelCase,
@@ -124,9 +126,9 @@ internal static class EventPayload
 
     private sealed record OpenedPayload(string GridName, string Incident, string ReportedAt);
 
-    private sealed record IndicationPayload(string Indicator, string State, string Source, string? ReadAt, bool Suspect);
+    private sealed record IndicationPayload(string Indicator, string State, string Source, string? ReadAt = null, bool Suspect = false);
 
-    private sealed record MeasurementPayload(string Device, double? PhaseCurrentA, double? ResidualCurrentA, double? NeutralVoltageV)
+    private sealed record MeasurementPayload(string Device, double? PhaseCurrentA = null, double? ResidualCurrentA = null, double? NeutralVoltageV = null)
     {
         public MeasurementRecorded ToEvent() =>
             new(new SubstationMeasurement(new SwitchId(Device), PhaseCurrentA, ResidualCurrentA, NeutralVoltageV));
@@ -138,16 +140,16 @@ internal static class EventPayload
             new(new SwitchId(Switch), Choice(id, "position", Position, IncidentFormat.Positions));
     }
 
-    private sealed record PlanStepPayload(int Order, string Action, string? Device, string? Note)
+    private sealed record PlanStepPayload(int Order, string Action, string? Device = null, string? Note = null)
     {
         public PlanStepCompleted ToEvent() => new(Order, Action, Device, Note);
     }
 
-    private sealed record OutcomePayload(string ConfirmedSegment, string FaultType, string? Cause, string? Notes)
+    private sealed record OutcomePayload(string ConfirmedSegment, string FaultType, string? Cause = null, string? Notes = null)
     {
         public OutcomeLogged ToEvent(EventId id) =>
             new(new SegmentId(ConfirmedSegment), Choice(id, "faultType", FaultType, IncidentFormat.FaultTypes), Cause, Notes);
     }
 
-    private sealed record ClosedPayload(string? Note);
+    private sealed record ClosedPayload(string? Note = null);
 }

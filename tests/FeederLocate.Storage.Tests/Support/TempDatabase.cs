@@ -1,0 +1,21 @@
+namespace FeederLocate.Storage.Tests.Support;
+
+/// <summary>A fresh folder under the system temp folder holding one database path; deleted on dispose.</summary>
+public sealed class TempDatabase : IDisposable
+{
+    public TempDatabase()
+    {
+        Folder = Directory.CreateTempSubdirectory("feederlocate-storage-tests-").FullName;
+        Path = System.IO.Path.Combine(Folder, "history.db");
+    }
+
+    public string Folder { get; }
+
+    /// <summary>The database file; not created yet.</summary>
+    public string Path { get; }
+
+    /// <summary>Another path in the same folder, for backups.</summary>
+    public string Sibling(string name) => System.IO.Path.Combine(Folder, name);
+
+    public void Dispose() => Directory.Delete(Folder, recursive: true);
+}
