@@ -1,0 +1,32 @@
+using FeederLocate.Web;
+using FeederLocate.Web.Components;
+using FeederLocate.Web.Services;
+
+var builder = WebApplication.CreateBuilder(new WebApplicationOptions
+{
+    Args = args,
+    WebRootPath = WebRoot.Find(AppContext.BaseDirectory, Directory.GetCurrentDirectory()),
+});
+
+// Blazor's own script comes from the framework's static web assets, in every environment.
+builder.WebHost.UseStaticWebAssets();
+builder.Services.AddRazorComponents().AddInteractiveServerComponents();
+builder.Services.AddFeederLocate(builder.Configuration, builder.Environment.ContentRootPath);
+
+var app = builder.Build();
+if (!app.Environment.IsDevelopment())
+{
+    app.UseExceptionHandler("/Error", createScopeForErrors: true);
+}
+
+app.UseStatusCodePagesWithReExecute("/not-found", createScopeForStatusCodePages: true);
+app.UseAntiforgery();
+app.UseStaticFiles();
+app.MapStaticAssets();
+app.MapRazorComponents<App>().AddInteractiveServerRenderMode();
+app.Lifetime.ApplicationStarted.Register(() =>
+    Console.WriteLine($"FeederLocate is running at {string.Join(", ", app.Urls)} (advice only: verify on site; local switching rules govern)"));
+app.Run();
+
+/// <summary>The entry point, visible to the tests' web application factory.</summary>
+public partial class Program;

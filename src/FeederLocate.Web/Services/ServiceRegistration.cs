@@ -1,0 +1,19 @@
+using FeederLocate.Storage;
+
+namespace FeederLocate.Web.Services;
+
+/// <summary>Every service of the web app, registered in one place.</summary>
+public static class ServiceRegistration
+{
+    public static IServiceCollection AddFeederLocate(this IServiceCollection services, IConfiguration configuration, string contentRoot)
+    {
+        var options = configuration.GetSection("FeederLocate").Get<FeederLocateOptions>() ?? new FeederLocateOptions();
+        var root = RepositoryPaths.Root(contentRoot);
+        services.AddSingleton(options);
+        services.AddSingleton(_ => new GridCatalog(RepositoryPaths.Resolve(root, options.GridFolder), options.DefaultGrid));
+        services.AddSingleton(_ => new IncidentBoard(IncidentStore.Open(RepositoryPaths.Resolve(root, options.DatabasePath))));
+        services.AddSingleton<IncidentAnalysis>();
+        services.AddSingleton(TimeProvider.System);
+        return services;
+    }
+}
