@@ -25,9 +25,15 @@ public static class CliApp
             FaultCommand.Create(console),
             RankCommand.Create(console),
             EvaluateCommand.Create(console),
+            RecordCommand.Create(console),
             GenerateCommand.Create(console),
             BenchCommand.Create(console),
         };
+
+        foreach (var command in HistoryCommands.Create(console))
+        {
+            root.Subcommands.Add(command);
+        }
 
         var parsed = root.Parse(args);
         if (parsed.Errors.Count > 0)

@@ -12,18 +12,24 @@ internal static class RankCommand
     public static Command Create(CliConsole console)
     {
         var grid = CliOptions.Grid();
-        var incident = new Argument<string>("INCIDENT") { Description = "Incident file (feederlocate-incident/1)" };
+        var incident = CliOptions.Incident();
+        var db = CliOptions.Database(required: false);
         var json = CliOptions.Json();
-        var command = new Command("rank", "Rank the suspect segments and sections of an incident") { grid, incident, json };
-        command.SetAction(parse => Run(console, parse.GetValue(grid)!, parse.GetValue(incident)!, parse.GetValue(json)));
+        var command = new Command("rank", "Rank the suspect segments and sections of an incident; with --db, using what the recorded outcomes taught")
+        {
+            grid, incident, db, json,
+        };
+        command.SetAction(parse => Run(console, parse.GetValue(grid)!, parse.GetValue(incident)!, parse.GetValue(db), parse.GetValue(json)));
         return command;
     }
 
-    private static int Run(CliConsole console, string gridPath, string incidentPath, bool json)
+    private static int Run(CliConsole console, string gridPath, string incidentPath, string? dbPath, bool json)
     {
         var grid = InputFiles.LoadGrid(gridPath, console.Error);
         var incident = InputFiles.LoadIncident(incidentPath, grid, console.Error);
-        if (!FaultRanking.TryRank(grid, incident, out var result, out var problem))
+        var graph = new Core.Topology.NetworkGraph(grid);
+        var priors = HistoryDatabase.PriorsFor(dbPath, graph);
+        if (!FaultRanking.TryRank(grid, incident, out var result, out var problem, priors: priors))
         {
             throw new BadInputException($"error: {problem}");
         }

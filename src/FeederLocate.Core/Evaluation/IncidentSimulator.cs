@@ -43,6 +43,9 @@ public sealed class IncidentSimulator
         }
     }
 
+    /// <summary>1 / (the grid's expected faults per year): incident n is reported n such intervals after the start.</summary>
+    public TimeSpan MeanIntervalBetweenFaults => TimeSpan.FromDays(365.25 / Math.Max(1e-6, _cumulativeWeight[^1]));
+
     public SimulatedIncident Next(Random random, int number)
     {
         ArgumentNullException.ThrowIfNull(random);
@@ -53,7 +56,7 @@ public sealed class IncidentSimulator
         var (type, rf) = DrawFault(random, lowCurrent);
         var fault = _model.Solve(segment, position, type, rf);
         var trips = !(lowCurrent && type == FaultType.LG);
-        var reportedAt = Start.AddHours(number);
+        var reportedAt = Start + (MeanIntervalBetweenFaults * number);
 
         var indications = ImmutableArray.CreateBuilder<Indication>();
         for (var i = 0; i < _grid.Indicators.Length; i++)
@@ -107,7 +110,7 @@ public sealed class IncidentSimulator
             return random.NextDouble() < _settings.MissProbability ? IndicatorState.None : expected;
         }
 
-        if (random.NextDouble() >= _settings.FalseProbability)
+        if (random.NextDouble() >= _settings.FalseProbabilityOf(indicator.Id))
         {
             return IndicatorState.None;
         }

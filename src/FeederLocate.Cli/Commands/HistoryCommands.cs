@@ -1,0 +1,187 @@
+using System.CommandLine;
+using System.Globalization;
+using FeederLocate.Cli.Input;
+using FeederLocate.Cli.Output;
+using FeederLocate.Core.Ranking;
+using FeederLocate.Core.Topology;
+using FeederLocate.Storage.Export;
+
+namespace FeederLocate.Cli.Commands;
+
+/// <summary>
+/// The history database's commands: <c>history</c> (logged incidents), <c>stats</c> (what has been
+/// learned for a grid), <c>export</c> (CSV), <c>backup</c> (online copy) and <c>integrity</c>.
+/// </summary>
+internal static class HistoryCommands
+{
+    public static IEnumerable<Command> Create(CliConsole console)
+    {
+        yield return History(console);
+        yield return Stats(console);
+        yield return Export(console);
+        yield return Backup(console);
+        yield return Integrity(console);
+    }
+
+    private static Command History(CliConsole console)
+    {
+        var db = CliOptions.Database(required: true);
+        var json = CliOptions.Json();
+        var command = new Command("history", "List the incidents in the history database") { db, json };
+        command.SetAction(parse =>
+        {
+            using var store = HistoryDatabase.Open(parse.GetValue(db)!);
+            var incidents = store.Incidents();
+            if (parse.GetValue(json))
+            {
+                JsonOutput.Write(console.Out, incidents.Select(i => new
+                {
+                    id = i.Id.Value, grid = i.GridName, reportedAt = i.ReportedAt, status = i.Status.ToString(),
+                    faultType = i.FaultType?.ToString(), confirmedSegment = i.ConfirmedSegment?.Value, cause = i.Cause, events = i.EventCount,
+                }));
+                return CliApp.Success;
+            }
+
+            var table = TableOutput.Table("id", "grid", "reported", "status", "type", "confirmed segment", "cause", "events");
+            foreach (var i in incidents)
+            {
+                table.AddRow(i.Id.ToString(), i.GridName, i.ReportedAt.ToString("yyyy-MM-dd HH:mm", CultureInfo.InvariantCulture), i.Status.ToString(),
+                    i.FaultType?.ToString() ?? "unknown", i.ConfirmedSegment?.Value ?? "–", i.Cause ?? string.Empty, i.EventCount.ToString(CultureInfo.InvariantCulture));
+            }
+
+            TableOutput.Write(console.Out, table);
+            return CliApp.Success;
+        });
+        return command;
+    }
+
+    private static Command Stats(CliConsole console)
+    {
+        var grid = CliOptions.Grid();
+        var db = CliOptions.Database(required: true);
+        var json = CliOptions.Json();
+        var command = new Command("stats", "Learned fault rates and indicator reliabilities for a grid, from the recorded outcomes") { grid, db, json };
+        command.SetAction(parse =>
+        {
+            var model = InputFiles.LoadGrid(parse.GetValue(grid)!, console.Error);
+            using var store = HistoryDatabase.Open(parse.GetValue(db)!);
+            var graph = new NetworkGraph(model);
+            var outcomes = HistoryDatabase.OutcomesFor(store, model);
+            var learned = LearnedRankingPriors.Learn(graph, outcomes);
+            var segments = learned.FaultRates.Segments.OrderByDescending(s => s.Faults).ThenByDescending(s => s.FaultsPerKmYear).ToList();
+            var indicators = learned.Indicators.Indicators.OrderByDescending(i => i.FalseReportProbability + i.MissProbability).ToList();
+            if (parse.GetValue(json))
+            {
+                JsonOutput.Write(console.Out, new
+                {
+                    grid = model.Name,
+                    outcomes = outcomes.Count,
+                    observationYears = learned.FaultRates.ObservationYears,
+                    segments = segments.Select(s => new { id = s.Segment.Value, faults = s.Faults, faultsPer100KmYear = s.FaultsPer100KmYear, expectedFaultsPerYear = s.ExpectedFaultsPerYear }),
+                    indicators = indicators.Select(i => new
+                    {
+                        id = i.Indicator.Value, missProbability = i.MissProbability, falseReportProbability = i.FalseReportProbability,
+                        counts = i.Counts,
+                    }),
+                });
+                return CliApp.Success;
+            }
+
+            console.Out.WriteLine($"{model.Name}: {outcomes.Count} recorded outcomes over {learned.FaultRates.ObservationYears.ToString("F2", CultureInfo.InvariantCulture)} years");
+            var seg = TableOutput.Table("segment", "faults", "learned faults/100 km·year", "expected faults/year");
+            foreach (var s in segments.Take(15))
+            {
+                seg.AddRow(s.Segment.Value, s.Faults.ToString(CultureInfo.InvariantCulture), s.FaultsPer100KmYear.ToString("F2", CultureInfo.InvariantCulture), s.ExpectedFaultsPerYear.ToString("F4", CultureInfo.InvariantCulture));
+            }
+
+            TableOutput.Write(console.Out, seg);
+            var ind = TableOutput.Table("indicator", "P(miss)", "P(false report)");
+            foreach (var i in indicators)
+            {
+                ind.AddRow(i.Indicator.Value, i.MissProbability.ToString("P1", CultureInfo.InvariantCulture), i.FalseReportProbability.ToString("P1", CultureInfo.InvariantCulture));
+            }
+
+            TableOutput.Write(console.Out, ind);
+            return CliApp.Success;
+        });
+        return command;
+    }
+
+    private static Command Export(CliConsole console)
+    {
+        var db = CliOptions.Database(required: true);
+        var what = new Option<string>("--what") { Description = "incidents, or indicators (needs --grid)", DefaultValueFactory = _ => "incidents" };
+        var grid = new Option<string?>("--grid") { Description = "Grid file, for indicator statistics" };
+        var output = new Option<string?>("--output", "-o") { Description = "CSV file to write (default: stdout)" };
+        var command = new Command("export", "Export incidents or indicator statistics as CSV") { db, what, grid, output };
+        command.SetAction(parse =>
+        {
+            using var store = HistoryDatabase.Open(parse.GetValue(db)!);
+            var text = new StringWriter(CultureInfo.InvariantCulture);
+            switch (parse.GetValue(what))
+            {
+                case "incidents":
+                    CsvExport.WriteIncidents(store.Incidents(), text);
+                    break;
+                case "indicators":
+                    var gridPath = parse.GetValue(grid) ?? throw new BadInputException("error: --what indicators needs --grid GRID");
+                    var model = InputFiles.LoadGrid(gridPath, console.Error);
+                    var learned = LearnedRankingPriors.Learn(new NetworkGraph(model), HistoryDatabase.OutcomesFor(store, model));
+                    CsvExport.WriteIndicatorStatistics(learned.Indicators, text);
+                    break;
+                default:
+                    throw new BadInputException($"error: --what must be incidents or indicators, got \"{parse.GetValue(what)}\"");
+            }
+
+            if (parse.GetValue(output) is { } path)
+            {
+                OutputFiles.WriteWhole(path, text.ToString());
+            }
+            else
+            {
+                console.Out.Write(text.ToString());
+            }
+
+            return CliApp.Success;
+        });
+        return command;
+    }
+
+    private static Command Backup(CliConsole console)
+    {
+        var db = CliOptions.Database(required: true);
+        var output = new Option<string>("--output", "-o") { Description = "The backup file to write", Required = true };
+        var command = new Command("backup", "Copy the history database online to a file (SQLite online backup)") { db, output };
+        command.SetAction(parse =>
+        {
+            using var store = HistoryDatabase.Open(parse.GetValue(db)!);
+            store.BackupTo(parse.GetValue(output)!);
+            console.Out.WriteLine($"backed up {parse.GetValue(db)} to {parse.GetValue(output)}");
+            return CliApp.Success;
+        });
+        return command;
+    }
+
+    private static Command Integrity(CliConsole console)
+    {
+        var db = CliOptions.Database(required: true);
+        var json = CliOptions.Json();
+        var command = new Command("integrity", "Check the history database's integrity (exit 1 when it fails)") { db, json };
+        command.SetAction(parse =>
+        {
+            using var store = HistoryDatabase.Open(parse.GetValue(db)!);
+            var report = store.CheckIntegrity();
+            if (parse.GetValue(json))
+            {
+                JsonOutput.Write(console.Out, report);
+            }
+            else
+            {
+                console.Out.WriteLine(report.ToString());
+            }
+
+            return report.IsOk ? CliApp.Success : CliApp.InternalFailure;
+        });
+        return command;
+    }
+}

@@ -1,0 +1,90 @@
+namespace FeederLocate.Cli.Tests.Commands;
+
+public sealed class HistoryCommandTests : IDisposable
+{
+    private readonly string _folder = Directory.CreateTempSubdirectory("feederlocate-history-").FullName;
+
+    private string Db => Path.Combine(_folder, "history.db");
+
+    private static string Incident(string name) => CliRun.Repo("sample-grid", "incidents", name);
+
+    [Fact]
+    public void Record_creates_the_database_and_history_lists_the_outcome()
+    {
+        var record = CliRun.Of("record", CliRun.Sample("solid"), Incident("solid-lg-trip-a1.incident.json"), "--segment", "S109", "--db", Db, "--json");
+        var history = CliRun.Of("history", "--db", Db, "--json");
+
+        Assert.Equal(0, record.ExitCode);
+        Assert.True(record.Json().GetProperty("incidentId").GetInt64() > 0);
+        Assert.Equal(0, history.ExitCode);
+        var first = history.Json().EnumerateArray().Single();
+        Assert.Equal("S109", first.GetProperty("confirmedSegment").GetString());
+    }
+
+    [Fact]
+    public void Rank_with_the_database_uses_recorded_outcomes()
+    {
+        // Ten outcomes on S109 make its learned fault rate, and so its prior, higher than without history.
+        for (var i = 0; i < 10; i++)
+        {
+            Assert.Equal(0, CliRun.Of("record", CliRun.Sample("solid"), Incident("solid-lg-trip-a1.incident.json"), "--segment", "S109", "--db", Db).ExitCode);
+        }
+
+        var without = CliRun.Of("rank", CliRun.Sample("solid"), Incident("solid-lg-trip-a1.incident.json"), "--json");
+        var with = CliRun.Of("rank", CliRun.Sample("solid"), Incident("solid-lg-trip-a1.incident.json"), "--db", Db, "--json");
+        var stats = CliRun.Of("stats", CliRun.Sample("solid"), "--db", Db, "--json");
+
+        Assert.Equal(0, with.ExitCode);
+        double P(CliRun run) => run.Json().GetProperty("segments").EnumerateArray().Single(s => s.GetProperty("id").GetString() == "S109").GetProperty("probability").GetDouble();
+        Assert.True(P(with) > P(without), $"S109: {P(with)} with history, {P(without)} without");
+        Assert.Equal(10, stats.Json().GetProperty("outcomes").GetInt32());
+        var s109 = stats.Json().GetProperty("segments").EnumerateArray().First();
+        Assert.Equal("S109", s109.GetProperty("id").GetString());
+        Assert.Equal(10, s109.GetProperty("faults").GetInt32());
+    }
+
+    [Fact]
+    public void Backup_and_integrity_check_and_csv_export_work_on_a_recorded_database()
+    {
+        CliRun.Of("record", CliRun.Sample("isolated"), Incident("isolated-standing-earth-fault-a2.incident.json"), "--segment", "S207", "--cause", "tree, after storm", "--db", Db);
+        var copy = Path.Combine(_folder, "copy.db");
+
+        var backup = CliRun.Of("backup", "--db", Db, "--output", copy);
+        var integrity = CliRun.Of("integrity", "--db", copy, "--json");
+        var csv = CliRun.Of("export", "--db", copy, "--what", "incidents");
+
+        Assert.Equal(0, backup.ExitCode);
+        Assert.Equal(0, integrity.ExitCode);
+        Assert.Equal(0, integrity.Json().GetProperty("problems").GetArrayLength());
+        Assert.Contains("S207", csv.Out, StringComparison.Ordinal);
+        Assert.Contains("\"tree, after storm\"", csv.Out, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Record_on_an_unknown_segment_is_bad_input_and_writes_nothing()
+    {
+        var run = CliRun.Of("record", CliRun.Sample("solid"), Incident("solid-lg-trip-a1.incident.json"), "--segment", "S999", "--db", Db);
+
+        Assert.Equal(2, run.ExitCode);
+        Assert.Contains("--segment \"S999\" is not a segment", run.Error, StringComparison.Ordinal);
+        Assert.False(File.Exists(Db));
+    }
+
+    [Fact]
+    public void Learning_curve_reports_each_point_and_the_truth()
+    {
+        var run = CliRun.Of("evaluate", CliRun.Sample("solid"), "--learning", "--incidents", "20", "--test-incidents", "20", "--seed", "2", "--json");
+
+        Assert.Equal(0, run.ExitCode);
+        var json = run.Json();
+        var curve = json.GetProperty("curve").EnumerateArray().Select(p => p.GetProperty("outcomes").GetInt32()).ToList();
+        Assert.Equal([0, 10, 20], curve);
+        Assert.InRange(json.GetProperty("truthSectionTop1").GetDouble(), 0, 1);
+    }
+
+    public void Dispose()
+    {
+        Microsoft.Data.Sqlite.SqliteConnection.ClearAllPools();
+        Directory.Delete(_folder, recursive: true);
+    }
+}
