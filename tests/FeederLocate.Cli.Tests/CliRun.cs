@@ -21,16 +21,24 @@ public sealed record CliRun(int ExitCode, string Out, string Error)
 
     public static string Repo(params string[] parts)
     {
-        for (var dir = new DirectoryInfo(AppContext.BaseDirectory); dir is not null; dir = dir.Parent)
+        // The output folder lies inside the repository unless the build is given an artifacts path
+        // elsewhere; then the folder this source file was compiled from still does.
+        foreach (var start in new[] { AppContext.BaseDirectory, SourceDirectory() })
         {
-            if (File.Exists(Path.Combine(dir.FullName, "FeederLocate.sln")))
+            for (var dir = new DirectoryInfo(start); dir is not null; dir = dir.Parent)
             {
-                return Path.Combine([dir.FullName, .. parts]);
+                if (File.Exists(Path.Combine(dir.FullName, "FeederLocate.sln")))
+                {
+                    return Path.Combine([dir.FullName, .. parts]);
+                }
             }
         }
 
         throw new InvalidOperationException("repository root not found");
     }
+
+    private static string SourceDirectory([System.Runtime.CompilerServices.CallerFilePath] string file = "") =>
+        Path.GetDirectoryName(file) ?? string.Empty;
 
     public static string Sample(string scheme) => Repo("sample-grid", $"marrowdell-{scheme}.grid.json");
 

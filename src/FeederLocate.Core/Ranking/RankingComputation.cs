@@ -120,6 +120,14 @@ internal sealed class RankingComputation
         return best;
     }
 
+    /// <summary>The fault resistances considered for a type on the segment's network, on the fine grid.</summary>
+    public IReadOnlyList<double> FineResistancesFor(int segment, FaultType type)
+    {
+        var sub = Network.SubstationIndexOf(Network.SuppliedEndOf(segment));
+        var plan = _plans[sub].FirstOrDefault(p => p.Type == type) ?? _plans[sub][0];
+        return [.. FineResistances(plan.ResistancesOhm)];
+    }
+
     /// <summary>The coarse grid with 3 log-spaced values between each pair of its points.</summary>
     private static IEnumerable<double> FineResistances(ImmutableArray<double> coarse)
     {
@@ -281,7 +289,11 @@ internal sealed class RankingComputation
             log += MeasurementLikelihood.Log(_options.PhaseCurrentTolerance, phase, predicted.PhaseA);
         }
 
-        if (m.ResidualCurrentA is { } residual)
+        // At a device with an earth fault beyond it on a solid or impedance network the residual current
+        // is the faulted-phase current itself: the same information, counted once.
+        var sameAsPhase = m.PhaseCurrentA is not null && predicted.PhaseA > 0
+            && Math.Abs(predicted.ResidualA - predicted.PhaseA) <= 0.1 * predicted.PhaseA;
+        if (m.ResidualCurrentA is { } residual && !sameAsPhase)
         {
             log += MeasurementLikelihood.Log(_options.ResidualCurrentTolerance, residual, predicted.ResidualA);
         }

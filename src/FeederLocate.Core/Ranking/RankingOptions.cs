@@ -51,7 +51,7 @@ public sealed record RankingOptions
     public ImmutableArray<double> HighResistanceEarthFaultOhms { get; init; } = [0, 5, 20, 60, 150, 400, 1000, 2500, 5000];
 
     /// <summary>Fault resistances for earth faults that trip on solid and impedance networks, Ω (mostly under 20 Ω, common practice).</summary>
-    public ImmutableArray<double> LowResistanceEarthFaultOhms { get; init; } = [0, 1, 3, 6, 10, 15, 20];
+    public ImmutableArray<double> LowResistanceEarthFaultOhms { get; init; } = [0, 0.5, 1, 1.5, 2, 3, 4, 6, 8, 10, 13, 16, 20];
 
     /// <summary>Fault resistances of short circuits, Ω (a few ohms at most, common practice).</summary>
     public ImmutableArray<double> ShortCircuitOhms { get; init; } = [0, 0.5, 1.5, 3];

@@ -10,7 +10,7 @@ namespace FeederLocate.Core.Ranking;
 /// </summary>
 internal sealed class RecordSums
 {
-    private const int TableSteps = 1024;
+    private const int TableSteps = 2048;
     private readonly RankingComputation _computation;
     private readonly IReadOnlyList<MeasuredRecord> _records;
     private readonly double[] _otherNetworks;

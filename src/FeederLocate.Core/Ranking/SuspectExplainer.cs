@@ -60,8 +60,10 @@ internal static class SuspectExplainer
     }
 
     /// <summary>
-    /// Where along the segment the faulted-phase current recorded at the substation fits (within 2σ) for
-    /// the best-fitting fault type and resistance; only where that current falls with distance (solid and
+    /// Where along the segment the faulted-phase current recorded at the substation fits (within 2σ),
+    /// over every fault resistance that explains the records about as well as the best one (within a
+    /// likelihood factor of 20): more resistance means less current, so a plausible range of resistance
+    /// widens the window toward the source. Only where that current falls with distance (solid and
     /// impedance earthing, or short circuits).
     /// </summary>
     private static DistanceWindow? Window(RankingComputation computation, SegmentScore score, DistanceCalculator distances)
@@ -76,28 +78,27 @@ internal static class SuspectExplainer
             return null;
         }
 
-        double? from = null;
-        double? to = null;
         const int steps = 50;
-        for (var k = 0; k <= steps; k++)
+        var points = new List<(double Km, double Log, bool Fits)>();
+        foreach (var rf in computation.FineResistancesFor(score.Segment, score.Best.Type))
         {
-            var position = k / (double)steps;
-            var fault = computation.Model.Solve(score.Segment, position, score.Best.Type, score.Best.FaultResistanceOhm);
-            var fits = records.All(r =>
+            for (var k = 0; k <= steps; k++)
             {
-                var predicted = computation.Predicted(r, score.Segment, fault).PhaseA;
-                var sigma = MeasurementLikelihood.Sigma(computation.Options.PhaseCurrentTolerance, predicted);
-                return Math.Abs(r.Measurement.PhaseCurrentA!.Value - predicted) <= 2 * sigma;
-            });
-            if (fits)
-            {
-                var km = distances.AlongSegmentKm(score.Segment, position);
-                from = Math.Min(from ?? km, km);
-                to = Math.Max(to ?? km, km);
+                var position = k / (double)steps;
+                var fault = computation.Model.Solve(score.Segment, position, score.Best.Type, rf);
+                var fits = records.All(r =>
+                {
+                    var predicted = computation.Predicted(r, score.Segment, fault).PhaseA;
+                    var sigma = MeasurementLikelihood.Sigma(computation.Options.PhaseCurrentTolerance, predicted);
+                    return Math.Abs(r.Measurement.PhaseCurrentA!.Value - predicted) <= 2 * sigma;
+                });
+                points.Add((distances.AlongSegmentKm(score.Segment, position), computation.RecordLogLikelihoodDirect(score.Segment, fault), fits));
             }
         }
 
-        return from is null ? null : new DistanceWindow(from.Value, to!.Value);
+        var best = points.Max(p => p.Log);
+        var inside = points.Where(p => p.Fits && p.Log >= best - Math.Log(20)).ToList();
+        return inside.Count == 0 ? null : new DistanceWindow(inside.Min(p => p.Km), inside.Max(p => p.Km));
     }
 
     private static MeasurementCheck Check(SwitchId device, string quantity, double measured, double predicted, MeasurementTolerance tolerance) =>

@@ -1,0 +1,138 @@
+using System.Runtime.CompilerServices;
+using System.Text.Json;
+
+namespace FeederLocate.Cli.Tests.Commands;
+
+public class RankCommandTests
+{
+    public static TheoryData<string> SampleIncidents => new()
+    {
+        "impedance-lg-trip-a2",
+        "isolated-standing-earth-fault-a2",
+        "resonant-standing-earth-fault-b1",
+        "solid-lg-trip-a1",
+        "solid-ll-a1-tail-fed-from-b1",
+        "solid-lll-a1-wrong-indication",
+    };
+
+    [Theory]
+    [MemberData(nameof(SampleIncidents))]
+    public void Rank_json_gives_segments_and_sections_sorted_and_summing_to_one(string name)
+    {
+        var run = Rank(name);
+
+        Assert.Equal(0, run.ExitCode);
+        var json = run.Json();
+        Assert.True(json.GetProperty("consistent").ValueKind is JsonValueKind.True or JsonValueKind.False);
+
+        var segments = json.GetProperty("segments").EnumerateArray().ToList();
+        Assert.NotEmpty(segments);
+        Assert.All(segments, s => Assert.False(string.IsNullOrEmpty(s.GetProperty("id").GetString())));
+        AssertDistribution(segments.Select(s => s.GetProperty("probability").GetDouble()).ToList());
+
+        var sections = json.GetProperty("sections").EnumerateArray().ToList();
+        Assert.NotEmpty(sections);
+        Assert.All(sections, s =>
+        {
+            Assert.StartsWith("SEC-", s.GetProperty("id").GetString(), StringComparison.Ordinal);
+            Assert.NotEqual(0, s.GetProperty("segments").GetArrayLength());
+        });
+        AssertDistribution(sections.Select(s => s.GetProperty("probability").GetDouble()).ToList());
+
+        // Every ranked segment belongs to exactly one listed section.
+        var members = sections.SelectMany(s => s.GetProperty("segments").EnumerateArray().Select(x => x.GetString())).ToList();
+        Assert.Equal(members.Count, members.Distinct().Count());
+        Assert.All(segments, s => Assert.Contains(s.GetProperty("id").GetString(), members));
+    }
+
+    [Fact]
+    public void Rank_puts_the_section_of_the_intended_fault_first_for_the_solid_trip_on_a1()
+    {
+        // sample-grid/README.md: the incident was worked for an LG fault on S109 at 0.4 with Rf 2 Ω.
+        var json = Rank("solid-lg-trip-a1").Json();
+
+        var first = json.GetProperty("sections")[0];
+        Assert.Contains("S109", first.GetProperty("segments").EnumerateArray().Select(s => s.GetString()));
+        Assert.True(json.GetProperty("consistent").GetBoolean());
+    }
+
+    [Fact]
+    public void Rank_table_names_the_first_section()
+    {
+        var run = CliRun.Of("rank", Sample("solid"), Incident("solid-lg-trip-a1"));
+
+        Assert.Equal(0, run.ExitCode);
+        Assert.Contains("SEC-S108", run.Out, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Rank_of_a_bad_incident_exits_2_naming_each_element_and_field()
+    {
+        var path = Path.Combine(Path.GetTempPath(), $"bad-{Guid.NewGuid():N}.incident.json");
+        File.WriteAllText(path, """
+            {
+              "format": "feederlocate-incident/1",
+              "reportedAt": "2026-02-11T06:47:00Z",
+              "trippedDevice": "CB-A1",
+              "faultType": "LG",
+              "indications": [
+                { "indicator": "FPI-A1-99", "state": "fault", "source": "remote" },
+                { "indicator": "FPI-A1-04", "state": "tripped", "source": "remote" }
+              ]
+            }
+            """);
+        try
+        {
+            var run = CliRun.Of("rank", Sample("solid"), path, "--json");
+
+            Assert.Equal(2, run.ExitCode);
+            Assert.Contains("indication FPI-A1-99: indicator refers to unknown indicator \"FPI-A1-99\"", run.Error, StringComparison.Ordinal);
+            Assert.Contains("indication FPI-A1-04: state must be one of", run.Error, StringComparison.Ordinal);
+            Assert.Equal(string.Empty, run.Out);
+        }
+        finally
+        {
+            File.Delete(path);
+        }
+    }
+
+    private static CliRun Rank(string name)
+    {
+        var scheme = name.Split('-')[0];
+        return CliRun.Of("rank", Sample(scheme), Incident(name), "--json");
+    }
+
+    private static string Incident(string name) => Repo("sample-grid", "incidents", $"{name}.incident.json");
+
+    private static void AssertDistribution(List<double> p)
+    {
+        Assert.Equal(1, p.Sum(), 1e-9);
+        Assert.All(p, x => Assert.InRange(x, 0, 1));
+        for (var i = 1; i < p.Count; i++)
+        {
+            Assert.True(p[i] <= p[i - 1], $"#{i} {p[i]} above #{i - 1} {p[i - 1]}");
+        }
+    }
+
+    /// <summary>
+    /// A file of the repository. CliRun.Repo looks only above the test's output folder, which lies outside
+    /// the repository when the build is given another artifacts path; the folder this file was compiled
+    /// from is always inside it.
+    /// </summary>
+    private static string Repo(params string[] parts)
+    {
+        for (var dir = new DirectoryInfo(SourceDirectory()); dir is not null; dir = dir.Parent)
+        {
+            if (File.Exists(Path.Combine(dir.FullName, "FeederLocate.sln")))
+            {
+                return Path.Combine([dir.FullName, .. parts]);
+            }
+        }
+
+        throw new InvalidOperationException("repository root not found above " + SourceDirectory());
+    }
+
+    private static string SourceDirectory([CallerFilePath] string file = "") => Path.GetDirectoryName(file) ?? string.Empty;
+
+    private static string Sample(string scheme) => Repo("sample-grid", $"marrowdell-{scheme}.grid.json");
+}
