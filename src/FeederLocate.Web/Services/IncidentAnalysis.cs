@@ -4,20 +4,27 @@ using FeederLocate.Storage.Incidents;
 
 namespace FeederLocate.Web.Services;
 
-/// <summary>The ranking of an incident's current evidence, computed once per state of its log.</summary>
-public sealed class IncidentAnalysis
+/// <summary>
+/// The ranking of an incident's current evidence, with priors learned from every outcome logged for
+/// its grid; computed once per state of the incident's log and of the grid's history.
+/// </summary>
+public sealed class IncidentAnalysis(IncidentBoard board)
 {
-    private readonly ConcurrentDictionary<(long Id, int Events), RankingOutcome> _cache = new();
+    private readonly ConcurrentDictionary<(long Id, int Events, int Outcomes), RankingOutcome> _rankings = new();
+    private readonly ConcurrentDictionary<(string Grid, int Outcomes), RankingPriors> _priors = new();
 
     public RankingOutcome Rank(LoadedGrid grid, IncidentState state)
     {
         ArgumentNullException.ThrowIfNull(grid);
         ArgumentNullException.ThrowIfNull(state);
-        return _cache.GetOrAdd((state.Id.Value, state.EventCount), _ =>
+        var outcomes = board.Outcomes(grid.Name).Where(o => o.Id != state.Id && grid.Grid.HasSegment(o.ConfirmedSegment)).ToList();
+        var priors = _priors.GetOrAdd((grid.Name, outcomes.Count), _ =>
+            LearnedRankingPriors.From(grid.Graph, [.. outcomes.Select(o => new ConfirmedIncident(o.Incident, o.ConfirmedSegment))]));
+        return _rankings.GetOrAdd((state.Id.Value, state.EventCount, outcomes.Count), _ =>
         {
             try
             {
-                return new RankingOutcome(FaultRanking.Rank(grid.Graph, state.Incident), null);
+                return new RankingOutcome(FaultRanking.Rank(grid.Graph, state.Incident, priors: priors), null);
             }
             catch (RankingException e)
             {

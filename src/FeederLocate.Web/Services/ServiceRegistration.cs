@@ -13,6 +13,7 @@ public static class ServiceRegistration
         services.AddSingleton(_ => new GridCatalog(RepositoryPaths.Resolve(root, options.GridFolder), options.DefaultGrid));
         services.AddSingleton(_ => new IncidentBoard(IncidentStore.Open(RepositoryPaths.Resolve(root, options.DatabasePath))));
         services.AddSingleton<IncidentAnalysis>();
+        services.AddSingleton<IncidentHistory>();
         services.AddSingleton(TimeProvider.System);
         return services;
     }

@@ -1,0 +1,89 @@
+using System.Collections.Immutable;
+using Bunit;
+using FeederLocate.Core.Evidence;
+using FeederLocate.Core.Model;
+using FeederLocate.Core.Ranking;
+using FeederLocate.Storage.Events;
+using FeederLocate.Web.Components.OneLine;
+using FeederLocate.Web.Components.Workspace;
+using FeederLocate.Web.Tests.Support;
+
+namespace FeederLocate.Web.Tests.Components;
+
+public class WorkspacePanelTests : ComponentTest
+{
+    private readonly Services.LoadedGrid _grid = TestGrids.Sample("solid");
+
+    [Fact]
+    public void Indicator_entry_offers_only_the_states_of_each_kind_and_raises_the_choice()
+    {
+        (Indicator Indicator, IndicatorState State, bool Suspect)? set = null;
+        var cut = Render<IndicatorEntry>(p => p
+            .Add(c => c.Indicators, _grid.Grid.Indicators)
+            .Add(c => c.Current, new Dictionary<IndicatorId, Indication>())
+            .Add(c => c.OnSet, e => set = e));
+
+        var directional = cut.Find("select[data-testid='state-FPI-A1-01']");
+        Assert.Equal(["unknown", "forward", "reverse", "none"], directional.QuerySelectorAll("option").Select(o => o.TextContent));
+        cut.Find("select[data-testid='state-FPI-A1-04']").Change("fault");
+
+        Assert.NotNull(set);
+        Assert.Equal(new IndicatorId("FPI-A1-04"), set.Value.Indicator.Id);
+        Assert.Equal(IndicatorState.Fault, set.Value.State);
+        Assert.False(set.Value.Suspect);
+    }
+
+    [Fact]
+    public void Ranked_list_shows_bars_with_their_value_and_the_inconsistency_warning()
+    {
+        var check = new IndicationCheck(new IndicatorId("FPI-A1-14"), IndicatorState.Forward, IndicatorState.None, false, 0.01, 0.03, false, "reported without cause (false report)");
+        var ranking = new RankingResult(
+            false,
+            [new RankedSegment(new SegmentId("S109"), new SectionId("SEC-S108"), 0.6), new RankedSegment(new SegmentId("S112"), new SectionId("SEC-S112"), 0.4)],
+            [new RankedSection(new SectionId("SEC-S108"), [new SegmentId("S108"), new SegmentId("S109")], 0.6),
+             new RankedSection(new SectionId("SEC-S112"), [new SegmentId("S112")], 0.4)],
+            [], [check], [], [], ImmutableDictionary<FaultType, double>.Empty, []);
+
+        var cut = Render<RankedList>(p => p.Add(c => c.Ranking, ranking));
+
+        Assert.Equal("60", cut.Find("li[data-section='SEC-S108'] .bar").GetAttribute("aria-valuenow"));
+        Assert.Contains("FPI-A1-14: recorded forward, expected none", cut.Find("[data-testid='inconsistent']").TextContent, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Ranked_list_says_why_there_is_no_ranking()
+    {
+        var cut = Render<RankedList>(p => p.Add(c => c.Problem, "the switching state closes a loop"));
+
+        cut.Find("p.warning").MarkupMatches("<p class=\"warning\" role=\"alert\">The incident cannot be ranked: the switching state closes a loop</p>");
+    }
+
+    [Fact]
+    public void Outcome_form_logs_the_confirmed_segment_type_and_cause()
+    {
+        OutcomeLogged? logged = null;
+        var cut = Render<OutcomeForm>(p => p
+            .Add(c => c.Segments, [.. _grid.Grid.Segments.Select(s => s.Id)])
+            .Add(c => c.OnLog, o => logged = o));
+
+        Assert.True(cut.Find("[data-testid='log-outcome']").HasAttribute("disabled"));
+        cut.Find("[data-testid='outcome-segment']").Change("S109");
+        cut.Find("select[aria-label='confirmed fault type']").Change("LG");
+        cut.Find("input[aria-label='cause']").Change("  tree contact ");
+        cut.Find("[data-testid='log-outcome']").Click();
+
+        Assert.Equal(new OutcomeLogged(new SegmentId("S109"), FaultType.LG, "tree contact", null), logged);
+    }
+
+    [Fact]
+    public void Legend_explains_every_indicator_state_and_switch_kind_in_words()
+    {
+        var cut = Render<Legend>();
+
+        var text = cut.Find("[data-testid='legend']").TextContent;
+        foreach (var word in new[] { "fault", "forward", "reverse", "none", "unknown", "breaker", "recloser", "load-break switch", "disconnector", "fuse", "cable", "overhead line", "open switch", "closed switch", "suspect" })
+        {
+            Assert.Contains(word, text, StringComparison.Ordinal);
+        }
+    }
+}

@@ -1,0 +1,90 @@
+using FeederLocate.Web.Tests.Support;
+using Microsoft.Playwright;
+
+namespace FeederLocate.Web.Tests.EndToEnd;
+
+/// <summary>The operator's workflow in a real headless Chromium against the app on a loopback port.</summary>
+public sealed class IncidentWorkflowTests(WebAppFixture app) : IClassFixture<WebAppFixture>
+{
+    private const string SolidGrid = "Marrowdell 20 kV (solidly grounded)";
+
+    [Fact]
+    public async Task Operator_opens_an_incident_enters_indications_sees_the_suspect_ranked_first_and_the_outcome_is_kept()
+    {
+        var page = await app.Browser.NewPageAsync(new BrowserNewPageOptions { ViewportSize = new ViewportSize { Width = 1600, Height = 1100 } });
+        await page.GotoAsync(app.BaseAddress + "/");
+        await WaitForCircuit(page);
+
+        await page.SelectOptionAsync("[data-testid=new-grid]", SolidGrid);
+        await page.SelectOptionAsync("[data-testid=new-tripped]", "CB-A1");
+        await page.SelectOptionAsync("[data-testid=new-type]", "LG");
+        await page.ClickAsync("[data-testid=open-incident]");
+        await page.WaitForURLAsync("**/incidents/*");
+        await WaitForCircuit(page);
+
+        // An earth fault on S109 of feeder A1 (solid grounding): the indicators on the way see it, the one beyond does not.
+        await SetState(page, "FPI-A1-01", "forward");
+        await SetState(page, "FPI-A1-04", "fault");
+        await SetState(page, "FPI-A1-11", "forward");
+        await SetState(page, "FPI-A1-14", "none");
+
+        var first = page.Locator("[data-testid=ranked-list] ol.sections li").First;
+        await Assertions.Expect(first).ToHaveAttributeAsync("data-section", "SEC-S108");
+        await Assertions.Expect(page.Locator("g[data-section-label='SEC-S108'] text")).ToBeVisibleAsync();
+        await Assertions.Expect(page.Locator("g[data-indicator='FPI-A1-04']")).ToHaveAttributeAsync("data-state", "fault");
+
+        Directory.CreateDirectory(app.ArtifactsFolder);
+        await page.ScreenshotAsync(new PageScreenshotOptions { Path = Path.Combine(app.ArtifactsFolder, "workspace.png"), FullPage = true });
+
+        await page.SelectOptionAsync("[data-testid=outcome-segment]", "S109");
+        await page.ClickAsync("[data-testid=log-outcome]");
+        await Assertions.Expect(page.Locator("[data-testid=logged-outcome]")).ToContainTextAsync("S109");
+
+        await page.ReloadAsync();
+        await WaitForCircuit(page);
+        await Assertions.Expect(page.Locator("[data-testid=logged-outcome]")).ToContainTextAsync("S109");
+        await Assertions.Expect(page.Locator("g[data-indicator='FPI-A1-11']")).ToHaveAttributeAsync("data-state", "forward");
+        await page.CloseAsync();
+    }
+
+    [Fact]
+    public async Task A_second_operator_sees_the_first_operators_changes_without_reloading()
+    {
+        var first = await app.Browser.NewPageAsync();
+        await first.GotoAsync(app.BaseAddress + "/");
+        await WaitForCircuit(first);
+        await first.SelectOptionAsync("[data-testid=new-grid]", SolidGrid);
+        await first.ClickAsync("[data-testid=open-incident]");
+        await first.WaitForURLAsync("**/incidents/*");
+        await WaitForCircuit(first);
+
+        var second = await app.Browser.NewPageAsync();
+        await second.GotoAsync(first.Url);
+        await WaitForCircuit(second);
+        await SetState(first, "FPI-A2-05", "forward");
+
+        await Assertions.Expect(second.Locator("g[data-indicator='FPI-A2-05']")).ToHaveAttributeAsync("data-state", "forward");
+        await first.CloseAsync();
+        await second.CloseAsync();
+    }
+
+    [Fact]
+    public async Task The_page_shows_the_cautions()
+    {
+        var page = await app.Browser.NewPageAsync();
+        await page.GotoAsync(app.BaseAddress + "/");
+
+        await Assertions.Expect(page.Locator("[data-testid=cautions]")).ToContainTextAsync("prove dead");
+        await page.CloseAsync();
+    }
+
+    /// <summary>Prerendered controls arrive before the circuit; wait until the page is interactive.</summary>
+    private static Task WaitForCircuit(IPage page) =>
+        page.Locator("[data-testid=interactive]").WaitForAsync(new LocatorWaitForOptions { Timeout = 30_000 });
+
+    private static async Task SetState(IPage page, string indicator, string state)
+    {
+        await page.SelectOptionAsync($"[data-testid='state-{indicator}']", state);
+        await Assertions.Expect(page.Locator($"g[data-indicator='{indicator}']")).ToHaveAttributeAsync("data-state", state);
+    }
+}
