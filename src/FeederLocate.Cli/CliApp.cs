@@ -24,6 +24,7 @@ public static class CliApp
             CheckCommand.Create(console),
             FaultCommand.Create(console),
             RankCommand.Create(console),
+            PlanCommand.Create(console),
             EvaluateCommand.Create(console),
             RecordCommand.Create(console),
             GenerateCommand.Create(console),

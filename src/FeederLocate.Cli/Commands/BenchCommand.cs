@@ -25,12 +25,15 @@ internal static class BenchCommand
         var positions = new Option<int>("--positions") { Description = "Fault positions per segment", DefaultValueFactory = _ => 3 };
         var rounds = new Option<int>("--rounds") { Description = "Measured rounds (after one warm-up round); the fastest is reported", DefaultValueFactory = _ => 3 };
         var ranking = new Option<bool>("--ranking") { Description = "Measure the ranking of simulated incidents instead of the engine sweep" };
+        var plan = new Option<bool>("--plan") { Description = "Measure the switching plan of simulated incidents instead of the engine sweep" };
         var json = CliOptions.Json();
         var command = new Command("bench", "Benchmark the fault engine (every indicator's response for a fault on every segment of a generated grid) or, with --ranking, the ranking")
         {
-            segments, seed, share, positions, rounds, ranking, json,
+            segments, seed, share, positions, rounds, ranking, plan, json,
         };
-        command.SetAction(parse => parse.GetValue(ranking)
+        command.SetAction(parse => parse.GetValue(plan)
+            ? BenchPlan.Run(console, parse.GetValue(segments), parse.GetValue(seed), parse.GetValue(share), parse.GetValue(rounds), parse.GetValue(json))
+            : parse.GetValue(ranking)
             ? BenchRanking.Run(console, parse.GetValue(segments), parse.GetValue(seed), parse.GetValue(share), parse.GetValue(rounds), parse.GetValue(json))
             : Run(console, parse.GetValue(segments), parse.GetValue(seed), parse.GetValue(share),
                 parse.GetValue(positions), parse.GetValue(rounds), parse.GetValue(json)));

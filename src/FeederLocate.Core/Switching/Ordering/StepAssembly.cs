@@ -1,0 +1,95 @@
+using System.Collections.Immutable;
+using FeederLocate.Core.Evidence;
+using FeederLocate.Core.Model;
+
+namespace FeederLocate.Core.Switching;
+
+/// <summary>
+/// Puts the decided operations in order on the timeline: crews dispatched to manual devices first, the
+/// de-energising open, the restorations in the order of least customer minutes (each after the suspect
+/// boundary its island needs), the remaining boundary opens and verifications, then the crew's steps.
+/// </summary>
+internal static class StepAssembly
+{
+    public static List<SwitchingStep> Build(PlanningContext ctx, IsolationResult isolation, DeadArea dead, IReadOnlyList<Candidate> chosen, ICollection<string> notes)
+    {
+        var before = isolation.DeEnergise is { } d ? new List<PlannedOperation> { d } : [];
+        var usedBoundaries = new HashSet<int>();
+        var jobs = new List<Job>();
+        foreach (var c in chosen)
+        {
+            // Every restoration of an island carries the suspect boundary it needs; the flattened order keeps its first open only.
+            var ops = new List<PlannedOperation>();
+            var boundary = dead.SuspectBoundaryOfIsland[c.Island];
+            if (boundary >= 0 && isolation.BoundaryOpens.TryGetValue(boundary, out var open))
+            {
+                usedBoundaries.Add(boundary);
+                ops.Add(open);
+            }
+
+            ops.AddRange(Explained(ctx, c));
+            jobs.AddRange(Staging.Split(ctx, dead, new Job(c, [.. ops], c.Customers)));
+        }
+
+        if (chosen.Any(c => c.Operations.Length > c.Cuts.Length + 1))
+        {
+            notes.Add("customers cut off only for the minutes a disconnector or fuse is closed dead under a briefly opened device are not given the cold-load factor");
+        }
+
+        var after = isolation.BoundaryOpens.Where(p => !usedBoundaries.Contains(p.Key)).OrderBy(p => p.Key).Select(p => p.Value).ToList();
+        var lostCustomers = ctx.Zones.All.Where(z => dead.Lost[z.Index] || z.Index == ctx.SuspectZone).Sum(z => z.Customers);
+        var leftOut = lostCustomers - chosen.Sum(c => c.Customers);
+        var order = JobOrder.Best(ctx, before, jobs, after, leftOut, notes);
+
+        var operations = JobOrder.Flatten(before, order, after).Concat(isolation.Verifies).ToList();
+        var steps = new List<SwitchingStep>();
+        foreach (var device in operations.Select(o => o.Device).Where(i => !ctx.Grid.Switches[i].Remote).Distinct())
+        {
+            var travel = new Timeline(ctx.Grid, ctx.Options).Travel(device);
+            steps.Add(Step(ctx, steps, StepAction.Dispatch, device, null, [], TimeSpan.Zero,
+                $"send a crew to {ctx.Grid.Switches[device].Id} (manual; about {Words.Number(travel.TotalMinutes)} min to reach it)"));
+        }
+
+        var timeline = new Timeline(ctx.Grid, ctx.Options);
+        foreach (var op in operations)
+        {
+            steps.Add(Step(ctx, steps, op.Action, op.Device, op.Node, [], timeline.Place(op.Action, op.Device), op.Reason));
+        }
+
+        CrewSteps(ctx, isolation, steps, timeline.Now);
+        return steps;
+    }
+
+    /// <summary>The candidate's operations with the reason of its last close written out.</summary>
+    private static IEnumerable<PlannedOperation> Explained(PlanningContext ctx, Candidate c)
+    {
+        var text = RestorationWords.Close(ctx, c, c.Zones);
+        var last = c.Operations.Length - 1;
+        return c.Operations.Select((op, k) => op.Reason.Length > 0 ? op : op with { Reason = k == last ? text : op.Reason });
+    }
+
+    private static void CrewSteps(PlanningContext ctx, IsolationResult isolation, List<SwitchingStep> steps, TimeSpan at)
+    {
+        var zone = ctx.Zones.All[ctx.SuspectZone];
+        var segments = zone.Segments.Select(i => ctx.Grid.Segments[i].Id).ToImmutableArray();
+        steps.Add(Step(ctx, steps, StepAction.Dispatch, null, null, segments, at, $"send a crew to the isolated section {ctx.Suspect}"));
+        steps.Add(Step(ctx, steps, StepAction.Patrol, null, null, segments, at, $"patrol the suspect segments {Words.List(segments)} to find the fault"));
+        foreach (var (device, node) in isolation.Points)
+        {
+            steps.Add(Step(ctx, steps, StepAction.ProveDead, device, ctx.Grid.Nodes[node].Id, [], at,
+                $"prove dead at {ctx.Grid.Nodes[node].Id}, the isolated side of {ctx.Grid.Switches[device].Id} (open)"));
+        }
+
+        foreach (var (device, node) in isolation.Points)
+        {
+            steps.Add(Step(ctx, steps, StepAction.Earth, device, ctx.Grid.Nodes[node].Id, [], at,
+                $"earth at {ctx.Grid.Nodes[node].Id} beside {ctx.Grid.Switches[device].Id}: the work zone is earthed on every side"));
+        }
+
+        steps.Add(Step(ctx, steps, StepAction.Permit, null, null, segments, at,
+            $"issue a permit to work on section {ctx.Suspect} only once it is proved dead and earthed at every isolation point; local switching rules and licensed practice govern"));
+    }
+
+    private static SwitchingStep Step(PlanningContext ctx, List<SwitchingStep> steps, StepAction action, int? device, NodeId? node, ImmutableArray<SegmentId> segments, TimeSpan at, string reason) =>
+        new(steps.Count + 1, action, device is { } d ? ctx.Grid.Switches[d].Id : null, node, segments, at, reason);
+}

@@ -1,0 +1,24 @@
+using System.Collections.Immutable;
+using FeederLocate.Core.Model;
+
+namespace FeederLocate.Core.Switching;
+
+/// <summary>
+/// One step of a switching plan, carried out in ascending <see cref="Order"/>.
+/// </summary>
+/// <param name="Device">The switch operated, replaced, verified, proved dead or earthed at; null for work on segments.</param>
+/// <param name="Node">Where the crew works: the node at which it proves dead or earths.</param>
+/// <param name="Segments">The segments patrolled or worked on.</param>
+/// <param name="At">Estimated completion after the start of the incident (serial timeline; crews leave at the start).</param>
+public sealed record SwitchingStep(
+    int Order,
+    StepAction Action,
+    SwitchId? Device,
+    NodeId? Node,
+    ImmutableArray<SegmentId> Segments,
+    TimeSpan At,
+    string Reason)
+{
+    /// <summary>True for the steps that change the network: open and close.</summary>
+    public bool ChangesNetwork => Action is StepAction.Open or StepAction.Close;
+}

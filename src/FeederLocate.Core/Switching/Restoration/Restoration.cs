@@ -1,0 +1,79 @@
+using System.Collections.Immutable;
+using FeederLocate.Core.Evidence;
+using FeederLocate.Core.Topology;
+
+namespace FeederLocate.Core.Switching;
+
+/// <summary>
+/// Restoration of the healthy dead area: candidates per restoring switch, CP-SAT picks disjoint ones,
+/// and the combination is verified by one load flow; a combination that breaks a limit on a donor
+/// substation is forbidden (a cut) and the selection repeated.
+/// </summary>
+internal static class Restoration
+{
+    private const int MaxRounds = 25;
+
+    public static RestorationResult Plan(PlanningContext ctx, IsolationResult isolation, DeadArea dead, SupplyLimits limits, IReadOnlySet<int> avoidZones, ICollection<string> notes)
+    {
+        var candidates = CandidateSearch.Find(ctx, isolation, dead, limits, avoidZones, notes);
+        var forbidden = new List<IReadOnlyList<int>>();
+        for (var round = 0; round < MaxRounds; round++)
+        {
+            var chosen = TieSelection.Select(candidates, forbidden, ctx.Options.SolverTimeLimit, out var optimal);
+            if (!optimal)
+            {
+                notes.Add("the selection of restoring switches stopped at its time limit: the best combination found is used");
+            }
+
+            var (network, verdicts) = Combine(ctx, dead, limits, chosen);
+            var failing = verdicts.Where(v => !v.Value.Holds).Select(v => v.Key).ToHashSet();
+            if (failing.Count == 0)
+            {
+                return new RestorationResult([.. chosen], network is null ? null : limits.Check(network));
+            }
+
+            var together = candidates.Select((c, i) => (c, i)).Where(p => chosen.Contains(p.c) && failing.Contains(p.c.Donor)).Select(p => p.i).ToList();
+            forbidden.Add(together);
+        }
+
+        notes.Add("no combination of restoring switches passed the combined load flow within the rounds allowed: nothing is restored through ties");
+        return new RestorationResult([], null);
+    }
+
+    /// <summary>The state with every chosen group restored, and the verdict per donor substation.</summary>
+    private static (EnergisedNetwork? Network, Dictionary<int, SupplyVerdict> Verdicts) Combine(
+        PlanningContext ctx, DeadArea dead, SupplyLimits limits, IReadOnlyList<Candidate> chosen)
+    {
+        var states = dead.States;
+        foreach (var c in chosen)
+        {
+            foreach (var cut in c.Cuts)
+            {
+                states = states.With(ctx.Grid.Switches[cut].Id, SwitchPosition.Open);
+            }
+
+            states = states.With(ctx.Grid.Switches[c.Source].Id, SwitchPosition.Closed);
+        }
+
+        var network = ctx.TryEnergise(states);
+        var verdicts = new Dictionary<int, SupplyVerdict>();
+        if (network is null)
+        {
+            // Disjoint groups from distinct sources cannot form a loop; treat it as a failure of every donor.
+            foreach (var donor in chosen.Select(c => c.Donor).Distinct())
+            {
+                verdicts[donor] = new SupplyVerdict("the combination does not give a radial network", 0, -1, 0, -1);
+            }
+
+            return (null, verdicts);
+        }
+
+        foreach (var donor in chosen.Select(c => c.Donor).Distinct())
+        {
+            var heads = chosen.Where(c => c.Donor == donor).Select(c => c.FeederHead).Distinct().ToList();
+            verdicts[donor] = limits.Check(network, new HashSet<int> { donor }, heads);
+        }
+
+        return (network, verdicts);
+    }
+}

@@ -1,0 +1,155 @@
+using System.Collections.Immutable;
+using FeederLocate.Core.Model;
+
+namespace FeederLocate.Core.Switching;
+
+/// <summary>
+/// The sectioning search for a standing earth fault on an isolated or resonant network, watching the
+/// neutral voltage U0: bisection by probability mass over the feeder tree. Each entry opens the device
+/// that cuts off about half of the remaining probability (breakers, reclosers and load-break switches may
+/// break the earth-fault current, IEC 62271-103); U0 staying means the fault is not beyond it, so it closes
+/// again onto a healthy part; U0 collapsing means it is. A load-break switch never closes onto the faulted
+/// part, so there the search ends; a breaker or recloser may reclose onto it after a dead split, and the
+/// search goes on watching whether U0 returns.
+/// </summary>
+internal static class EarthFaultSearch
+{
+    public static ImmutableArray<TestEntry> Build(PlanningContext ctx, ICollection<string> notes)
+    {
+        if (ctx.SuspectSubstation < 0)
+        {
+            return [];
+        }
+
+        var grid = ctx.Grid;
+        var start = ctx.StartNetwork;
+        var bus = ctx.Zones.ZoneOfNode(grid.NodeIndex(grid.Substations[ctx.SuspectSubstation].BusNode));
+        var tree = new ZoneTree(ctx, ctx.StartStates, bus, z => ctx.ZoneLive(start, z) && start.SubstationIndexOf(ctx.Zones.All[z].Nodes[0]) == ctx.SuspectSubstation);
+        if (tree.Zones.Sum(z => ctx.ProbabilityOfZone[z]) <= 0)
+        {
+            notes.Add("the ranking gives no probability to the network of the suspect's substation: no earth-fault search");
+            return [];
+        }
+
+        var search = new Search(ctx, tree);
+        search.Live([.. tree.Zones], depth: 0);
+        return [.. search.Entries.OrderBy(e => e.Order)];
+    }
+
+    private sealed class Search(PlanningContext ctx, ZoneTree tree)
+    {
+        private const int MaxDepth = 12;
+
+        /// <summary>Remote devices first: a manual one is taken only when it splits the probability this much better.</summary>
+        private const double ManualPenalty = 0.2;
+
+        private const double NegligibleShare = 1e-3;
+        private int _next = 1;
+
+        public List<TestEntry> Entries { get; } = [];
+
+        private Grid Grid => ctx.Grid;
+
+        /// <summary>The search on the live part <paramref name="region"/> (holding the fault); returns its first entry, or null when it ends.</summary>
+        public int? Live(HashSet<int> region, int depth)
+        {
+            var cut = Bisect(region, z => DeviceRules.CanOpenLive(Grid.Switches[tree.ParentSwitch(z)].Kind, ThroughCurrent.StandingEarthFault));
+            if (cut < 0 || depth >= MaxDepth || Entries.Count >= ctx.Options.MaxSearchEntries)
+            {
+                return null;
+            }
+
+            var order = _next++;
+            var beyond = Beyond(region, cut);
+            var rest = region.Except(beyond).ToHashSet();
+            var device = Grid.Switches[tree.ParentSwitch(cut)];
+            var staysNext = Live(rest, depth + 1);
+            var stays = new TestBranch("U0 stays",
+                $"the fault is not beyond {device.Id}: close {device.Id} again (onto a healthy part){(staysNext is { } s ? $"; go on with entry {s}" : string.Empty)}",
+                staysNext, staysNext is null ? Suspects(rest) : []);
+            int? collapsesNext = DeviceRules.CanMakeOntoFault(device.Kind) ? Dead(beyond, cut, depth + 1) : null;
+            var collapses = new TestBranch("U0 collapses",
+                $"the fault is beyond {device.Id}: leave it open{(collapsesNext is { } c ? $"; go on with entry {c}" : $"; patrol {Words.List(Suspects(beyond))} and follow the plan for the section found")}",
+                collapsesNext, collapsesNext is null ? Suspects(beyond) : []);
+            Entries.Add(new TestEntry(order, TestAction.OpenWatchingU0, device.Id, [], Sections(beyond), Mass(beyond), stays, collapses,
+                $"open {device.Id} and watch U0: cuts off {Words.Probability(Share(beyond, region))} of the remaining probability ({Customers(beyond)} customers briefly)"));
+            return order;
+        }
+
+        /// <summary>The search on the dead part <paramref name="region"/> below <paramref name="gate"/>'s zone, which a breaker or recloser recloses.</summary>
+        private int? Dead(HashSet<int> region, int gate, int depth)
+        {
+            var cut = Bisect(region, _ => true);
+            if (cut < 0 || depth >= MaxDepth || Entries.Count >= ctx.Options.MaxSearchEntries)
+            {
+                return null;
+            }
+
+            var order = _next++;
+            var beyond = Beyond(region, cut);
+            var energised = region.Except(beyond).ToHashSet();
+            var closer = Grid.Switches[tree.ParentSwitch(gate)];
+            var split = Grid.Switches[tree.ParentSwitch(cut)];
+            var returnsNext = Dead(energised, gate, depth + 1);
+            var returns = new TestBranch("U0 returns",
+                $"the fault lies in what {closer.Id} energised: open {closer.Id} again{(returnsNext is { } r ? $"; go on with entry {r}" : $"; patrol {Words.List(Suspects(energised))}")}",
+                returnsNext, returnsNext is null ? Suspects(energised) : []);
+            int? absentNext = DeviceRules.CanMakeOntoFault(split.Kind) ? Dead(beyond, cut, depth + 1) : null;
+            var absent = new TestBranch("U0 stays absent",
+                $"the fault lies beyond {split.Id}: leave it open; the part {closer.Id} energised stays supplied{(absentNext is { } a ? $"; go on with entry {a}" : $"; patrol {Words.List(Suspects(beyond))}")}",
+                absentNext, absentNext is null ? Suspects(beyond) : []);
+            Entries.Add(new TestEntry(order, TestAction.CloseWatchingU0, closer.Id, [$"open {split.Id} (dead)"], Sections(energised), Mass(energised), returns, absent,
+                $"reclose {closer.Id} ({Words.Kind(closer.Kind)}: it may close onto the earth fault) and watch U0: energises {Words.Probability(Share(energised, region))} of the remaining probability"));
+            return order;
+        }
+
+        /// <summary>The zone whose parent switch best halves the region's probability, among those <paramref name="usable"/>; -1 when none splits it.</summary>
+        private int Bisect(HashSet<int> region, Func<int, bool> usable)
+        {
+            var total = Mass(region);
+            var best = -1;
+            var bestKey = (double.MaxValue, 1.0, int.MaxValue);
+            foreach (var z in region)
+            {
+                var parent = tree.ParentSwitch(z);
+                if (parent < 0 || !region.Contains(ctx.Zones.Across(parent, z)) || !usable(z))
+                {
+                    continue;
+                }
+
+                // A part holding under 0.1 % of the remaining probability is not worth an interruption.
+                var m = Mass(Beyond(region, z));
+                if (m < NegligibleShare * total || total - m < NegligibleShare * total)
+                {
+                    continue;
+                }
+
+                var manual = Grid.Switches[parent].Remote ? 0 : ManualPenalty;
+                var key = (Math.Abs((m / total) - 0.5) + manual, manual, Customers(Beyond(region, z)));
+                if (key.CompareTo(bestKey) < 0)
+                {
+                    bestKey = key;
+                    best = z;
+                }
+            }
+
+            return best;
+        }
+
+        private HashSet<int> Beyond(HashSet<int> region, int zone) => [.. tree.Subtree(zone).Where(region.Contains)];
+
+        private double Mass(IEnumerable<int> zones) => zones.Sum(z => ctx.ProbabilityOfZone[z]);
+
+        private double Share(IEnumerable<int> part, HashSet<int> region) => Mass(part) / Math.Max(1e-300, Mass(region));
+
+        private int Customers(IEnumerable<int> zones) => zones.Sum(z => ctx.Zones.All[z].Customers);
+
+        private ImmutableArray<SectionId> Sections(IEnumerable<int> zones) =>
+            [.. zones.Select(z => ctx.Zones.All[z].Section).OfType<SectionId>().OrderBy(s => s.Value, StringComparer.Ordinal)];
+
+        /// <summary>The sections of the part that the ranking gives any probability, most likely first.</summary>
+        private ImmutableArray<SectionId> Suspects(IEnumerable<int> zones) =>
+            [.. zones.Where(z => ctx.ProbabilityOfZone[z] > 0 && ctx.Zones.All[z].Section is not null)
+                .OrderByDescending(z => ctx.ProbabilityOfZone[z]).Select(z => ctx.Zones.All[z].Section!.Value)];
+    }
+}

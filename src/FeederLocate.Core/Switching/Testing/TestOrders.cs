@@ -1,0 +1,23 @@
+using System.Collections.Immutable;
+
+namespace FeederLocate.Core.Switching;
+
+/// <summary>Which test order a plan carries: the standing earth-fault search, trial closures for a split ranking, or none.</summary>
+internal static class TestOrders
+{
+    public static ImmutableArray<TestEntry> For(PlanningContext ctx, IReadOnlyList<Suspect> suspects, ICollection<string> notes, out double? expectedReenergisations)
+    {
+        expectedReenergisations = null;
+        if (ctx.Ranking is null)
+        {
+            return [];
+        }
+
+        if (ctx.StandingEarthFault)
+        {
+            return EarthFaultSearch.Build(ctx, notes);
+        }
+
+        return suspects.Count >= 2 ? TrialClosures.Build(ctx, suspects, notes, out expectedReenergisations) : [];
+    }
+}

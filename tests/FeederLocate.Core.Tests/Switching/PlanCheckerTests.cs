@@ -1,0 +1,78 @@
+using System.Collections.Immutable;
+using FeederLocate.Core.Evidence;
+using FeederLocate.Core.Model;
+using FeederLocate.Core.Switching;
+using FeederLocate.Core.Topology;
+
+namespace FeederLocate.Core.Tests.Switching;
+
+/// <summary>The checker itself must catch unsafe plans, or passing it would mean nothing.</summary>
+public class PlanCheckerTests
+{
+    private static readonly Incident Trip = new(
+        DateTimeOffset.UnixEpoch, null, ImmutableDictionary<SwitchId, SwitchPosition>.Empty, new SwitchId("CB-P1"), FaultType.LLL, [], []);
+
+    private static SwitchingPlan Good(Grid grid) =>
+        SwitchingPlanner.Plan(new NetworkGraph(grid), Trip, new NetworkGraph(grid).Sections.OfSegment(grid.SegmentIndex(new SegmentId("S3"))).Id);
+
+    private static SwitchingPlan WithSteps(SwitchingPlan plan, params (StepAction Action, string Device)[] steps) => plan with
+    {
+        Steps = [.. steps.Select((s, k) => new SwitchingStep(k + 1, s.Action, new SwitchId(s.Device), null, [], TimeSpan.FromMinutes(k), "test")),
+            .. plan.Steps.Where(s => !s.ChangesNetwork && s.Action != StepAction.Dispatch)],
+    };
+
+    private static List<string> Problems(Grid grid, SwitchingPlan plan, string trueFault = "S3") =>
+        new PlanChecker(grid).Check(Trip, plan, new SegmentId(trueFault), standing: false).Problems;
+
+    [Fact]
+    public void The_planners_plan_passes()
+    {
+        var grid = SwitchingGrids.Fenwick();
+        Assert.Empty(Problems(grid, Good(grid)));
+    }
+
+    [Fact]
+    public void Closing_onto_the_isolated_section_is_caught()
+    {
+        var grid = SwitchingGrids.Fenwick();
+        var plan = WithSteps(Good(grid), (StepAction.Close, "CB-P1"));
+        Assert.Contains(Problems(grid, plan), p => p.Contains("energises the isolated section", StringComparison.Ordinal));
+    }
+
+    [Fact]
+    public void A_loop_is_caught()
+    {
+        // T1 and T2 both close onto the dead tail: Q1 and Q2 then meet through P8-P10.
+        var grid = SwitchingGrids.Fenwick();
+        var plan = WithSteps(Good(grid), (StepAction.Open, "LB2"), (StepAction.Open, "LB3"), (StepAction.Close, "T1"), (StepAction.Close, "T2"));
+        Assert.Contains(Problems(grid, plan), p => p.Contains("loop", StringComparison.Ordinal) || p.Contains("two live parts", StringComparison.Ordinal));
+    }
+
+    [Fact]
+    public void A_disconnector_operated_live_is_caught()
+    {
+        var grid = SwitchingGrids.Fenwick();
+        // T3 makes the lateral (and S3 through DS5) live; DS5 then opens with both nodes live.
+        var plan = WithSteps(Good(grid), (StepAction.Open, "LB2"), (StepAction.Open, "LB3"), (StepAction.Close, "T3"), (StepAction.Open, "DS5"));
+        // The true fault is put elsewhere so that the check goes on past the close onto S3.
+        Assert.Contains(Problems(grid, plan, trueFault: "S1"), p => p.Contains("disconnector DS5 live", StringComparison.Ordinal));
+    }
+
+    [Fact]
+    public void An_overload_in_the_final_state_is_caught()
+    {
+        // At three times the load T1's long overhead line cannot carry everything beyond S3.
+        var grid = SwitchingGrids.Fenwick(3.0);
+        var plan = WithSteps(Good(grid), (StepAction.Open, "LB2"), (StepAction.Open, "LB3"), (StepAction.Open, "DS5"), (StepAction.Close, "T1"));
+        Assert.Contains(Problems(grid, plan), p => p.Contains("pu below", StringComparison.Ordinal) || p.Contains("above", StringComparison.Ordinal) || p.Contains("converge", StringComparison.Ordinal));
+    }
+
+    [Fact]
+    public void Missing_crew_steps_are_caught()
+    {
+        var grid = SwitchingGrids.Fenwick();
+        var good = Good(grid);
+        var plan = good with { Steps = [.. good.Steps.Where(s => s.Action != StepAction.Earth)] };
+        Assert.Contains(Problems(grid, plan), p => p.Contains("no Earth step", StringComparison.Ordinal));
+    }
+}
