@@ -25,16 +25,18 @@ internal static class PlanCommand
             Description = "Lowest voltage allowed at any live node in the final state, pu (0.5 to 1)",
             DefaultValueFactory = _ => SwitchingOptions.Default.VoltageLimitPu,
         };
+        var db = CliOptions.Database(required: false);
         var json = CliOptions.Json();
         var command = new Command("plan", "Propose the switching order: isolate the most likely section, restore, and test; advice only")
         {
-            grid, incident, coldLoad, voltage, json,
+            grid, incident, coldLoad, voltage, db, json,
         };
-        command.SetAction(parse => Run(console, parse.GetValue(grid)!, parse.GetValue(incident)!, parse.GetValue(coldLoad), parse.GetValue(voltage), parse.GetValue(json)));
+        command.SetAction(parse => Run(console, parse.GetValue(grid)!, parse.GetValue(incident)!, parse.GetValue(coldLoad), parse.GetValue(voltage),
+            parse.GetValue(db), parse.GetValue(json)));
         return command;
     }
 
-    private static int Run(CliConsole console, string gridPath, string incidentPath, double coldLoadFactor, double voltageLimitPu, bool json)
+    private static int Run(CliConsole console, string gridPath, string incidentPath, double coldLoadFactor, double voltageLimitPu, string? dbPath, bool json)
     {
         var errors = new List<string>();
         if (!(coldLoadFactor is >= 1 and <= 10))
@@ -58,7 +60,7 @@ internal static class PlanCommand
         RankingResult ranking;
         try
         {
-            ranking = FaultRanking.Rank(graph, incident);
+            ranking = FaultRanking.Rank(graph, incident, priors: HistoryDatabase.PriorsFor(dbPath, graph));
         }
         catch (RankingException e)
         {

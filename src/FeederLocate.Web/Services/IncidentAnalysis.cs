@@ -13,6 +13,23 @@ public sealed class IncidentAnalysis(IncidentBoard board)
     private readonly ConcurrentDictionary<(long Id, int Events, int Outcomes), RankingOutcome> _rankings = new();
     private readonly ConcurrentDictionary<(string Grid, int Outcomes), RankingPriors> _priors = new();
 
+    private readonly ConcurrentDictionary<(long Id, int Events, int Outcomes), PlanOutcome> _plans = new();
+
+    /// <summary>The switching order for the ranking's most likely section, from the incident's start state.</summary>
+    public PlanOutcome Plan(LoadedGrid grid, IncidentState state)
+    {
+        var ranking = Rank(grid, state);
+        if (ranking.Result is not { } result)
+        {
+            return new PlanOutcome(null, ranking.Problem);
+        }
+
+        return _plans.GetOrAdd((state.Id.Value, state.EventCount, board.Outcomes(grid.Name).Count), _ =>
+            FeederLocate.Core.Switching.SwitchingPlanner.TryPlan(grid.Graph, state.Incident, result, out var plan, out var problem)
+                ? new PlanOutcome(plan, null)
+                : new PlanOutcome(null, problem));
+    }
+
     public RankingOutcome Rank(LoadedGrid grid, IncidentState state)
     {
         ArgumentNullException.ThrowIfNull(grid);
@@ -36,3 +53,6 @@ public sealed class IncidentAnalysis(IncidentBoard board)
 
 /// <summary>A ranking, or why there is none.</summary>
 public sealed record RankingOutcome(RankingResult? Result, string? Problem);
+
+/// <summary>A switching order, or why there is none.</summary>
+public sealed record PlanOutcome(FeederLocate.Core.Switching.SwitchingPlan? Plan, string? Problem);

@@ -88,3 +88,33 @@ public sealed class HistoryCommandTests : IDisposable
         Directory.Delete(_folder, recursive: true);
     }
 }
+
+public sealed class PlanWithHistoryTests : IDisposable
+{
+    private readonly string _folder = Directory.CreateTempSubdirectory("feederlocate-plan-history-").FullName;
+
+    [Fact]
+    public void Plan_with_the_database_isolates_the_section_the_learned_ranking_puts_first()
+    {
+        var db = Path.Combine(_folder, "history.db");
+        var grid = CliRun.Sample("solid");
+        var incident = CliRun.Repo("sample-grid", "incidents", "solid-lg-trip-a1.incident.json");
+        for (var i = 0; i < 3; i++)
+        {
+            Assert.Equal(0, CliRun.Of("record", grid, incident, "--segment", "S109", "--db", db).ExitCode);
+        }
+
+        var rank = CliRun.Of("rank", grid, incident, "--db", db, "--json");
+        var plan = CliRun.Of("plan", grid, incident, "--db", db, "--json");
+
+        Assert.Equal(0, plan.ExitCode);
+        var top = rank.Json().GetProperty("sections")[0].GetProperty("id").GetString();
+        Assert.Equal(top, plan.Json().GetProperty("isolatedSections")[0].GetString());
+    }
+
+    public void Dispose()
+    {
+        Microsoft.Data.Sqlite.SqliteConnection.ClearAllPools();
+        Directory.Delete(_folder, recursive: true);
+    }
+}

@@ -33,6 +33,18 @@ public sealed class IncidentWorkflowTests(WebAppFixture app) : IClassFixture<Web
         await Assertions.Expect(page.Locator("g[data-section-label='SEC-S108'] text")).ToBeVisibleAsync();
         await Assertions.Expect(page.Locator("g[data-indicator='FPI-A1-04']")).ToHaveAttributeAsync("data-state", "fault");
 
+        // Tick the first switching step: it is logged with who and when, and the diagram follows it.
+        var step = page.Locator("[data-testid=plan-steps] li[data-step='1']");
+        await Assertions.Expect(step).ToBeVisibleAsync();
+        var action = (await step.Locator(".action").InnerTextAsync()).Trim();
+        var device = (await step.Locator(".device").InnerTextAsync()).Trim();
+        await page.ClickAsync("[data-testid=tick-1]");
+        await Assertions.Expect(page.Locator("[data-testid=done-1]")).ToContainTextAsync("done by operator");
+        if (action is "open" or "close")
+        {
+            await Assertions.Expect(page.Locator($"g[data-switch='{device}']")).ToHaveClassAsync(new System.Text.RegularExpressions.Regex(action == "open" ? @"\bopen\b" : @"\bclosed\b"));
+        }
+
         Directory.CreateDirectory(app.ArtifactsFolder);
         await page.ScreenshotAsync(new PageScreenshotOptions { Path = Path.Combine(app.ArtifactsFolder, "workspace.png"), FullPage = true });
 
@@ -44,6 +56,7 @@ public sealed class IncidentWorkflowTests(WebAppFixture app) : IClassFixture<Web
         await WaitForCircuit(page);
         await Assertions.Expect(page.Locator("[data-testid=logged-outcome]")).ToContainTextAsync("S109");
         await Assertions.Expect(page.Locator("g[data-indicator='FPI-A1-11']")).ToHaveAttributeAsync("data-state", "forward");
+        await Assertions.Expect(page.Locator("[data-testid=done-1]")).ToContainTextAsync("done by operator");
         await page.CloseAsync();
     }
 

@@ -27,6 +27,9 @@ public sealed class WebAppFixture : IAsyncLifetime
     public async Task InitializeAsync()
     {
         await EnsureChromium();
+
+        // A 2-core machine that also computes rankings and plans on every change: give the page time.
+        Assertions.SetDefaultExpectTimeout(30_000);
         _factory = new WebApplicationFactory<Program>().WithWebHostBuilder(b =>
         {
             b.UseSetting("FeederLocate:DatabasePath", Path.Combine(_folder, "incidents.db"));
