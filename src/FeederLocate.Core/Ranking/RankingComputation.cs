@@ -14,6 +14,8 @@ namespace FeederLocate.Core.Ranking;
 internal sealed class RankingComputation
 {
     private static readonly double[] RefinedPositions = [0.05, 0.25, 0.5, 0.75, 0.95];
+    private static readonly ImmutableArray<double> MidpointOnly = [0.5];
+    private readonly bool[] _lowCurrentEarthFault;
     private readonly Grid _grid;
     private readonly Incident _incident;
     private readonly RankingOptions _options;
@@ -52,6 +54,7 @@ internal sealed class RankingComputation
         _beyond = new bool[_observed.Count];
         _measuredBeyond = new bool[_measured.Count];
         _sums = new IndicationSums(_model, _observed);
+        _lowCurrentEarthFault = [.. _grid.Substations.Select(s => s.Grounding.Scheme is GroundingScheme.Isolated or GroundingScheme.Resonant)];
         _records = new RecordSums(this, _measured, _model);
     }
 
@@ -101,14 +104,17 @@ internal sealed class RankingComputation
         var sub = Network.SubstationIndexOf(Network.SuppliedEndOf(segment));
         var trip = TripLogFactor(segment);
         var best = new BestHypothesis(FaultType.LG, 0, 0.5, double.NegativeInfinity);
+        var beyond = Enumerable.Range(0, _measured.Count)
+            .Where(m => _measured[m].Point.Substation == sub && _model.IsFaultBeyond(_measured[m].Point, segment)).ToList();
         foreach (var plan in _plans[sub])
         {
             foreach (var rf in FineResistances(plan.ResistancesOhm))
             {
                 foreach (var position in RefinedPositions)
                 {
+                    // The shortcut sums, equal to the plain ones (see the tests), at every point of the finer grid.
                     var fault = _model.Solve(segment, position, plan.Type, rf);
-                    var log = IndicationLogLikelihoodDirect(segment, fault) + RecordLogLikelihoodDirect(segment, fault) + trip;
+                    var log = _sums.LogLikelihood(segment, fault) + _records.LogLikelihood(fault, beyond) + trip;
                     if (log > best.LogLikelihood)
                     {
                         best = new BestHypothesis(plan.Type, rf, position, log);
@@ -267,7 +273,10 @@ internal sealed class RankingComputation
 
         var total = double.NegativeInfinity;
         var best = (Log: double.NegativeInfinity, Position: 0.5);
-        foreach (var position in _options.Positions)
+        // Where the earthing keeps an earth fault's current low, the records hardly change along a segment:
+        // the midpoint stands for it (the finer check of the best explanation still uses every position).
+        var positions = _lowCurrentEarthFault[mid.Substation] && type is FaultType.LG or FaultType.LLG ? MidpointOnly : _options.Positions;
+        foreach (var position in positions)
         {
             var fault = position == 0.5 ? mid : _model.Solve(segment, position, type, rf);
             var log = _records.LogLikelihood(fault, _recordsBeyond);
@@ -278,7 +287,7 @@ internal sealed class RankingComputation
             }
         }
 
-        return (total - Math.Log(_options.Positions.Length), best.Position);
+        return (total - Math.Log(positions.Length), best.Position);
     }
 
     internal double RecordLogLikelihood(SubstationMeasurement m, (double PhaseA, double ResidualA, double NeutralV) predicted)

@@ -22,7 +22,7 @@ internal static class SuspectExplainer
         })];
     }
 
-    public static SuspectExplanation Explain(RankingComputation computation, SegmentScore score, double probability, DistanceCalculator distances, bool refined = false)
+    public static SuspectExplanation Explain(RankingComputation computation, SegmentScore score, double probability, DistanceCalculator distances, bool refined = false, bool withWindow = true)
     {
         var checks = Checks(computation, score.Segment, score.Best, refined ? score.Best.Position : 0.5);
         var fault = computation.Model.Solve(score.Segment, score.Best.Position, score.Best.Type, score.Best.FaultResistanceOhm);
@@ -56,7 +56,7 @@ internal static class SuspectExplainer
             [.. checks.Where(c => c.Agrees)],
             [.. checks.Where(c => !c.Agrees)],
             measurements.ToImmutable(),
-            Window(computation, score, distances));
+            withWindow ? Window(computation, score, distances) : null);
     }
 
     /// <summary>
@@ -92,13 +92,22 @@ internal static class SuspectExplainer
                     var sigma = MeasurementLikelihood.Sigma(computation.Options.PhaseCurrentTolerance, predicted);
                     return Math.Abs(r.Measurement.PhaseCurrentA!.Value - predicted) <= 2 * sigma;
                 });
-                points.Add((distances.AlongSegmentKm(score.Segment, position), computation.RecordLogLikelihoodDirect(score.Segment, fault), fits));
+                if (fits)
+                {
+                    points.Add((distances.AlongSegmentKm(score.Segment, position), computation.RecordLogLikelihoodDirect(score.Segment, fault), true));
+                }
             }
         }
 
+        if (points.Count == 0)
+        {
+            return null;
+        }
+
+        // Of the points where the phase current fits, those the other records find about as likely as the best.
         var best = points.Max(p => p.Log);
-        var inside = points.Where(p => p.Fits && p.Log >= best - Math.Log(20)).ToList();
-        return inside.Count == 0 ? null : new DistanceWindow(inside.Min(p => p.Km), inside.Max(p => p.Km));
+        var inside = points.Where(p => p.Log >= best - Math.Log(20)).ToList();
+        return new DistanceWindow(inside.Min(p => p.Km), inside.Max(p => p.Km));
     }
 
     private static MeasurementCheck Check(SwitchId device, string quantity, double measured, double predicted, MeasurementTolerance tolerance) =>
