@@ -21,6 +21,7 @@ internal static class EventPayload
     public const string PlanStepCompletedKind = "planStepCompleted";
     public const string OutcomeLoggedKind = "outcomeLogged";
     public const string IncidentClosedKind = "incidentClosed";
+    public const string SubstationRecordAmendedKind = "substationRecordAmended";
 
     // Required constructor parameters and nullable annotations are enforced, so a payload missing a
     // non-optional field fails to read instead of yielding nulls; optional fields have defaults.
@@ -41,6 +42,7 @@ internal static class EventPayload
         PlanStepCompleted => PlanStepCompletedKind,
         OutcomeLogged => OutcomeLoggedKind,
         IncidentClosed => IncidentClosedKind,
+        SubstationRecordAmended => SubstationRecordAmendedKind,
         _ => throw new ArgumentException($"unknown event type {e.GetType().Name}", nameof(e)),
     };
 
@@ -59,6 +61,7 @@ internal static class EventPayload
             PlanStepCompleted p => new PlanStepPayload(p.Order, p.Action, p.Device, p.Note),
             OutcomeLogged o => new OutcomePayload(o.ConfirmedSegment.Value, IncidentFormat.Name(o.FaultType), o.Cause, o.Notes),
             IncidentClosed c => new ClosedPayload(c.Note),
+            SubstationRecordAmended a => new AmendedPayload(IncidentFormat.Name(a.FaultType), a.TrippedDevice?.Value),
             _ => throw new ArgumentException($"unknown event type {e.GetType().Name}", nameof(e)),
         };
         return JsonSerializer.Serialize(payload, payload.GetType(), Options);
@@ -78,6 +81,7 @@ internal static class EventPayload
                 PlanStepCompletedKind => Read<PlanStepPayload>(json).ToEvent(),
                 OutcomeLoggedKind => Read<OutcomePayload>(json).ToEvent(id),
                 IncidentClosedKind => new IncidentClosed(Read<ClosedPayload>(json).Note),
+                SubstationRecordAmendedKind => Read<AmendedPayload>(json).ToEvent(id),
                 _ => throw new CorruptEventException(id, $"has unknown kind \"{kind}\""),
             };
         }
@@ -152,4 +156,10 @@ internal static class EventPayload
     }
 
     private sealed record ClosedPayload(string? Note = null);
+
+    private sealed record AmendedPayload(string FaultType, string? TrippedDevice = null)
+    {
+        public SubstationRecordAmended ToEvent(EventId id) =>
+            new(TrippedDevice is null ? null : new SwitchId(TrippedDevice), Choice(id, "faultType", FaultType, IncidentFormat.FaultTypes));
+    }
 }

@@ -82,6 +82,9 @@ internal static class IncidentFold
                 case IncidentClosed:
                     closedAt = stored.Time;
                     break;
+                case SubstationRecordAmended amended:
+                    incident = incident with { TrippedDevice = amended.TrippedDevice, FaultType = amended.FaultType };
+                    break;
                 case IncidentOpened:
                     throw new CorruptEventException(stored.Id, $"opens incident {stored.Incident} a second time");
                 default:

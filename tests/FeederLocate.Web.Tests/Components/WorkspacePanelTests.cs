@@ -87,3 +87,67 @@ public class WorkspacePanelTests : ComponentTest
         }
     }
 }
+
+public class RecordAndPlanPanelTests : ComponentTest
+{
+    private readonly Services.LoadedGrid _grid = TestGrids.Sample("solid");
+
+    [Fact]
+    public void Record_form_amends_tripped_device_and_fault_type_and_enters_currents()
+    {
+        FeederLocate.Storage.Events.SubstationRecordAmended? amended = null;
+        SubstationMeasurement? measured = null;
+        var cut = Render<RecordForm>(p => p
+            .Add(c => c.Breakers, [new SwitchId("CB-A1"), new SwitchId("CB-A2")])
+            .Add(c => c.ProtectiveDevices, [new SwitchId("CB-A1"), new SwitchId("RC-B1-1")])
+            .Add(c => c.TrippedDevice, new SwitchId("CB-A1"))
+            .Add(c => c.FaultType, (FaultType?)null)
+            .Add(c => c.OnAmend, a => amended = a)
+            .Add(c => c.OnRecord, m => measured = m));
+
+        Assert.Equal("CB-A1", cut.Find("[data-testid='record-tripped']").GetAttribute("value"));
+        cut.Find("[data-testid='record-tripped']").Change("RC-B1-1");
+        cut.Find("[data-testid='record-type']").Change("LLL");
+        cut.Find("[data-testid='record-amend']").Click();
+        cut.Find("input[aria-label='phase current A']").Change("2140");
+        cut.FindAll("button").Single(b => b.TextContent == "Enter record").Click();
+
+        Assert.Equal(new FeederLocate.Storage.Events.SubstationRecordAmended(new SwitchId("RC-B1-1"), FaultType.LLL), amended);
+        Assert.Equal(new SubstationMeasurement(new SwitchId("CB-A1"), 2140), measured);
+    }
+
+    [Fact]
+    public void Plan_steps_list_every_step_with_its_reason_and_show_who_ticked_a_done_one()
+    {
+        var ranking = FaultRanking.Rank(_grid.Graph, Incidents.Trip());
+        var plan = FeederLocate.Core.Switching.SwitchingPlanner.Plan(_grid.Graph, Incidents.Trip(), ranking);
+        var first = plan.Steps[0];
+        var done = new FeederLocate.Storage.Incidents.CompletedPlanStep(
+            new PlanStepCompleted(first.Order, PlanSteps.ActionName(first.Action), first.Device?.Value), new Actor("ana"), new DateTimeOffset(2026, 3, 1, 8, 5, 0, TimeSpan.Zero));
+        FeederLocate.Core.Switching.SwitchingStep? ticked = null;
+
+        var cut = Render<PlanSteps>(p => p.Add(c => c.Plan, plan).Add(c => c.Done, [done]).Add(c => c.OnTick, s => ticked = s));
+
+        Assert.Equal(plan.Steps.Length, cut.FindAll("ol.steps > li").Count);
+        Assert.Contains("done by ana at 08:05:00", cut.Find($"[data-testid='done-{first.Order}']").TextContent, StringComparison.Ordinal);
+        Assert.True(cut.Find($"[data-testid='tick-{first.Order}']").HasAttribute("disabled"));
+        Assert.Contains(plan.Steps, s => s.Action == FeederLocate.Core.Switching.StepAction.ProveDead);
+        Assert.Contains("prove dead", cut.Find("[data-testid='plan-steps']").TextContent, StringComparison.OrdinalIgnoreCase);
+        cut.Find($"[data-testid='tick-{plan.Steps[1].Order}']").Change(true);
+        Assert.Equal(plan.Steps[1], ticked);
+    }
+
+    private static class Incidents
+    {
+        /// <summary>CB-A1 tripped on an earth fault; the indicators on A1 saw it up to FPI-A1-11, not beyond.</summary>
+        public static Incident Trip() => new(
+            new DateTimeOffset(2026, 3, 1, 8, 0, 0, TimeSpan.Zero), null, ImmutableDictionary<SwitchId, SwitchPosition>.Empty,
+            new SwitchId("CB-A1"), FaultType.LG, [],
+            [
+                new Indication(new IndicatorId("FPI-A1-01"), IndicatorState.Forward, IndicationSource.Remote),
+                new Indication(new IndicatorId("FPI-A1-04"), IndicatorState.Fault, IndicationSource.Remote),
+                new Indication(new IndicatorId("FPI-A1-11"), IndicatorState.Forward, IndicationSource.Remote),
+                new Indication(new IndicatorId("FPI-A1-14"), IndicatorState.None, IndicationSource.Remote),
+            ]);
+    }
+}
