@@ -1,4 +1,5 @@
 using FeederLocate.Web;
+using FeederLocate.Web.Api;
 using FeederLocate.Web.Components;
 using FeederLocate.Web.Services;
 
@@ -12,6 +13,7 @@ var builder = WebApplication.CreateBuilder(new WebApplicationOptions
 builder.WebHost.UseStaticWebAssets();
 builder.Services.AddRazorComponents().AddInteractiveServerComponents();
 builder.Services.AddFeederLocate(builder.Configuration, builder.Environment.ContentRootPath);
+builder.Services.AddOpenApi();
 
 var app = builder.Build();
 if (!app.Environment.IsDevelopment())
@@ -24,6 +26,8 @@ app.UseAntiforgery();
 app.UseStaticFiles();
 app.MapStaticAssets();
 app.MapRazorComponents<App>().AddInteractiveServerRenderMode();
+app.MapIncidentApi();
+app.MapOpenApi();
 app.Lifetime.ApplicationStarted.Register(() =>
     Console.WriteLine($"FeederLocate is running at {string.Join(", ", app.Urls)} (advice only: verify on site; local switching rules govern)"));
 app.Run();

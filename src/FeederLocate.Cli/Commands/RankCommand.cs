@@ -2,6 +2,7 @@ using System.CommandLine;
 using System.Globalization;
 using FeederLocate.Cli.Input;
 using FeederLocate.Cli.Output;
+using FeederLocate.Core.Formats.Documents;
 using FeederLocate.Core.Ranking;
 
 namespace FeederLocate.Cli.Commands;

@@ -71,14 +71,31 @@ public sealed class IncidentBoard : IDisposable
         return id;
     }
 
-    public void Record(IncidentId id, IncidentEvent change, Actor actor)
+    public void Record(IncidentId id, IncidentEvent change, Actor actor) => RecordAll(id, [change], actor);
+
+    /// <summary>Appends every change in one transaction (all or none), checked against the grid when given.</summary>
+    public void RecordAll(IncidentId id, IReadOnlyList<IncidentEvent> changes, Actor actor, Core.Model.Grid? grid = null)
     {
         lock (_gate)
         {
-            _store.Append(id, change, actor);
+            _store.Append(id, changes, actor, grid);
         }
 
         Changed?.Invoke(id);
+    }
+
+    /// <summary>Opens an incident as given in the incident format.</summary>
+    public IncidentId Open(LoadedGrid grid, Incident incident, Actor actor)
+    {
+        ArgumentNullException.ThrowIfNull(grid);
+        IncidentId id;
+        lock (_gate)
+        {
+            id = _store.OpenIncident(grid.Name, incident, actor);
+        }
+
+        Changed?.Invoke(id);
+        return id;
     }
 
     public void Dispose() => _store.Dispose();

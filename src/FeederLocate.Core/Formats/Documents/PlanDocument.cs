@@ -1,10 +1,10 @@
 using FeederLocate.Core.Ranking;
 using FeederLocate.Core.Switching;
 
-namespace FeederLocate.Cli.Output;
+namespace FeederLocate.Core.Formats.Documents;
 
 /// <summary>The <c>plan</c> document: the contract's fields first, then the estimates, cautions and approximations.</summary>
-internal sealed record PlanDocument(
+public sealed record PlanDocument(
     IReadOnlyList<PlanDocument.StepEntry> Steps,
     IReadOnlyList<string> IsolatedSections,
     IReadOnlyList<PlanDocument.SectionEntry> Sections,
@@ -56,18 +56,18 @@ internal sealed record PlanDocument(
         _ => "closeWatchingU0",
     };
 
-    internal sealed record StepEntry(int Order, string Action, string? Device, string? Node, IReadOnlyList<string>? Segments, double AtMinutes, string Reason);
+    public sealed record StepEntry(int Order, string Action, string? Device, string? Node, IReadOnlyList<string>? Segments, double AtMinutes, string Reason);
 
-    internal sealed record SectionEntry(string Id, IReadOnlyList<string> Segments);
+    public sealed record SectionEntry(string Id, IReadOnlyList<string> Segments);
 
-    internal sealed record BranchEntry(string Result, string Then, int? Next, IReadOnlyList<string>? FaultIn)
+    public sealed record BranchEntry(string Result, string Then, int? Next, IReadOnlyList<string>? FaultIn)
     {
         public static BranchEntry From(TestBranch b) =>
             new(b.Result, b.Then, b.Next, b.FaultIn.IsDefaultOrEmpty ? null : [.. b.FaultIn.Select(s => s.Value)]);
     }
 
     /// <summary>One test entry; the branch fields present depend on the action.</summary>
-    internal sealed record TestEntryDocument(
+    public sealed record TestEntryDocument(
         int Order,
         string Action,
         string Device,
@@ -97,7 +97,7 @@ internal sealed record PlanDocument(
         }
     }
 
-    internal sealed record FinalStateEntry(double MinimumVoltagePu, string? MinimumVoltageNode, double MaximumLoadingPercent, string? MaximumLoadingSegment);
+    public sealed record FinalStateEntry(double MinimumVoltagePu, string? MinimumVoltageNode, double MaximumLoadingPercent, string? MaximumLoadingSegment);
 
-    internal sealed record RankingEntry(bool Consistent, string? TopSection, double TopProbability);
+    public sealed record RankingEntry(bool Consistent, string? TopSection, double TopProbability);
 }

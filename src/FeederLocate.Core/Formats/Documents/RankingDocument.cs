@@ -1,10 +1,10 @@
 using FeederLocate.Core.Formats;
 using FeederLocate.Core.Ranking;
 
-namespace FeederLocate.Cli.Output;
+namespace FeederLocate.Core.Formats.Documents;
 
 /// <summary>The <c>rank</c> document: the contract's fields first, then the reasons.</summary>
-internal sealed record RankingDocument(
+public sealed record RankingDocument(
     bool Consistent,
     IReadOnlyList<RankingDocument.SegmentEntry> Segments,
     IReadOnlyList<RankingDocument.SectionEntry> Sections,
@@ -30,11 +30,11 @@ internal sealed record RankingDocument(
         r.FaultTypeProbabilities.ToDictionary(p => p.Key.ToString(), p => p.Value),
         r.Assumptions);
 
-    internal sealed record SegmentEntry(string Id, string Section, double Probability);
+    public sealed record SegmentEntry(string Id, string Section, double Probability);
 
-    internal sealed record SectionEntry(string Id, IReadOnlyList<string> Segments, double Probability);
+    public sealed record SectionEntry(string Id, IReadOnlyList<string> Segments, double Probability);
 
-    internal sealed record SuspectEntry(
+    public sealed record SuspectEntry(
         string Segment,
         double Probability,
         string FaultType,
@@ -44,15 +44,15 @@ internal sealed record RankingDocument(
         IReadOnlyList<MeasurementEntry> Measurements,
         WindowEntry? DistanceWindowKm);
 
-    internal sealed record CheckEntry(string Indicator, string Observed, string Expected, double Probability, bool Stale, string Verdict)
+    public sealed record CheckEntry(string Indicator, string Observed, string Expected, double Probability, bool Stale, string Verdict)
     {
         public static CheckEntry From(IndicationCheck c) =>
             new(c.Indicator.Value, IncidentFormat.Name(c.Observed), IncidentFormat.Name(c.Expected), c.Probability, c.Stale, c.Verdict);
     }
 
-    internal sealed record MeasurementEntry(string Device, string Quantity, double Measured, double Predicted, double DeviationSigma);
+    public sealed record MeasurementEntry(string Device, string Quantity, double Measured, double Predicted, double DeviationSigma);
 
-    internal sealed record WindowEntry(double FromKm, double ToKm);
+    public sealed record WindowEntry(double FromKm, double ToKm);
 
-    internal sealed record PairEntry(IReadOnlyList<string> Segments, double Probability);
+    public sealed record PairEntry(IReadOnlyList<string> Segments, double Probability);
 }

@@ -1,0 +1,119 @@
+using System.Net;
+using System.Net.Http.Json;
+using System.Text;
+using System.Text.Json;
+using FeederLocate.Web.Tests.Support;
+
+namespace FeederLocate.Web.Tests.Api;
+
+public sealed class IncidentApiTests(ApiFixture app) : IClassFixture<ApiFixture>
+{
+    private const string SolidGrid = "Marrowdell 20 kV (solidly grounded)";
+
+    private static StringContent Json(string text) => new(text, Encoding.UTF8, "application/json");
+
+    private async Task<long> OpenSolidTrip()
+    {
+        var body = """
+            { "format": "feederlocate-incident/1", "reportedAt": "2026-11-30T06:12:00Z", "trippedDevice": "CB-A1", "faultType": "LG",
+              "indications": [] }
+            """;
+        var response = await app.Client.PostAsync($"/api/incidents?grid={Uri.EscapeDataString(SolidGrid)}", Json(body));
+        Assert.Equal(HttpStatusCode.Created, response.StatusCode);
+        using var created = JsonDocument.Parse(await response.Content.ReadAsStringAsync());
+        return created.RootElement.GetProperty("id").GetInt64();
+    }
+
+    [Fact]
+    public async Task Telecontrol_posts_a_batch_of_indications_and_reads_the_ranking_and_the_plan()
+    {
+        var id = await OpenSolidTrip();
+        var batch = """
+            [ { "indicator": "FPI-A1-01", "state": "forward", "source": "remote", "readAt": "2026-11-30T06:12:30Z" },
+              { "indicator": "FPI-A1-04", "state": "fault", "source": "remote" },
+              { "indicator": "FPI-A1-11", "state": "forward", "source": "remote" },
+              { "indicator": "FPI-A1-14", "state": "none", "source": "remote" } ]
+            """;
+
+        var posted = await app.Client.PostAsync($"/api/incidents/{id}/indications", Json(batch));
+        var record = await app.Client.PostAsync($"/api/incidents/{id}/measurements", Json("""{ "device": "CB-A1", "phaseCurrentA": 1880 }"""));
+        var ranking = await app.Client.GetFromJsonAsync<JsonElement>($"/api/incidents/{id}/ranking");
+        var plan = await app.Client.GetFromJsonAsync<JsonElement>($"/api/incidents/{id}/plan");
+
+        Assert.Equal(HttpStatusCode.Accepted, posted.StatusCode);
+        Assert.Equal(HttpStatusCode.Accepted, record.StatusCode);
+        Assert.Equal("SEC-S108", ranking.GetProperty("sections")[0].GetProperty("id").GetString());
+        Assert.Equal(1.0, ranking.GetProperty("sections").EnumerateArray().Sum(s => s.GetProperty("probability").GetDouble()), 1e-9);
+        Assert.Equal("SEC-S108", plan.GetProperty("isolatedSections")[0].GetString());
+        Assert.Contains(plan.GetProperty("steps").EnumerateArray(), s => s.GetProperty("action").GetString() == "proveDead");
+    }
+
+    [Fact]
+    public async Task A_bad_indication_is_a_400_naming_the_element_and_field_and_nothing_is_kept()
+    {
+        var id = await OpenSolidTrip();
+        var batch = """
+            [ { "indicator": "FPI-A1-01", "state": "forward", "source": "remote" },
+              { "indicator": "FPI-A1-04", "state": "sideways", "source": "remote" } ]
+            """;
+
+        var response = await app.Client.PostAsync($"/api/incidents/{id}/indications", Json(batch));
+        var incident = await app.Client.GetFromJsonAsync<JsonElement>($"/api/incidents/{id}");
+
+        Assert.Equal(HttpStatusCode.BadRequest, response.StatusCode);
+        var error = await response.Content.ReadFromJsonAsync<JsonElement>();
+        var problem = error.GetProperty("problems")[0];
+        Assert.Equal("indication", problem.GetProperty("elementKind").GetString());
+        Assert.Equal("FPI-A1-04", problem.GetProperty("elementId").GetString());
+        Assert.Equal("state", problem.GetProperty("field").GetString());
+        Assert.Equal(1, incident.GetProperty("events").GetInt32());
+    }
+
+    [Fact]
+    public async Task Opening_an_incident_on_an_unknown_grid_or_with_a_bad_body_is_a_400()
+    {
+        var unknownGrid = await app.Client.PostAsync("/api/incidents?grid=Nowhere", Json("{}"));
+        var badBody = await app.Client.PostAsync($"/api/incidents?grid={Uri.EscapeDataString(SolidGrid)}",
+            Json("""{ "format": "feederlocate-incident/1", "reportedAt": "yesterday", "faultType": "LG", "indications": [] }"""));
+
+        Assert.Equal(HttpStatusCode.BadRequest, unknownGrid.StatusCode);
+        Assert.Equal(HttpStatusCode.BadRequest, badBody.StatusCode);
+        var problem = (await badBody.Content.ReadFromJsonAsync<JsonElement>()).GetProperty("problems")[0];
+        Assert.Equal("reportedAt", problem.GetProperty("field").GetString());
+    }
+
+    [Fact]
+    public async Task An_outcome_is_logged_and_an_unknown_segment_refused()
+    {
+        var id = await OpenSolidTrip();
+
+        var bad = await app.Client.PostAsync($"/api/incidents/{id}/outcome", Json("""{ "segment": "S999" }"""));
+        var good = await app.Client.PostAsync($"/api/incidents/{id}/outcome", Json("""{ "segment": "S109", "faultType": "LG", "cause": "tree contact" }"""));
+        var incident = await app.Client.GetFromJsonAsync<JsonElement>($"/api/incidents/{id}");
+
+        Assert.Equal(HttpStatusCode.BadRequest, bad.StatusCode);
+        Assert.Equal(HttpStatusCode.Accepted, good.StatusCode);
+        Assert.Equal("S109", incident.GetProperty("confirmedSegment").GetString());
+    }
+
+    [Fact]
+    public async Task An_unknown_incident_is_a_404_and_an_oversized_body_is_refused()
+    {
+        var missing = await app.Client.GetAsync("/api/incidents/999999/ranking");
+        var huge = await app.Client.PostAsync($"/api/incidents/{await OpenSolidTrip()}/indications", Json(new string(' ', 1_100_000) + "[]"));
+
+        Assert.Equal(HttpStatusCode.NotFound, missing.StatusCode);
+        Assert.Equal(HttpStatusCode.RequestEntityTooLarge, huge.StatusCode);
+    }
+
+    [Fact]
+    public async Task The_app_serves_an_OpenAPI_document_describing_the_endpoints()
+    {
+        var document = await app.Client.GetFromJsonAsync<JsonElement>("/openapi/v1.json");
+
+        var paths = document.GetProperty("paths").EnumerateObject().Select(p => p.Name).ToList();
+        Assert.Contains("/api/incidents", paths);
+        Assert.Contains("/api/incidents/{id}/indications", paths);
+        Assert.Contains("/api/incidents/{id}/ranking", paths);
+    }
+}
