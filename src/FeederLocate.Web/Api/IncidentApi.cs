@@ -36,13 +36,13 @@ public static class IncidentApi
             PostEvidence(id, request, board, grids, "measurements"));
         api.MapGet("/incidents/{id:long}/ranking", (long id, IncidentBoard board, GridCatalog grids, IncidentAnalysis analysis) =>
             WithIncident(board, id, state => grids.Find(state.GridName) is not { } grid
-                ? Results.Conflict(ApiError.Single("grid not loaded", "incident", id.ToString(System.Globalization.CultureInfo.InvariantCulture), "grid", $"\"{state.GridName}\" is not loaded"))
+                ? GridNotLoaded(id, state)
                 : analysis.Rank(grid, state) is { Result: { } ranking }
                     ? Results.Json(RankingDocument.From(ranking), DocumentJson.Options)
                     : Results.UnprocessableEntity(ApiError.Single("cannot rank", "incident", id.ToString(System.Globalization.CultureInfo.InvariantCulture), "switchStates", analysis.Rank(grid, state).Problem ?? "no ranking"))));
         api.MapGet("/incidents/{id:long}/plan", (long id, IncidentBoard board, GridCatalog grids, IncidentAnalysis analysis) =>
             WithIncident(board, id, state => grids.Find(state.GridName) is not { } grid
-                ? Results.Conflict(ApiError.Single("grid not loaded", "incident", id.ToString(System.Globalization.CultureInfo.InvariantCulture), "grid", $"\"{state.GridName}\" is not loaded"))
+                ? GridNotLoaded(id, state)
                 : analysis.Plan(grid, state) is { Plan: { } plan } && analysis.Rank(grid, state).Result is { } ranking
                     ? Results.Json(PlanDocument.From(plan, ranking), DocumentJson.Options)
                     : Results.UnprocessableEntity(ApiError.Single("cannot plan", "incident", id.ToString(System.Globalization.CultureInfo.InvariantCulture), "plan", analysis.Plan(grid, state).Problem ?? "no plan"))));
@@ -84,7 +84,7 @@ public static class IncidentApi
         {
             if (grids.Find(state.GridName) is not { } grid)
             {
-                return Results.Conflict(ApiError.Single("grid not loaded", "incident", id.ToString(System.Globalization.CultureInfo.InvariantCulture), "grid", $"\"{state.GridName}\" is not loaded"));
+                return GridNotLoaded(id, state);
             }
 
             JsonNode? body;
@@ -135,7 +135,7 @@ public static class IncidentApi
         {
             if (grids.Find(state.GridName) is not { } grid)
             {
-                return Results.Conflict(ApiError.Single("grid not loaded", "incident", id.ToString(System.Globalization.CultureInfo.InvariantCulture), "grid", $"\"{state.GridName}\" is not loaded"));
+                return GridNotLoaded(id, state);
             }
 
             OutcomeBody? body;
@@ -163,6 +163,9 @@ public static class IncidentApi
             return Results.Accepted($"/api/incidents/{id}", new { accepted = 1 });
         });
     }
+
+    private static IResult GridNotLoaded(long id, IncidentState state) =>
+        Results.Conflict(ApiError.Single("grid not loaded", "incident", id.ToString(System.Globalization.CultureInfo.InvariantCulture), "grid", $"\"{state.GridName}\" is not loaded"));
 
     private static IResult WithIncident(IncidentBoard board, long id, Func<IncidentState, IResult> action)
     {
