@@ -34,7 +34,10 @@ public static class SequenceFault
         Complex zeroSequenceBusAdmittanceS,
         double faultResistanceOhm)
     {
-        ArgumentOutOfRangeException.ThrowIfNegative(faultResistanceOhm);
+        if (faultResistanceOhm < 0)
+        {
+            throw new ArgumentOutOfRangeException(nameof(faultResistanceOhm), faultResistanceOhm, "must be >= 0");
+        }
         var e = new Complex(phaseVoltageV, 0);
         var z1 = positiveSequenceOhm;
         var y0 = zeroSequenceBusAdmittanceS;

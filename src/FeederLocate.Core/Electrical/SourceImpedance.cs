@@ -37,7 +37,10 @@ public static class SourceImpedance
     {
         CheckVoltageFactor(voltageFactor);
         ArgumentOutOfRangeException.ThrowIfNegativeOrZero(shortCircuitMva);
-        ArgumentOutOfRangeException.ThrowIfNegative(rOverX);
+        if (rOverX < 0)
+        {
+            throw new ArgumentOutOfRangeException(nameof(rOverX), rOverX, "must be >= 0");
+        }
         var magnitudeOhm = voltageFactor * nominalVoltageKv * nominalVoltageKv / shortCircuitMva;
         var reactanceOhm = magnitudeOhm / Math.Sqrt(1 + (rOverX * rOverX));
         return new Complex(rOverX * reactanceOhm, reactanceOhm);

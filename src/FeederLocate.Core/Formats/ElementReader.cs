@@ -10,6 +10,9 @@ namespace FeederLocate.Core.Formats;
 /// </summary>
 internal sealed class ElementReader
 {
+    /// <summary>The largest magnitude any number in a grid or incident file may have.</summary>
+    public const double MaximumMagnitude = 1e9;
+
     private readonly JsonElement _element;
     private readonly IssueLog _log;
     private readonly HashSet<string> _asked = new(StringComparer.Ordinal);
@@ -214,9 +217,19 @@ internal sealed class ElementReader
             return null;
         }
 
+        // -0 is 0: it must not pass the checks as zero and then fail a sign test later.
+        number += 0.0;
+
         if (!range.Contains(number))
         {
             Error(field, $"must be {range}, got {Format(number)}");
+            return null;
+        }
+
+        // No physical quantity of a distribution grid comes near this; beyond it sums overflow.
+        if (Math.Abs(number) > MaximumMagnitude)
+        {
+            Error(field, $"must be at most {Format(MaximumMagnitude)} in magnitude, got {Format(number)}");
             return null;
         }
 

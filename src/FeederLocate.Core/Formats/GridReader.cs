@@ -14,6 +14,25 @@ public static class GridReader
     /// <summary>Reads and checks grid JSON text. Never throws for bad data.</summary>
     public static LoadResult<Grid> Parse(string json)
     {
+        try
+        {
+            return Read(json);
+        }
+        catch (InvalidOperationException e) when (e.Message.Contains("UTF", StringComparison.OrdinalIgnoreCase) || e.Message.Contains("surrogate", StringComparison.OrdinalIgnoreCase) || e.InnerException is System.Text.DecoderFallbackException)
+        {
+            return new LoadResult<Grid>(null, [NotText(GridKind)]);
+        }
+        catch (ArgumentException)
+        {
+            return new LoadResult<Grid>(null, [NotText(GridKind)]);
+        }
+    }
+
+    internal static ValidationIssue NotText(string kind) =>
+        new(Severity.Error, kind, "file", string.Empty, "holds a string that is not valid Unicode text (an escaped lone surrogate such as \\uD800)");
+
+    private static LoadResult<Grid> Read(string json)
+    {
         var log = new IssueLog();
         using var document = JsonText.Parse(json, GridKind, log);
         if (document is null)
@@ -244,7 +263,7 @@ public static class GridReader
             r.RequiredBool("directional") ?? false,
             r.RequiredBool("remote") ?? false,
             r.OptionalNumber("resetMinutes", NumberRange.Positive));
-        if (!r.Has("phasePickupA") && !r.Has("earthPickupA"))
+        if (indicator.PhasePickupA is null && indicator.EarthPickupA is null)
         {
             r.Error("phasePickupA", "or earthPickupA is required: an indicator needs at least one element");
         }

@@ -16,7 +16,7 @@ public static class GridWriter
             w.WriteStartObject();
             w.WriteString("format", GridFormat.FormatTag);
             w.WriteString("name", grid.Name);
-            w.WriteNumber("frequencyHz", grid.FrequencyHz);
+            Number(w, "frequencyHz", grid.FrequencyHz);
             Array(w, "lineTypes", grid.LineTypes, WriteLineType);
             Array(w, "substations", grid.Substations, WriteSubstation);
             Array(w, "nodes", grid.Nodes, WriteNode);
@@ -26,7 +26,7 @@ public static class GridWriter
                 w.WriteString("from", s.From.Value);
                 w.WriteString("to", s.To.Value);
                 w.WriteString("lineType", s.LineType.Value);
-                w.WriteNumber("lengthKm", s.LengthKm);
+                Number(w, "lengthKm", s.LengthKm);
             });
             Array(w, "switches", grid.Switches, (w, s) =>
             {
@@ -59,12 +59,12 @@ public static class GridWriter
     {
         w.WriteString("id", t.Id.Value);
         w.WriteString("construction", GridFormat.Name(t.Construction));
-        w.WriteNumber("r1OhmPerKm", t.R1OhmPerKm);
-        w.WriteNumber("x1OhmPerKm", t.X1OhmPerKm);
-        w.WriteNumber("r0OhmPerKm", t.R0OhmPerKm);
-        w.WriteNumber("x0OhmPerKm", t.X0OhmPerKm);
-        w.WriteNumber("c0NfPerKm", t.C0NfPerKm);
-        w.WriteNumber("ampacityA", t.AmpacityA);
+        Number(w, "r1OhmPerKm", t.R1OhmPerKm);
+        Number(w, "x1OhmPerKm", t.X1OhmPerKm);
+        Number(w, "r0OhmPerKm", t.R0OhmPerKm);
+        Number(w, "x0OhmPerKm", t.X0OhmPerKm);
+        Number(w, "c0NfPerKm", t.C0NfPerKm);
+        Number(w, "ampacityA", t.AmpacityA);
         Optional(w, "faultsPer100KmYear", t.FaultsPer100KmYear);
         Optional(w, "description", t.Description);
         Optional(w, "conductorMaterial", t.ConductorMaterial);
@@ -76,25 +76,25 @@ public static class GridWriter
     {
         w.WriteString("id", s.Id.Value);
         w.WriteString("busNode", s.BusNode.Value);
-        w.WriteNumber("nominalVoltageKv", s.NominalVoltageKv);
+        Number(w, "nominalVoltageKv", s.NominalVoltageKv);
         switch (s.Supply)
         {
             case BusbarShortCircuit b:
-                w.WriteNumber("shortCircuitMva", b.ShortCircuitMva);
-                w.WriteNumber("rOverX", b.ROverX);
+                Number(w, "shortCircuitMva", b.ShortCircuitMva);
+                Number(w, "rOverX", b.ROverX);
                 break;
             case UpstreamViaTransformer u:
                 w.WriteStartObject("upstream");
-                w.WriteNumber("nominalVoltageKv", u.Upstream.NominalVoltageKv);
-                w.WriteNumber("shortCircuitMva", u.Upstream.ShortCircuitMva);
-                w.WriteNumber("rOverX", u.Upstream.ROverX);
+                Number(w, "nominalVoltageKv", u.Upstream.NominalVoltageKv);
+                Number(w, "shortCircuitMva", u.Upstream.ShortCircuitMva);
+                Number(w, "rOverX", u.Upstream.ROverX);
                 w.WriteEndObject();
                 w.WriteStartObject("transformer");
-                w.WriteNumber("ratedMva", u.Transformer.RatedMva);
-                w.WriteNumber("hvKv", u.Transformer.HvKv);
-                w.WriteNumber("mvKv", u.Transformer.MvKv);
-                w.WriteNumber("ukrPercent", u.Transformer.UkrPercent);
-                w.WriteNumber("pkrKw", u.Transformer.PkrKw);
+                Number(w, "ratedMva", u.Transformer.RatedMva);
+                Number(w, "hvKv", u.Transformer.HvKv);
+                Number(w, "mvKv", u.Transformer.MvKv);
+                Number(w, "ukrPercent", u.Transformer.UkrPercent);
+                Number(w, "pkrKw", u.Transformer.PkrKw);
                 w.WriteEndObject();
                 break;
         }
@@ -102,8 +102,8 @@ public static class GridWriter
         if (s.TransformerZ0Ohm is { } z0)
         {
             w.WriteStartObject("transformerZ0Ohm");
-            w.WriteNumber("r", z0.ResistanceOhm);
-            w.WriteNumber("x", z0.ReactanceOhm);
+            Number(w, "r", z0.ResistanceOhm);
+            Number(w, "x", z0.ReactanceOhm);
             w.WriteEndObject();
         }
 
@@ -114,22 +114,22 @@ public static class GridWriter
         // Every parameter that is set is written, whatever the scheme, so a round trip changes nothing.
         if (g.Scheme == GroundingScheme.Resonant || g.DetuningPercent != 0)
         {
-            w.WriteNumber("detuningPercent", g.DetuningPercent);
+            Number(w, "detuningPercent", g.DetuningPercent);
         }
 
         if (g.Scheme == GroundingScheme.Resonant || g.DampingPercent != 0)
         {
-            w.WriteNumber("dampingPercent", g.DampingPercent);
+            Number(w, "dampingPercent", g.DampingPercent);
         }
 
         if (g.Scheme == GroundingScheme.Impedance || g.NeutralResistanceOhm != 0)
         {
-            w.WriteNumber("neutralResistanceOhm", g.NeutralResistanceOhm);
+            Number(w, "neutralResistanceOhm", g.NeutralResistanceOhm);
         }
 
         if (g.NeutralReactanceOhm != 0)
         {
-            w.WriteNumber("neutralReactanceOhm", g.NeutralReactanceOhm);
+            Number(w, "neutralReactanceOhm", g.NeutralReactanceOhm);
         }
 
         w.WriteEndObject();
@@ -140,13 +140,13 @@ public static class GridWriter
         w.WriteString("id", n.Id.Value);
         if (n.LoadKw != 0)
         {
-            w.WriteNumber("loadKw", n.LoadKw);
+            Number(w, "loadKw", n.LoadKw);
         }
 
         Optional(w, "loadKvar", n.LoadKvar);
         if (n.Customers != 0)
         {
-            w.WriteNumber("customers", n.Customers);
+            Number(w, "customers", n.Customers);
         }
 
         Optional(w, "x", n.X);
@@ -166,11 +166,14 @@ public static class GridWriter
         w.WriteEndArray();
     }
 
+    /// <summary>Writes a number, −0 as 0, so what is written reads back and writes again the same.</summary>
+    private static void Number(Utf8JsonWriter w, string name, double value) => w.WriteNumber(name, value + 0.0);
+
     private static void Optional(Utf8JsonWriter w, string name, double? value)
     {
         if (value is { } v)
         {
-            w.WriteNumber(name, v);
+            Number(w, name, v);
         }
     }
 

@@ -17,6 +17,22 @@ public static class IncidentReader
 
     public static LoadResult<Incident> Parse(string json, Grid? grid)
     {
+        try
+        {
+            return Read(json, grid);
+        }
+        catch (InvalidOperationException e) when (e.Message.Contains("UTF", StringComparison.OrdinalIgnoreCase) || e.Message.Contains("surrogate", StringComparison.OrdinalIgnoreCase) || e.InnerException is System.Text.DecoderFallbackException)
+        {
+            return new LoadResult<Incident>(null, [GridReader.NotText(IncidentKind)]);
+        }
+        catch (ArgumentException)
+        {
+            return new LoadResult<Incident>(null, [GridReader.NotText(IncidentKind)]);
+        }
+    }
+
+    private static LoadResult<Incident> Read(string json, Grid? grid)
+    {
         var log = new IssueLog();
         using var document = JsonText.Parse(json, IncidentKind, log);
         if (document is null)

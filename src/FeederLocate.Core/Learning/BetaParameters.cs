@@ -59,7 +59,10 @@ public sealed record BetaParameters
     /// <summary>The conjugate update: Beta(a + <paramref name="successes"/>, b + <paramref name="trials"/> − successes).</summary>
     public BetaParameters Update(int successes, int trials)
     {
-        ArgumentOutOfRangeException.ThrowIfNegative(successes);
+        if (successes < 0)
+        {
+            throw new ArgumentOutOfRangeException(nameof(successes), successes, "must be >= 0");
+        }
         ArgumentOutOfRangeException.ThrowIfLessThan(trials, successes);
         return new BetaParameters(A + successes, B + (trials - successes));
     }

@@ -40,7 +40,10 @@ public sealed record GammaParameters
     /// <summary>The conjugate update: Gamma(α + <paramref name="events"/>, β + <paramref name="exposure"/>).</summary>
     public GammaParameters Update(int events, double exposure)
     {
-        ArgumentOutOfRangeException.ThrowIfNegative(events);
+        if (events < 0)
+        {
+            throw new ArgumentOutOfRangeException(nameof(events), events, "must be >= 0");
+        }
         if (!double.IsFinite(exposure) || exposure < 0)
         {
             throw new ArgumentOutOfRangeException(nameof(exposure), exposure, "exposure must be finite and ≥ 0");

@@ -15,7 +15,10 @@ public static class CustomerMinutes
     public static double Interrupted(int customersAtStart, IReadOnlyList<SupplyChange> changes, TimeSpan horizon)
     {
         ArgumentNullException.ThrowIfNull(changes);
-        ArgumentOutOfRangeException.ThrowIfNegative(customersAtStart);
+        if (customersAtStart < 0)
+        {
+            throw new ArgumentOutOfRangeException(nameof(customersAtStart), customersAtStart, "must be >= 0");
+        }
         var total = 0.0;
         var since = TimeSpan.Zero;
         var without = customersAtStart;
