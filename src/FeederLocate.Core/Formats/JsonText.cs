@@ -10,6 +10,7 @@ internal static class JsonText
         CommentHandling = JsonCommentHandling.Skip,
         AllowTrailingCommas = true,
         MaxDepth = 64,
+        AllowDuplicateProperties = false,
     };
 
     public static JsonDocument? Parse(string text, string kind, IssueLog log)

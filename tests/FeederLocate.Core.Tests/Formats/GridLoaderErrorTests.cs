@@ -159,3 +159,15 @@ public class GridLoaderErrorTests
     internal static LoadResult<Grid> Load(string name) =>
         GridReader.Parse(RepositoryFiles.Read("tests", "FeederLocate.Core.Tests", "Formats", "BrokenGrids", $"{name}.grid.json"));
 }
+
+public class DuplicateFieldTests
+{
+    [Fact]
+    public void A_field_given_twice_is_an_error_naming_it_not_a_silent_choice()
+    {
+        var result = FeederLocate.Core.Formats.GridReader.Parse("""{ "format": "feederlocate-grid/1", "frequencyHz": 50, "frequencyHz": 60 }""");
+
+        Assert.False(result.Succeeded);
+        Assert.Contains(result.Errors, e => e.ToString().Contains("frequencyHz", StringComparison.Ordinal));
+    }
+}
