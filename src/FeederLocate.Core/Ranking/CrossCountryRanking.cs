@@ -187,15 +187,7 @@ internal static class CrossCountryRanking
     }
 
     private static ImmutableArray<IndicationCheck> Checks(RankingComputation computation, IndicatorState[] expected) =>
-        [.. computation.Observed.Select((o, i) => new IndicationCheck(
-            o.Indicator.Id,
-            o.Indication.State,
-            expected[i],
-            expected[i] == o.Indication.State,
-            IndicationLikelihood.Probability(o.Indicator, o.Rates, expected[i], o.Indication.State),
-            1 - IndicationLikelihood.Probability(o.Indicator, o.Rates, expected[i], expected[i]),
-            o.Stale,
-            IndicationLikelihood.Describe(expected[i], o.Indication.State)))];
+        [.. computation.Observed.Select((o, i) => SuspectExplainer.Check(o, expected[i]))];
 
     private static ImmutableArray<MeasurementCheck> MeasurementChecks(RankingComputation computation, (double PhaseA, double ResidualA)[] predicted)
     {

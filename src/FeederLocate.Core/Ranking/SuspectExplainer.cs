@@ -12,14 +12,22 @@ internal static class SuspectExplainer
     {
         var fault = computation.Model.Solve(segment, position, best.Type, best.FaultResistanceOhm);
         var expected = computation.ExpectedStates(segment, fault);
-        return [.. computation.Observed.Select((o, i) =>
-        {
-            var observed = o.Indication.State;
-            var probability = IndicationLikelihood.Probability(o.Indicator, o.Rates, expected[i], observed);
-            var error = 1 - IndicationLikelihood.Probability(o.Indicator, o.Rates, expected[i], expected[i]);
-            return new IndicationCheck(o.Indicator.Id, observed, expected[i], expected[i] == observed, probability, error, o.Stale,
-                IndicationLikelihood.Describe(expected[i], observed));
-        })];
+        return [.. computation.Observed.Select((o, i) => Check(o, expected[i]))];
+    }
+
+    /// <summary>One observed indication against the state the suspect makes it expected to show.</summary>
+    public static IndicationCheck Check(ObservedIndication o, IndicatorState expected)
+    {
+        var observed = o.Indication.State;
+        return new IndicationCheck(
+            o.Indicator.Id,
+            observed,
+            expected,
+            expected == observed,
+            IndicationLikelihood.Probability(o.Indicator, o.Rates, expected, observed),
+            1 - IndicationLikelihood.Probability(o.Indicator, o.Rates, expected, expected),
+            o.Stale,
+            IndicationLikelihood.Describe(expected, observed));
     }
 
     public static SuspectExplanation Explain(RankingComputation computation, SegmentScore score, double probability, DistanceCalculator distances, bool refined = false, bool withWindow = true)
