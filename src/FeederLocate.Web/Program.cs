@@ -1,36 +1,6 @@
 using FeederLocate.Web;
-using FeederLocate.Web.Api;
-using FeederLocate.Web.Components;
-using FeederLocate.Web.Services;
 
-var builder = WebApplication.CreateBuilder(new WebApplicationOptions
-{
-    Args = args,
-    WebRootPath = WebRoot.Find(AppContext.BaseDirectory, Directory.GetCurrentDirectory()),
-});
-
-// Blazor's own script comes from the framework's static web assets, in every environment.
-builder.WebHost.UseStaticWebAssets();
-builder.Services.AddRazorComponents().AddInteractiveServerComponents();
-builder.Services.AddFeederLocate(builder.Configuration, builder.Environment.ContentRootPath);
-builder.Services.AddOpenApi();
-
-var app = builder.Build();
-if (!app.Environment.IsDevelopment())
-{
-    app.UseExceptionHandler("/Error", createScopeForErrors: true);
-}
-
-app.UseStatusCodePagesWithReExecute("/not-found", createScopeForStatusCodePages: true);
-app.UseAntiforgery();
-app.UseStaticFiles();
-app.MapStaticAssets();
-app.MapRazorComponents<App>().AddInteractiveServerRenderMode();
-app.MapIncidentApi();
-app.MapOpenApi();
-app.Lifetime.ApplicationStarted.Register(() =>
-    Console.WriteLine($"FeederLocate is running at {string.Join(", ", app.Urls)} (advice only: verify on site; local switching rules govern)"));
-app.Run();
+FeederLocateWebApp.Build(args).Run();
 
 /// <summary>The entry point, visible to the tests' web application factory.</summary>
 public partial class Program;

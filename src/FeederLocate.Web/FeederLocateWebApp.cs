@@ -1,0 +1,42 @@
+using FeederLocate.Web.Api;
+using FeederLocate.Web.Components;
+using FeederLocate.Web.Services;
+
+namespace FeederLocate.Web;
+
+/// <summary>The web app, built the same way for the program, the tests and the load test.</summary>
+public static class FeederLocateWebApp
+{
+    /// <summary>Builds the app from command-line style arguments (for instance <c>--urls</c>, <c>--FeederLocate:DatabasePath=…</c>).</summary>
+    public static WebApplication Build(string[] args)
+    {
+        var builder = WebApplication.CreateBuilder(new WebApplicationOptions
+        {
+            Args = args,
+            WebRootPath = WebRoot.Find(AppContext.BaseDirectory, Directory.GetCurrentDirectory()),
+        });
+
+        // Blazor's own script comes from the framework's static web assets, in every environment.
+        builder.WebHost.UseStaticWebAssets();
+        builder.Services.AddRazorComponents().AddInteractiveServerComponents();
+        builder.Services.AddFeederLocate(builder.Configuration, builder.Environment.ContentRootPath);
+        builder.Services.AddOpenApi();
+
+        var app = builder.Build();
+        if (!app.Environment.IsDevelopment())
+        {
+            app.UseExceptionHandler("/Error", createScopeForErrors: true);
+        }
+
+        app.UseStatusCodePagesWithReExecute("/not-found", createScopeForStatusCodePages: true);
+        app.UseAntiforgery();
+        app.UseStaticFiles();
+        app.MapStaticAssets();
+        app.MapRazorComponents<App>().AddInteractiveServerRenderMode();
+        app.MapIncidentApi();
+        app.MapOpenApi();
+        app.Lifetime.ApplicationStarted.Register(() =>
+            Console.WriteLine($"FeederLocate is running at {string.Join(", ", app.Urls)} (advice only: verify on site; local switching rules govern)"));
+        return app;
+    }
+}
