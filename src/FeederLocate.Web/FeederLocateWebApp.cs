@@ -1,5 +1,6 @@
 using FeederLocate.Web.Api;
 using FeederLocate.Web.Components;
+using FeederLocate.Web.Security;
 using FeederLocate.Web.Services;
 
 namespace FeederLocate.Web;
@@ -29,12 +30,19 @@ public static class FeederLocateWebApp
         }
 
         app.UseStatusCodePagesWithReExecute("/not-found", createScopeForStatusCodePages: true);
-        app.UseAntiforgery();
         app.UseStaticFiles();
+        app.UseAuthentication();
+        app.UseAuthorization();
+        app.UseAntiforgery();
         app.MapStaticAssets();
         app.MapRazorComponents<App>().AddInteractiveServerRenderMode();
+        app.MapAccountEndpoints();
         app.MapIncidentApi();
-        app.MapOpenApi();
+        app.MapOpenApi().AllowAnonymous();
+
+        var options = app.Services.GetRequiredService<FeederLocateOptions>();
+        FirstRunAdministrator.Ensure(app.Services.GetRequiredService<AccountDirectory>(),
+            options.AdministratorPassword ?? Environment.GetEnvironmentVariable(FirstRunAdministrator.EnvironmentVariable), Console.Out);
         app.Lifetime.ApplicationStarted.Register(() =>
             Console.WriteLine($"FeederLocate is running at {string.Join(", ", app.Urls)} (advice only: verify on site; local switching rules govern)"));
         return app;

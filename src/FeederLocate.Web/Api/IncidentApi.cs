@@ -7,6 +7,8 @@ using FeederLocate.Core.Model;
 using FeederLocate.Storage.Errors;
 using FeederLocate.Storage.Events;
 using FeederLocate.Storage.Incidents;
+using System.Security.Claims;
+using FeederLocate.Web.Security;
 using FeederLocate.Web.Services;
 using Microsoft.AspNetCore.Mvc;
 
@@ -20,41 +22,44 @@ namespace FeederLocate.Web.Api;
 public static class IncidentApi
 {
     public const long MaximumBodyBytes = 1_000_000;
-    private static readonly Actor Integration = new("api", "operator");
 
     public static IEndpointRouteBuilder MapIncidentApi(this IEndpointRouteBuilder app)
     {
-        var api = app.MapGroup("/api").WithTags("FeederLocate").WithMetadata(new RequestSizeLimitAttribute(MaximumBodyBytes));
-        api.MapGet("/grids", (GridCatalog grids) => grids.All.Select(g => new GridEntry(
+        var api = app.MapGroup("/api").WithTags("FeederLocate").WithMetadata(new RequestSizeLimitAttribute(MaximumBodyBytes))
+            .RequireAuthorization(AccessPolicies.ApiRead);
+        api.MapGet("/grids", (ClaimsPrincipal user, GridCatalog grids) => grids.All.Where(g => AccountClaims.MaySee(user, g.Name)).Select(g => new GridEntry(
             g.Name, g.Key, g.Grid.Substations.Length, g.Grid.Segments.Length, g.Graph.Sections.All.Length, g.Grid.Indicators.Length)));
-        api.MapGet("/incidents", (IncidentBoard board) => board.List().Select(IncidentEntry.Of));
-        api.MapPost("/incidents", OpenIncident);
-        api.MapGet("/incidents/{id:long}", (long id, IncidentBoard board) => WithIncident(board, id, state => Results.Ok(IncidentEntry.Of(IncidentSummary.Of(state)))));
-        api.MapPost("/incidents/{id:long}/indications", (long id, HttpRequest request, IncidentBoard board, GridCatalog grids) =>
-            PostEvidence(id, request, board, grids, "indications"));
-        api.MapPost("/incidents/{id:long}/measurements", (long id, HttpRequest request, IncidentBoard board, GridCatalog grids) =>
-            PostEvidence(id, request, board, grids, "measurements"));
-        api.MapGet("/incidents/{id:long}/ranking", (long id, IncidentBoard board, GridCatalog grids, IncidentAnalysis analysis) =>
-            WithIncident(board, id, state => grids.Find(state.GridName) is not { } grid
+        api.MapGet("/incidents", (ClaimsPrincipal user, IncidentBoard board) =>
+            board.List().Where(i => AccountClaims.MaySee(user, i.GridName)).Select(IncidentEntry.Of));
+        api.MapPost("/incidents", OpenIncident).RequireAuthorization(AccessPolicies.ApiWrite);
+        api.MapGet("/incidents/{id:long}", (long id, ClaimsPrincipal user, IncidentBoard board) =>
+            WithIncident(board, user, id, state => Results.Ok(IncidentEntry.Of(IncidentSummary.Of(state)))));
+        api.MapPost("/incidents/{id:long}/indications", (long id, ClaimsPrincipal user, HttpRequest request, IncidentBoard board, GridCatalog grids) =>
+            PostEvidence(id, user, request, board, grids, "indications")).RequireAuthorization(AccessPolicies.ApiWrite);
+        api.MapPost("/incidents/{id:long}/measurements", (long id, ClaimsPrincipal user, HttpRequest request, IncidentBoard board, GridCatalog grids) =>
+            PostEvidence(id, user, request, board, grids, "measurements")).RequireAuthorization(AccessPolicies.ApiWrite);
+        api.MapGet("/incidents/{id:long}/ranking", (long id, ClaimsPrincipal user, IncidentBoard board, GridCatalog grids, IncidentAnalysis analysis) =>
+            WithIncident(board, user, id, state => grids.Find(state.GridName) is not { } grid
                 ? GridNotLoaded(id, state)
                 : analysis.Rank(grid, state) is { Result: { } ranking }
                     ? Results.Json(RankingDocument.From(ranking), DocumentJson.Options)
-                    : Results.UnprocessableEntity(ApiError.Single("cannot rank", "incident", id.ToString(System.Globalization.CultureInfo.InvariantCulture), "switchStates", analysis.Rank(grid, state).Problem ?? "no ranking"))));
-        api.MapGet("/incidents/{id:long}/plan", (long id, IncidentBoard board, GridCatalog grids, IncidentAnalysis analysis) =>
-            WithIncident(board, id, state => grids.Find(state.GridName) is not { } grid
+                    : Results.UnprocessableEntity(ApiError.Single("cannot rank", "incident", Text(id), "switchStates", analysis.Rank(grid, state).Problem ?? "no ranking"))));
+        api.MapGet("/incidents/{id:long}/plan", (long id, ClaimsPrincipal user, IncidentBoard board, GridCatalog grids, IncidentAnalysis analysis) =>
+            WithIncident(board, user, id, state => grids.Find(state.GridName) is not { } grid
                 ? GridNotLoaded(id, state)
                 : analysis.Plan(grid, state) is { Plan: { } plan } && analysis.Rank(grid, state).Result is { } ranking
                     ? Results.Json(PlanDocument.From(plan, ranking), DocumentJson.Options)
-                    : Results.UnprocessableEntity(ApiError.Single("cannot plan", "incident", id.ToString(System.Globalization.CultureInfo.InvariantCulture), "plan", analysis.Plan(grid, state).Problem ?? "no plan"))));
-        api.MapPost("/incidents/{id:long}/outcome", PostOutcome);
+                    : Results.UnprocessableEntity(ApiError.Single("cannot plan", "incident", Text(id), "plan", analysis.Plan(grid, state).Problem ?? "no plan"))));
+        api.MapPost("/incidents/{id:long}/outcome", PostOutcome).RequireAuthorization(AccessPolicies.ApiWrite);
         return app;
     }
 
-    private static async Task<IResult> OpenIncident(HttpRequest request, string? grid, IncidentBoard board, GridCatalog grids)
+    private static async Task<IResult> OpenIncident(HttpRequest request, ClaimsPrincipal user, string? grid, IncidentBoard board, GridCatalog grids)
     {
-        if (grids.Find(grid ?? string.Empty) is not { } loaded)
+        if (grids.Find(grid ?? string.Empty) is not { } loaded || !AccountClaims.MaySee(user, loaded.Name))
         {
-            return Results.BadRequest(ApiError.Single("unknown grid", "request", "query", "grid", $"must name a loaded grid ({string.Join(", ", grids.All.Select(g => $"\"{g.Name}\""))}), got \"{grid}\""));
+            var offered = grids.All.Where(g => AccountClaims.MaySee(user, g.Name)).Select(g => $"\"{g.Name}\"");
+            return Results.BadRequest(ApiError.Single("unknown grid", "request", "query", "grid", $"must name a loaded grid of this account ({string.Join(", ", offered)}), got \"{grid}\""));
         }
 
         if (await ReadBody(request) is not { } text)
@@ -68,19 +73,19 @@ public static class IncidentApi
             return Results.BadRequest(ApiError.From("the incident has errors", result.Issues));
         }
 
-        var id = board.Open(loaded, incident, Integration);
+        var id = board.Open(loaded, incident, AccountClaims.ActorOf(user));
         return Results.Created($"/api/incidents/{id}", IncidentEntry.Of(IncidentSummary.Of(board.State(id))));
     }
 
     /// <summary>Indications or measurements, one object or an array, read by the incident reader itself so the messages are its own.</summary>
-    private static async Task<IResult> PostEvidence(long id, HttpRequest request, IncidentBoard board, GridCatalog grids, string field)
+    private static async Task<IResult> PostEvidence(long id, ClaimsPrincipal user, HttpRequest request, IncidentBoard board, GridCatalog grids, string field)
     {
         if (await ReadBody(request) is not { } text)
         {
             return TooLarge();
         }
 
-        return WithIncident(board, id, state =>
+        return WithIncident(board, user, id, state =>
         {
             if (grids.Find(state.GridName) is not { } grid)
             {
@@ -119,19 +124,19 @@ public static class IncidentApi
             IReadOnlyList<IncidentEvent> events = field == "indications"
                 ? [.. parsed.Indications.Select(i => new IndicationEntered(i))]
                 : [.. parsed.Measurements.Select(m => new MeasurementRecorded(m))];
-            board.RecordAll(new IncidentId(id), events, Integration, grid.Grid);
+            board.RecordAll(new IncidentId(id), events, AccountClaims.ActorOf(user), grid.Grid);
             return Results.Accepted($"/api/incidents/{id}", new { accepted = events.Count });
         });
     }
 
-    private static async Task<IResult> PostOutcome(long id, HttpRequest request, IncidentBoard board, GridCatalog grids)
+    private static async Task<IResult> PostOutcome(long id, ClaimsPrincipal user, HttpRequest request, IncidentBoard board, GridCatalog grids)
     {
         if (await ReadBody(request) is not { } text)
         {
             return TooLarge();
         }
 
-        return WithIncident(board, id, state =>
+        return WithIncident(board, user, id, state =>
         {
             if (grids.Find(state.GridName) is not { } grid)
             {
@@ -159,23 +164,33 @@ public static class IncidentApi
                 return Results.BadRequest(ApiError.Single("bad fault type", "outcome", "body", "faultType", $"must be LG, LL, LLG, LLL or unknown, got \"{typeText}\""));
             }
 
-            board.Record(new IncidentId(id), new OutcomeLogged(new SegmentId(segment), type, body.Cause, body.Notes), Integration);
+            board.Record(new IncidentId(id), new OutcomeLogged(new SegmentId(segment), type, body.Cause, body.Notes), AccountClaims.ActorOf(user));
             return Results.Accepted($"/api/incidents/{id}", new { accepted = 1 });
         });
     }
 
+    private static string Text(long id) => id.ToString(System.Globalization.CultureInfo.InvariantCulture);
+
+    private static IResult UnknownIncident(long id) =>
+        Results.NotFound(ApiError.Single("unknown incident", "incident", Text(id), "id", "does not exist"));
+
     private static IResult GridNotLoaded(long id, IncidentState state) =>
         Results.Conflict(ApiError.Single("grid not loaded", "incident", id.ToString(System.Globalization.CultureInfo.InvariantCulture), "grid", $"\"{state.GridName}\" is not loaded"));
 
-    private static IResult WithIncident(IncidentBoard board, long id, Func<IncidentState, IResult> action)
+    /// <summary>
+    /// Runs <paramref name="action"/> on the incident when the account may see its grid. An incident of a grid
+    /// outside the account's grids is answered exactly like one that does not exist, so ids reveal nothing.
+    /// </summary>
+    private static IResult WithIncident(IncidentBoard board, ClaimsPrincipal user, long id, Func<IncidentState, IResult> action)
     {
         try
         {
-            return action(board.State(new IncidentId(id)));
+            var state = board.State(new IncidentId(id));
+            return AccountClaims.MaySee(user, state.GridName) ? action(state) : UnknownIncident(id);
         }
         catch (UnknownIncidentException)
         {
-            return Results.NotFound(ApiError.Single("unknown incident", "incident", id.ToString(System.Globalization.CultureInfo.InvariantCulture), "id", "does not exist"));
+            return UnknownIncident(id);
         }
         catch (IncidentClosedException e)
         {

@@ -11,4 +11,10 @@ public sealed class FeederLocateOptions
 
     /// <summary>The SQLite incident log; created on first run.</summary>
     public string DatabasePath { get; set; } = "feederlocate.db";
+
+    /// <summary>
+    /// The first run's administrator password (also environment variable FEEDERLOCATE_ADMIN_PASSWORD); when
+    /// neither is set, the first run prints a one-time password. Ignored once any account exists.
+    /// </summary>
+    public string? AdministratorPassword { get; set; }
 }

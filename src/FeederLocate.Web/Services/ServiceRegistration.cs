@@ -1,4 +1,5 @@
 using FeederLocate.Storage;
+using FeederLocate.Web.Security;
 
 namespace FeederLocate.Web.Services;
 
@@ -11,7 +12,9 @@ public static class ServiceRegistration
         var root = RepositoryPaths.Root(contentRoot);
         services.AddSingleton(options);
         services.AddSingleton(_ => new GridCatalog(RepositoryPaths.Resolve(root, options.GridFolder), options.DefaultGrid));
-        services.AddSingleton(_ => new IncidentBoard(IncidentStore.Open(RepositoryPaths.Resolve(root, options.DatabasePath))));
+        var databasePath = RepositoryPaths.Resolve(root, options.DatabasePath);
+        services.AddSingleton(_ => new IncidentBoard(IncidentStore.Open(databasePath)));
+        services.AddFeederLocateSecurity(databasePath);
         services.AddSingleton<IncidentAnalysis>();
         services.AddSingleton<IncidentHistory>();
         services.AddSingleton(TimeProvider.System);

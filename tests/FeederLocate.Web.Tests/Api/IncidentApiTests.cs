@@ -8,7 +8,7 @@ namespace FeederLocate.Web.Tests.Api;
 
 public sealed class IncidentApiTests(ApiFixture app) : IClassFixture<ApiFixture>
 {
-    private const string SolidGrid = "Marrowdell 20 kV (solidly grounded)";
+    private const string SolidGrid = ApiFixture.SolidGrid;
 
     private static StringContent Json(string text) => new(text, Encoding.UTF8, "application/json");
 

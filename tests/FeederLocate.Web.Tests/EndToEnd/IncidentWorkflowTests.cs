@@ -11,8 +11,7 @@ public sealed class IncidentWorkflowTests(WebAppFixture app) : IClassFixture<Web
     [Fact]
     public async Task Operator_opens_an_incident_enters_indications_sees_the_suspect_ranked_first_and_the_outcome_is_kept()
     {
-        var page = await app.Browser.NewPageAsync(new BrowserNewPageOptions { ViewportSize = new ViewportSize { Width = 1600, Height = 1100 } });
-        await page.GotoAsync(app.BaseAddress + "/");
+        var page = await app.SignedInPage("ana", "ana-password-1", "/", new BrowserNewPageOptions { ViewportSize = new ViewportSize { Width = 1600, Height = 1100 } });
         await WaitForCircuit(page);
 
         await page.SelectOptionAsync("[data-testid=new-grid]", SolidGrid);
@@ -39,7 +38,7 @@ public sealed class IncidentWorkflowTests(WebAppFixture app) : IClassFixture<Web
         var action = (await step.Locator(".action").InnerTextAsync()).Trim();
         var device = (await step.Locator(".device").InnerTextAsync()).Trim();
         await page.ClickAsync("[data-testid=tick-1]");
-        await Assertions.Expect(page.Locator("[data-testid=done-1]")).ToContainTextAsync("done by operator");
+        await Assertions.Expect(page.Locator("[data-testid=done-1]")).ToContainTextAsync("done by ana (operator)");
         if (action is "open" or "close")
         {
             await Assertions.Expect(page.Locator($"g[data-switch='{device}']")).ToHaveClassAsync(new System.Text.RegularExpressions.Regex(action == "open" ? @"\bopen\b" : @"\bclosed\b"));
@@ -56,23 +55,21 @@ public sealed class IncidentWorkflowTests(WebAppFixture app) : IClassFixture<Web
         await WaitForCircuit(page);
         await Assertions.Expect(page.Locator("[data-testid=logged-outcome]")).ToContainTextAsync("S109");
         await Assertions.Expect(page.Locator("g[data-indicator='FPI-A1-11']")).ToHaveAttributeAsync("data-state", "forward");
-        await Assertions.Expect(page.Locator("[data-testid=done-1]")).ToContainTextAsync("done by operator");
+        await Assertions.Expect(page.Locator("[data-testid=done-1]")).ToContainTextAsync("done by ana (operator)");
         await page.CloseAsync();
     }
 
     [Fact]
     public async Task A_second_operator_sees_the_first_operators_changes_without_reloading()
     {
-        var first = await app.Browser.NewPageAsync();
-        await first.GotoAsync(app.BaseAddress + "/");
+        var first = await app.SignedInPage("ana", "ana-password-1");
         await WaitForCircuit(first);
         await first.SelectOptionAsync("[data-testid=new-grid]", SolidGrid);
         await first.ClickAsync("[data-testid=open-incident]");
         await first.WaitForURLAsync("**/incidents/*", new PageWaitForURLOptions { Timeout = 90_000 });
         await WaitForCircuit(first);
 
-        var second = await app.Browser.NewPageAsync();
-        await second.GotoAsync(first.Url);
+        var second = await app.SignedInPage("ben", "ben-password-1", new Uri(first.Url).AbsolutePath);
         await WaitForCircuit(second);
         await SetState(first, "FPI-A2-05", "forward");
 
@@ -82,12 +79,27 @@ public sealed class IncidentWorkflowTests(WebAppFixture app) : IClassFixture<Web
     }
 
     [Fact]
-    public async Task The_page_shows_the_cautions()
+    public async Task Whoever_is_not_signed_in_gets_the_sign_in_page_with_the_cautions()
     {
         var page = await app.Browser.NewPageAsync();
-        await page.GotoAsync(app.BaseAddress + "/");
+        await page.GotoAsync(app.BaseAddress + "/incidents/1", new PageGotoOptions { Timeout = 90_000 });
+
+        await Assertions.Expect(page.Locator("[data-testid=sign-in-form]")).ToBeVisibleAsync();
+        Assert.Contains("returnUrl=%2Fincidents%2F1", page.Url, StringComparison.Ordinal);
+        await Assertions.Expect(page.Locator("[data-testid=cautions]")).ToContainTextAsync("prove dead");
+        await page.CloseAsync();
+    }
+
+    [Fact]
+    public async Task The_signed_in_page_shows_the_cautions_and_who_is_signed_in()
+    {
+        var page = await app.SignedInPage("ben", "ben-password-1");
+        await WaitForCircuit(page);
 
         await Assertions.Expect(page.Locator("[data-testid=cautions]")).ToContainTextAsync("prove dead");
+        await Assertions.Expect(page.Locator("[data-testid=signed-in-as]")).ToContainTextAsync("Ben Line · operator");
+        await page.ClickAsync("[data-testid=sign-out]");
+        await Assertions.Expect(page.Locator("[data-testid=signed-out]")).ToBeVisibleAsync();
         await page.CloseAsync();
     }
 
