@@ -41,8 +41,16 @@ public static class FeederLocateWebApp
         app.MapOpenApi().AllowAnonymous();
 
         var options = app.Services.GetRequiredService<FeederLocateOptions>();
-        FirstRunAdministrator.Ensure(app.Services.GetRequiredService<AccountDirectory>(),
-            options.AdministratorPassword ?? Environment.GetEnvironmentVariable(FirstRunAdministrator.EnvironmentVariable), Console.Out);
+        var accounts = app.Services.GetRequiredService<AccountDirectory>();
+        if (options.ResetAdministrator)
+        {
+            FirstRunAdministrator.Reset(accounts, Console.Out);
+        }
+        else
+        {
+            FirstRunAdministrator.Ensure(accounts,
+                options.AdministratorPassword ?? Environment.GetEnvironmentVariable(FirstRunAdministrator.EnvironmentVariable), Console.Out);
+        }
         app.Lifetime.ApplicationStarted.Register(() =>
             Console.WriteLine($"FeederLocate is running at {string.Join(", ", app.Urls)} (advice only: verify on site; local switching rules govern)"));
         return app;

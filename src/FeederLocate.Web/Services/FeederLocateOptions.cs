@@ -17,4 +17,7 @@ public sealed class FeederLocateOptions
     /// neither is set, the first run prints a one-time password. Ignored once any account exists.
     /// </summary>
     public string? AdministratorPassword { get; set; }
+
+    /// <summary>When true, the start gives the "admin" account a new printed one-time password (for when no engineer can sign in).</summary>
+    public bool ResetAdministrator { get; set; }
 }

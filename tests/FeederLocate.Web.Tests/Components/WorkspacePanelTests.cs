@@ -137,6 +137,21 @@ public class RecordAndPlanPanelTests : ComponentTest
         Assert.Equal(plan.Steps[1], ticked);
     }
 
+    [Fact]
+    public void Plan_steps_for_a_viewer_show_who_did_what_but_offer_no_tick()
+    {
+        var ranking = FaultRanking.Rank(_grid.Graph, Incidents.Trip());
+        var plan = FeederLocate.Core.Switching.SwitchingPlanner.Plan(_grid.Graph, Incidents.Trip(), ranking);
+        var first = plan.Steps[0];
+        var done = new FeederLocate.Storage.Incidents.CompletedPlanStep(
+            new PlanStepCompleted(first.Order, PlanSteps.ActionName(first.Action), first.Device?.Value), new Actor("ana", "operator"), new DateTimeOffset(2026, 3, 1, 8, 5, 0, TimeSpan.Zero));
+
+        var cut = Render<PlanSteps>(p => p.Add(c => c.Plan, plan).Add(c => c.Done, [done]).Add(c => c.ReadOnly, true));
+
+        Assert.All(cut.FindAll("input[type=checkbox]"), box => Assert.True(box.HasAttribute("disabled")));
+        Assert.Contains("done by ana (operator) at 08:05:00", cut.Find($"[data-testid='done-{first.Order}']").TextContent, StringComparison.Ordinal);
+    }
+
     private static class Incidents
     {
         /// <summary>CB-A1 tripped on an earth fault; the indicators on A1 saw it up to FPI-A1-11, not beyond.</summary>

@@ -74,6 +74,26 @@ public sealed class FirstRunAdministratorTests : IDisposable
         Assert.Equal(SignInVerdict.WrongNameOrPassword, accounts.SignIn("admin", "not-the-password").Verdict);
     }
 
+    [Fact]
+    public void A_reset_gives_a_demoted_disabled_administrator_a_printed_one_time_password_and_the_engineer_role_again()
+    {
+        using var accounts = NewDirectory();
+        FirstRunAdministrator.Ensure(accounts, "a-configured-admin-password", TextWriter.Null);
+        var by = new FeederLocate.Storage.Events.Actor("someone", "engineer");
+        accounts.CreateWithPassword("other", "Other engineer", AccountRole.Engineer, "other-password-1", null, by);
+        accounts.SetRole("admin", AccountRole.Viewer, by);
+        accounts.Disable("admin", by);
+        using var console = new StringWriter();
+
+        FirstRunAdministrator.Reset(accounts, console);
+
+        var printed = System.Text.RegularExpressions.Regex.Match(console.ToString(), "One-time password: (\\S+)").Groups[1].Value;
+        var outcome = accounts.SignIn("admin", printed);
+        Assert.Equal(SignInVerdict.MustChangePassword, outcome.Verdict);
+        Assert.Equal(AccountRole.Engineer, outcome.Account!.Role);
+        Assert.Equal(SignInVerdict.WrongNameOrPassword, accounts.SignIn("admin", "a-configured-admin-password").Verdict);
+    }
+
     public void Dispose()
     {
         Microsoft.Data.Sqlite.SqliteConnection.ClearAllPools();
