@@ -21,7 +21,7 @@ public static class FeederLocateWebApp
         builder.WebHost.UseStaticWebAssets();
         builder.Services.AddRazorComponents().AddInteractiveServerComponents();
         builder.Services.AddFeederLocate(builder.Configuration, builder.Environment.ContentRootPath);
-        builder.Services.AddOpenApi();
+        builder.Services.AddOpenApi(o => o.AddDocumentTransformer<BearerTokenDocument>());
 
         var app = builder.Build();
         if (!app.Environment.IsDevelopment())

@@ -115,5 +115,9 @@ public sealed class IncidentApiTests(ApiFixture app) : IClassFixture<ApiFixture>
         Assert.Contains("/api/incidents", paths);
         Assert.Contains("/api/incidents/{id}/indications", paths);
         Assert.Contains("/api/incidents/{id}/ranking", paths);
+        Assert.DoesNotContain(paths, p => p.StartsWith("/account", StringComparison.Ordinal));
+        var scheme = document.GetProperty("components").GetProperty("securitySchemes").GetProperty("apiToken");
+        Assert.Equal(("http", "bearer"), (scheme.GetProperty("type").GetString(), scheme.GetProperty("scheme").GetString()));
+        Assert.True(document.GetProperty("security")[0].TryGetProperty("apiToken", out _));
     }
 }
