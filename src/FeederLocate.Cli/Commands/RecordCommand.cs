@@ -2,6 +2,7 @@ using System.CommandLine;
 using FeederLocate.Cli.Input;
 using FeederLocate.Cli.Output;
 using FeederLocate.Core.Model;
+using FeederLocate.Storage.Accounts;
 using FeederLocate.Storage.Events;
 
 namespace FeederLocate.Cli.Commands;
@@ -16,13 +17,17 @@ internal static class RecordCommand
         var segment = new Option<string>("--segment") { Description = "The segment where the fault was confirmed", Required = true };
         var cause = new Option<string?>("--cause") { Description = "What caused the fault (free text)" };
         var db = CliOptions.Database(required: true);
+        var by = new Option<string?>("--by")
+        {
+            Description = "The account logging it (an enabled operator or engineer of the database); default: the machine's user, as cli:NAME",
+        };
         var json = CliOptions.Json();
-        var command = new Command("record", "Log an incident and where its fault was confirmed, so the next ranking learns") { grid, incident, segment, cause, db, json };
-        command.SetAction(parse => Run(console, parse.GetValue(grid)!, parse.GetValue(incident)!, parse.GetValue(segment)!, parse.GetValue(cause), parse.GetValue(db)!, parse.GetValue(json)));
+        var command = new Command("record", "Log an incident and where its fault was confirmed, so the next ranking learns") { grid, incident, segment, cause, db, by, json };
+        command.SetAction(parse => Run(console, parse.GetValue(grid)!, parse.GetValue(incident)!, parse.GetValue(segment)!, parse.GetValue(cause), parse.GetValue(db)!, parse.GetValue(by), parse.GetValue(json)));
         return command;
     }
 
-    private static int Run(CliConsole console, string gridPath, string incidentPath, string segmentId, string? cause, string dbPath, bool json)
+    private static int Run(CliConsole console, string gridPath, string incidentPath, string segmentId, string? cause, string dbPath, string? by, bool json)
     {
         var grid = InputFiles.LoadGrid(gridPath, console.Error);
         var incident = InputFiles.LoadIncident(incidentPath, grid, console.Error);
@@ -32,8 +37,9 @@ internal static class RecordCommand
             throw new BadInputException($"error: --segment \"{segmentId}\" is not a segment of grid {grid.Name}");
         }
 
+        var actor = Logger(dbPath, by);
         using var store = HistoryDatabase.Open(dbPath);
-        var id = store.Record(grid, incident, new OutcomeLogged(segment, incident.FaultType, cause), new Actor("cli"));
+        var id = store.Record(grid, incident, new OutcomeLogged(segment, incident.FaultType, cause), actor);
         if (json)
         {
             JsonOutput.Write(console.Out, new { incidentId = id.Value });
@@ -44,5 +50,28 @@ internal static class RecordCommand
         }
 
         return CliApp.Success;
+    }
+
+    /// <summary>Who the log names: the account given with --by (checked against the database's accounts), else the machine's user.</summary>
+    private static Actor Logger(string dbPath, string? by)
+    {
+        if (by is null)
+        {
+            return new Actor($"cli:{Environment.UserName}", "system");
+        }
+
+        if (!File.Exists(dbPath))
+        {
+            throw new BadInputException($"error: --by \"{by}\" must name an account of {dbPath}, which does not exist yet");
+        }
+
+        using var accounts = AccountStore.Open(dbPath);
+        return accounts.Find(by) switch
+        {
+            null => throw new BadInputException($"error: --by \"{by}\" is not an account of {dbPath}"),
+            { IsDisabled: true } => throw new BadInputException($"error: --by \"{by}\" is a disabled account"),
+            { Role: AccountRole.Viewer } => throw new BadInputException($"error: --by \"{by}\" is a viewer; logging outcomes needs an operator or engineer"),
+            var account => new Actor(account.Name, AccountRoles.Name(account.Role)),
+        };
     }
 }

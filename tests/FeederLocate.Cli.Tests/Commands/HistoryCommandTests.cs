@@ -22,6 +22,30 @@ public sealed class HistoryCommandTests : IDisposable
     }
 
     [Fact]
+    public void Record_names_the_account_given_with_by_and_refuses_one_that_may_not_log()
+    {
+        using (var accounts = Storage.Accounts.AccountStore.Open(Db))
+        {
+            accounts.Create("ana", "Ana Field", Storage.Accounts.AccountRole.Operator, "unused-hash", false, null, "admin");
+            accounts.Create("vera", "Vera", Storage.Accounts.AccountRole.Viewer, "unused-hash", false, null, "admin");
+        }
+
+        var byOperator = CliRun.Of("record", CliRun.Sample("solid"), Incident("solid-lg-trip-a1.incident.json"), "--segment", "S109", "--db", Db, "--by", "ana", "--json");
+        var byViewer = CliRun.Of("record", CliRun.Sample("solid"), Incident("solid-lg-trip-a1.incident.json"), "--segment", "S109", "--db", Db, "--by", "vera");
+        var byNobody = CliRun.Of("record", CliRun.Sample("solid"), Incident("solid-lg-trip-a1.incident.json"), "--segment", "S109", "--db", Db, "--by", "nobody");
+        var byDefault = CliRun.Of("record", CliRun.Sample("solid"), Incident("solid-lg-trip-a1.incident.json"), "--segment", "S109", "--db", Db, "--json");
+
+        Assert.Equal((0, 2, 2, 0), (byOperator.ExitCode, byViewer.ExitCode, byNobody.ExitCode, byDefault.ExitCode));
+        Assert.Contains("--by \"vera\" is a viewer", byViewer.Error, StringComparison.Ordinal);
+        Assert.Contains("--by \"nobody\" is not an account", byNobody.Error, StringComparison.Ordinal);
+        using var store = Storage.IncidentStore.Open(Db);
+        var incidents = store.Incidents();
+        Assert.Equal(2, incidents.Count);
+        Assert.All(store.Events(incidents[0].Id), e => Assert.Equal(new Storage.Events.Actor("ana", "operator"), e.Actor));
+        Assert.All(store.Events(incidents[1].Id), e => Assert.Equal(new Storage.Events.Actor($"cli:{Environment.UserName}", "system"), e.Actor));
+    }
+
+    [Fact]
     public void Rank_with_the_database_uses_recorded_outcomes()
     {
         // Ten outcomes on S109 make its learned fault rate, and so its prior, higher than without history.
