@@ -4,6 +4,7 @@ using FeederLocate.Storage.Events;
 using FeederLocate.Web.Security;
 using FeederLocate.Web.Tests.Support;
 using Microsoft.AspNetCore.Identity;
+using Microsoft.Extensions.DependencyInjection;
 
 namespace FeederLocate.Web.Tests.Security;
 
@@ -157,6 +158,28 @@ public sealed class SignInTests(ApiFixture app) : IClassFixture<ApiFixture>
         Assert.DoesNotContain("<img src=x", page, StringComparison.Ordinal);
         Assert.DoesNotContain("<b>Mallory</b>", page, StringComparison.Ordinal);
         Assert.Contains("&lt;img src=x onerror=alert(1)&gt;&lt;b&gt;Mallory&lt;/b&gt;", page, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public async Task The_page_of_an_incident_on_another_grid_reads_as_if_the_incident_did_not_exist()
+    {
+        var board = app.Factory.Services.GetRequiredService<Services.IncidentBoard>();
+        var grids = app.Factory.Services.GetRequiredService<Services.GridCatalog>();
+        var resonant = board.Open(grids.Find("Marrowdell 20 kV (resonant, arc-suppression coil)")!, null, null, DateTimeOffset.UtcNow, Engineer);
+        var solid = board.Open(grids.Find(ApiFixture.SolidGrid)!, null, null, DateTimeOffset.UtcNow, Engineer);
+        var browser = await FormSignIn.SignedIn(app.Factory, "solid-only", "solid-only-password");
+
+        var other = await (await browser.GetAsync($"/incidents/{resonant}")).Content.ReadAsStringAsync();
+        var missing = await (await browser.GetAsync("/incidents/987654")).Content.ReadAsStringAsync();
+        var own = await (await browser.GetAsync($"/incidents/{solid}")).Content.ReadAsStringAsync();
+        var list = await (await browser.GetAsync("/")).Content.ReadAsStringAsync();
+
+        Assert.Contains($"There is no incident {resonant}.", other, StringComparison.Ordinal);
+        Assert.DoesNotContain("resonant, arc-suppression coil", other, StringComparison.Ordinal);
+        Assert.Contains("There is no incident 987654.", missing, StringComparison.Ordinal);
+        Assert.Contains($"Incident {solid} on {ApiFixture.SolidGrid}", own, StringComparison.Ordinal);
+        Assert.DoesNotContain($"href=\"/incidents/{resonant}\"", list, StringComparison.Ordinal);
+        Assert.Contains($"href=\"/incidents/{solid}\"", list, StringComparison.Ordinal);
     }
 
     [Theory]
