@@ -19,6 +19,7 @@ public sealed class IncidentStore : IDisposable
 {
     private readonly SqliteConnection _connection;
     private readonly TimeProvider _clock;
+    private readonly IncidentCache _cache = new();
 
     private IncidentStore(string path, SqliteConnection connection, TimeProvider clock, int schemaVersion)
     {
@@ -101,14 +102,15 @@ public sealed class IncidentStore : IDisposable
     /// <summary>The incident's events in order; throws <see cref="UnknownIncidentException"/> for an id not logged.</summary>
     public IReadOnlyList<StoredEvent> Events(IncidentId incident)
     {
-        var events = EventTable.EventsOf(_connection, incident);
+        var events = _cache.EventsOf(_connection, incident);
         return events.Count > 0 || EventTable.IncidentExists(_connection, incident)
             ? events
             : throw new UnknownIncidentException(incident, Path);
     }
 
     /// <summary>The incident as its events add up to; throws <see cref="UnknownIncidentException"/> for an id not logged.</summary>
-    public IncidentState State(IncidentId incident) => IncidentFold.Fold(Events(incident));
+    public IncidentState State(IncidentId incident) =>
+        _cache.StateOf(_connection, incident) ?? IncidentFold.Fold(Events(incident));
 
     /// <summary>Every logged incident, by id.</summary>
     public IReadOnlyList<IncidentSummary> Incidents() =>
@@ -135,19 +137,7 @@ public sealed class IncidentStore : IDisposable
 
     public void Dispose() => _connection.Dispose();
 
-    private IEnumerable<IncidentState> States(string? gridName)
-    {
-        var events = EventTable.AllEvents(_connection, gridName);
-        var start = 0;
-        for (var i = 1; i <= events.Count; i++)
-        {
-            if (i == events.Count || events[i].Incident != events[start].Incident)
-            {
-                yield return IncidentFold.Fold(events.GetRange(start, i - start));
-                start = i;
-            }
-        }
-    }
+    private IEnumerable<IncidentState> States(string? gridName) => _cache.States(_connection, gridName);
 
     private T Write<T>(Func<SqliteTransaction, T> change)
     {

@@ -14,6 +14,8 @@ public static class FeederLocateWebApp
         var builder = WebApplication.CreateBuilder(new WebApplicationOptions
         {
             Args = args,
+            // The web project's own name, whoever hosts it: its static web assets manifest is found by it.
+            ApplicationName = typeof(FeederLocateWebApp).Assembly.GetName().Name,
             WebRootPath = WebRoot.Find(AppContext.BaseDirectory, Directory.GetCurrentDirectory()),
         });
 

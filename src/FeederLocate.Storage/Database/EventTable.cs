@@ -79,17 +79,23 @@ internal static class EventTable
         return ReadAll(command);
     }
 
-    /// <summary>Every event, or those of incidents on <paramref name="gridName"/>, by incident then sequence.</summary>
-    public static List<StoredEvent> AllEvents(SqliteConnection connection, string? gridName)
+    /// <summary>The incident's events after sequence number <paramref name="afterSequence"/>, in sequence order.</summary>
+    public static List<StoredEvent> EventsOf(SqliteConnection connection, IncidentId incident, int afterSequence)
     {
-        using var command = Command(connection, null, gridName is null
-            ? SelectEvents + " ORDER BY e.incident_id, e.sequence"
-            : SelectEvents + " JOIN incidents i ON i.id = e.incident_id WHERE i.grid_name = $gridName ORDER BY e.incident_id, e.sequence");
-        if (gridName is not null)
-        {
-            command.Parameters.AddWithValue("$gridName", gridName);
-        }
+        using var command = Command(connection, null, SelectEvents + " WHERE e.incident_id = $incident AND e.sequence > $after ORDER BY e.sequence");
+        command.Parameters.AddWithValue("$incident", incident.Value);
+        command.Parameters.AddWithValue("$after", afterSequence);
+        return ReadAll(command);
+    }
 
+    /// <summary>
+    /// Every event with an id above <paramref name="afterEventId"/>, in id order. Ids increase in the order
+    /// events were committed, so a reader that remembers the last id it saw never misses one.
+    /// </summary>
+    public static List<StoredEvent> EventsAfter(SqliteConnection connection, long afterEventId)
+    {
+        using var command = Command(connection, null, SelectEvents + " WHERE e.id > $after ORDER BY e.id");
+        command.Parameters.AddWithValue("$after", afterEventId);
         return ReadAll(command);
     }
 

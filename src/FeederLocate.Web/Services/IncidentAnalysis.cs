@@ -6,14 +6,28 @@ namespace FeederLocate.Web.Services;
 
 /// <summary>
 /// The ranking of an incident's current evidence, with priors learned from every outcome logged for
-/// its grid; computed once per state of the incident's log and of the grid's history.
+/// its grid; computed once per state of the incident's log and of the grid's history. Only the latest
+/// result per incident is kept: pages show the current state.
 /// </summary>
 public sealed class IncidentAnalysis(IncidentBoard board)
 {
-    private readonly ConcurrentDictionary<(long Id, int Events, int Outcomes), RankingOutcome> _rankings = new();
-    private readonly ConcurrentDictionary<(string Grid, int Outcomes), RankingPriors> _priors = new();
+    private readonly ConcurrentDictionary<long, ((int Events, int Outcomes) Key, RankingOutcome Value)> _rankings = new();
+    private readonly ConcurrentDictionary<(string Grid, int Outcomes, long Excluded), RankingPriors> _priors = new();
+    private readonly ConcurrentDictionary<long, ((int Events, int Outcomes) Key, PlanOutcome Value)> _plans = new();
 
-    private readonly ConcurrentDictionary<(long Id, int Events, int Outcomes), PlanOutcome> _plans = new();
+    /// <summary>The value kept for <paramref name="id"/> when it was made for <paramref name="key"/>; otherwise a new one, which replaces it.</summary>
+    private static TValue Latest<TId, TKey, TValue>(ConcurrentDictionary<TId, (TKey Key, TValue Value)> cache, TId id, TKey key, Func<TValue> make)
+        where TId : notnull
+    {
+        if (cache.TryGetValue(id, out var kept) && EqualityComparer<TKey>.Default.Equals(kept.Key, key))
+        {
+            return kept.Value;
+        }
+
+        var value = make();
+        cache[id] = (key, value);
+        return value;
+    }
 
     /// <summary>The switching order for the ranking's most likely section, from the incident's start state.</summary>
     public PlanOutcome Plan(LoadedGrid grid, IncidentState state)
@@ -24,7 +38,7 @@ public sealed class IncidentAnalysis(IncidentBoard board)
             return new PlanOutcome(null, ranking.Problem);
         }
 
-        return _plans.GetOrAdd((state.Id.Value, state.EventCount, board.Outcomes(grid.Name).Count), _ =>
+        return Latest(_plans, state.Id.Value, (state.EventCount, board.Outcomes(grid.Name).Count), () =>
             FeederLocate.Core.Switching.SwitchingPlanner.TryPlan(grid.Graph, state.Incident, result, out var plan, out var problem)
                 ? new PlanOutcome(plan, null)
                 : new PlanOutcome(null, problem));
@@ -34,10 +48,13 @@ public sealed class IncidentAnalysis(IncidentBoard board)
     {
         ArgumentNullException.ThrowIfNull(grid);
         ArgumentNullException.ThrowIfNull(state);
-        var outcomes = board.Outcomes(grid.Name).Where(o => o.Id != state.Id && grid.Grid.HasSegment(o.ConfirmedSegment)).ToList();
-        var priors = _priors.GetOrAdd((grid.Name, outcomes.Count), _ =>
+        var all = board.Outcomes(grid.Name);
+        var outcomes = all.Where(o => o.Id != state.Id && grid.Grid.HasSegment(o.ConfirmedSegment)).ToList();
+        // An incident's own outcome never feeds its ranking: the priors are per grid, per number of outcomes, and per incident left out.
+        var excluded = all.Any(o => o.Id == state.Id) ? state.Id.Value : 0;
+        var priors = _priors.GetOrAdd((grid.Name, outcomes.Count, excluded), _ =>
             LearnedRankingPriors.From(grid.Graph, [.. outcomes.Select(o => new ConfirmedIncident(o.Incident, o.ConfirmedSegment))]));
-        return _rankings.GetOrAdd((state.Id.Value, state.EventCount, outcomes.Count), _ =>
+        return Latest(_rankings, state.Id.Value, (state.EventCount, outcomes.Count), () =>
         {
             try
             {

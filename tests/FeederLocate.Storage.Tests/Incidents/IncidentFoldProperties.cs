@@ -38,6 +38,38 @@ public class IncidentFoldProperties
         });
     }
 
+    private static readonly Gen<IncidentEvent> AnyChange = Gen.OneOf<IncidentEvent>(
+        Indications.Select(i => (IncidentEvent)i),
+        Gen.Select(Gen.Double[0, 5000], Gen.Bool, (current, residual) =>
+            (IncidentEvent)new MeasurementRecorded(new SubstationMeasurement(new SwitchId("CB1"), residual ? null : current, residual ? current / 50 : null))),
+        Gen.Bool.Select(open => (IncidentEvent)new SwitchStateChanged(new SwitchId("LB2"), open ? SwitchPosition.Open : SwitchPosition.Closed)),
+        Gen.Int[1, 9].Select(order => (IncidentEvent)new PlanStepCompleted(order, "open", "LB2")),
+        Gen.Enum<FaultType>().Select(type => (IncidentEvent)new SubstationRecordAmended(new SwitchId("CB1"), type)),
+        Gen.Const((IncidentEvent)new OutcomeLogged(new SegmentId("S2"), FaultType.LG, "cable joint")));
+
+    [Fact]
+    public void Continuing_from_the_state_at_any_point_gives_the_state_of_folding_every_event()
+    {
+        Gen.Select(AnyChange.List[0, 25], Gen.Int[0, 100], Gen.Bool).Sample((changes, splitPercent, close) =>
+        {
+            var events = new List<StoredEvent> { Stored(0, new IncidentOpened(TestGrids.BrackenfoldName, TestIncidents.EarthFault())) };
+            events.AddRange(changes.Select((e, i) => Stored(i + 1, e)));
+            if (close)
+            {
+                events.Add(Stored(events.Count, new IncidentClosed()));
+            }
+
+            var split = 1 + (events.Count - 1) * splitPercent / 100;
+
+            var whole = IncidentFold.Fold(events);
+            var continued = IncidentFold.Continue(IncidentFold.Fold(events.GetRange(0, split)), events, split);
+
+            Assert.Equal(TestIncidents.Text(whole.Incident), TestIncidents.Text(continued.Incident));
+            Assert.Equal(whole.CompletedSteps.ToArray(), continued.CompletedSteps.ToArray());
+            Assert.Equal((whole.Status, whole.Outcome, whole.ClosedAt, whole.EventCount), (continued.Status, continued.Outcome, continued.ClosedAt, continued.EventCount));
+        });
+    }
+
     private static StoredEvent Stored(int index, IncidentEvent e) =>
         new(new EventId(index + 1), new IncidentId(1), index + 1, ManualClock.Start.AddMinutes(index), new Actor("test"), e);
 }
