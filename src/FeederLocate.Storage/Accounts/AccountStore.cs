@@ -349,10 +349,7 @@ public sealed class AccountStore : IDisposable
 
     private List<Account> ReadAccounts(string sql, Action<SqliteParameterCollection> parameters)
     {
-        using var command = _connection.CreateCommand();
-        command.Transaction = _transaction;
-        command.CommandText = sql;
-        parameters(command.Parameters);
+        using var command = Query(sql, parameters);
         using var reader = command.ExecuteReader();
         var accounts = new List<Account>();
         while (reader.Read())
@@ -388,10 +385,7 @@ public sealed class AccountStore : IDisposable
 
     private List<ApiToken> ReadTokens(string sql, Action<SqliteParameterCollection> parameters)
     {
-        using var command = _connection.CreateCommand();
-        command.Transaction = _transaction;
-        command.CommandText = sql;
-        parameters(command.Parameters);
+        using var command = Query(sql, parameters);
         using var reader = command.ExecuteReader();
         var tokens = new List<ApiToken>();
         while (reader.Read())
@@ -409,6 +403,15 @@ public sealed class AccountStore : IDisposable
         }
 
         return tokens;
+    }
+
+    private SqliteCommand Query(string sql, Action<SqliteParameterCollection> parameters)
+    {
+        var command = _connection.CreateCommand();
+        command.Transaction = _transaction;
+        command.CommandText = sql;
+        parameters(command.Parameters);
+        return command;
     }
 
     private static DateTimeOffset? Time(SqliteDataReader reader, int ordinal) =>

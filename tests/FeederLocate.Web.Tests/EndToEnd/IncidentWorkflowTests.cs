@@ -18,7 +18,7 @@ public sealed class IncidentWorkflowTests(WebAppFixture app) : IClassFixture<Web
         await page.SelectOptionAsync("[data-testid=new-tripped]", "CB-A1");
         await page.SelectOptionAsync("[data-testid=new-type]", "LG");
         await page.ClickAsync("[data-testid=open-incident]");
-        await page.WaitForURLAsync("**/incidents/*", new PageWaitForURLOptions { Timeout = 90_000 });
+        await app.WaitForPath(page, "/incidents/");
         await WaitForCircuit(page);
 
         // An earth fault on S109 of feeder A1 (solid grounding): the indicators on the way see it, the one beyond does not.
@@ -66,7 +66,7 @@ public sealed class IncidentWorkflowTests(WebAppFixture app) : IClassFixture<Web
         await WaitForCircuit(first);
         await first.SelectOptionAsync("[data-testid=new-grid]", SolidGrid);
         await first.ClickAsync("[data-testid=open-incident]");
-        await first.WaitForURLAsync("**/incidents/*", new PageWaitForURLOptions { Timeout = 90_000 });
+        await app.WaitForPath(first, "/incidents/");
         await WaitForCircuit(first);
 
         var second = await app.SignedInPage("ben", "ben-password-1", new Uri(first.Url).AbsolutePath);

@@ -3,6 +3,7 @@ using Microsoft.AspNetCore.Hosting.Server;
 using Microsoft.AspNetCore.Hosting.Server.Features;
 using Microsoft.AspNetCore.Mvc.Testing;
 using Microsoft.Extensions.DependencyInjection;
+using Microsoft.Extensions.Logging;
 using FeederLocate.Storage.Accounts;
 using FeederLocate.Storage.Events;
 using FeederLocate.Web.Security;
@@ -28,6 +29,9 @@ public sealed class WebAppFixture : IAsyncLifetime
 
     public AccountDirectory Accounts { get; private set; } = default!;
 
+    /// <summary>What the server logged at warning level and above; written to the artifacts folder at the end.</summary>
+    public ServerLog ServerLog { get; } = new();
+
     /// <summary>The app's services, for setting up a scene without clicking through it.</summary>
     public IServiceProvider Services => _factory!.Services;
 
@@ -47,6 +51,7 @@ public sealed class WebAppFixture : IAsyncLifetime
             b.UseSetting("FeederLocate:GridFolder", Path.Combine(TestGrids.Root, "sample-grid"));
             b.UseSetting("Urls", "http://127.0.0.1:0");
             b.UseSetting("FeederLocate:AdministratorPassword", AdministratorPassword);
+            b.ConfigureLogging(logging => logging.AddProvider(ServerLog));
         });
         _factory.UseKestrel(0);
         _factory.StartServer();
@@ -77,6 +82,31 @@ public sealed class WebAppFixture : IAsyncLifetime
         await page.ClickAsync("[data-testid=sign-in]");
         await page.WaitForURLAsync(url => !url.Contains("/sign-in", StringComparison.Ordinal), new PageWaitForURLOptions { Timeout = 90_000 });
         return page;
+    }
+
+    /// <summary>
+    /// Waits until the page is on a path starting with <paramref name="pathStart"/>; when it does not get
+    /// there, the failure says where the page is, what it shows and what the server logged, with a screenshot.
+    /// </summary>
+    public async Task WaitForPath(IPage page, string pathStart)
+    {
+        try
+        {
+            // Polls the page's address: an interactive navigation is a history.pushState, which a navigation
+            // waiter can miss when it lands before the waiter starts.
+            await Assertions.Expect(page).ToHaveURLAsync(
+                new System.Text.RegularExpressions.Regex("^https?://[^/]+" + System.Text.RegularExpressions.Regex.Escape(pathStart)),
+                new PageAssertionsToHaveURLOptions { Timeout = 90_000 });
+        }
+        catch (PlaywrightException e)
+        {
+            Directory.CreateDirectory(ArtifactsFolder);
+            var shot = Path.Combine(ArtifactsFolder, $"timeout-{DateTime.UtcNow:HHmmss}.png");
+            await page.ScreenshotAsync(new PageScreenshotOptions { Path = shot, FullPage = true });
+            var text = await page.Locator("body").InnerTextAsync();
+            throw new TimeoutException(
+                $"the page did not reach {pathStart}: it is at {page.Url}, shows \"{text[..Math.Min(600, text.Length)]}\" (screenshot {shot}); server log:{Environment.NewLine}{string.Join(Environment.NewLine, ServerLog.Lines.TakeLast(20))}", e);
+        }
     }
 
     /// <summary>
@@ -115,5 +145,7 @@ public sealed class WebAppFixture : IAsyncLifetime
 
         Microsoft.Data.Sqlite.SqliteConnection.ClearAllPools();
         Directory.Delete(_folder, recursive: true);
+        Directory.CreateDirectory(ArtifactsFolder);
+        await File.WriteAllLinesAsync(Path.Combine(ArtifactsFolder, $"server-log-{Guid.NewGuid():N}.txt"), ServerLog.Lines);
     }
 }
