@@ -16,8 +16,11 @@ public sealed class CircuitRevalidation(ILoggerFactory loggerFactory, AccountDir
     protected override Task<bool> ValidateAuthenticationStateAsync(AuthenticationState authenticationState, CancellationToken cancellationToken)
     {
         ArgumentNullException.ThrowIfNull(authenticationState);
-        var user = authenticationState.User;
-        return Task.FromResult(user.Identity?.IsAuthenticated != true
-            || accounts.Current(AccountClaims.NameOf(user), user.FindFirst(AccountClaims.Stamp)?.Value) is not null);
+        return Task.FromResult(StillValid(accounts, authenticationState.User));
     }
+
+    /// <summary>Whether a page's account may stay signed in: nobody signed in, or an enabled account with the stamp it signed in with.</summary>
+    internal static bool StillValid(AccountDirectory accounts, ClaimsPrincipal user) =>
+        user.Identity?.IsAuthenticated != true
+        || accounts.Current(AccountClaims.NameOf(user), user.FindFirst(AccountClaims.Stamp)?.Value) is not null;
 }
