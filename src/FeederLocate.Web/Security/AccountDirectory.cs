@@ -120,7 +120,7 @@ public sealed class AccountDirectory : IDisposable
         if (Find(name) is not { IsDisabled: false } account
             || Verify(account.PasswordHash, currentPassword ?? string.Empty) == PasswordVerificationResult.Failed)
         {
-            return "the current password is wrong";
+            return PasswordProblems.WrongCurrent;
         }
 
         if (PasswordRules.Problem(newPassword, name) is { } problem)
@@ -130,7 +130,7 @@ public sealed class AccountDirectory : IDisposable
 
         if (string.Equals(newPassword, currentPassword, StringComparison.Ordinal))
         {
-            return "the new password must differ from the current one";
+            return PasswordProblems.Unchanged;
         }
 
         Change(() => _store.SetPassword(name, _hasher.HashPassword(account, newPassword!), mustChangePassword: false, name));

@@ -66,11 +66,12 @@ public static class AccountEndpoints
         string? currentPassword = form["currentPassword"], newPassword = form["newPassword"], confirmPassword = form["confirmPassword"];
         var name = AccountClaims.NameOf(http.User);
         var problem = !string.Equals(newPassword, confirmPassword, StringComparison.Ordinal)
-            ? "the new password and its confirmation differ"
+            ? PasswordProblems.Mismatch
             : accounts.ChangePassword(name, currentPassword, newPassword);
         if (problem is not null)
         {
-            return Results.LocalRedirect($"{PasswordPage}?problem={Uri.EscapeDataString(problem)}&returnUrl={Uri.EscapeDataString(back)}");
+            var code = PasswordProblems.CodeOf(problem)?.ToString(CultureInfo.InvariantCulture) ?? "unknown";
+            return Results.LocalRedirect($"{PasswordPage}?problem={code}&returnUrl={Uri.EscapeDataString(back)}");
         }
 
         // A new password is a new security stamp: sign in again with it, so this session stays and every other one ends.

@@ -106,8 +106,22 @@ public sealed class SignInTests(ApiFixture app) : IClassFixture<ApiFixture>
             ["confirmPassword"] = "short",
         }));
 
-        Assert.Contains(Uri.EscapeDataString($"at least {PasswordRules.MinimumLength} characters"), Location(change), StringComparison.Ordinal);
+        var shown = await (await browser.GetAsync(Location(change))).Content.ReadAsStringAsync();
+        Assert.Contains($"Not changed: the new password must be at least {PasswordRules.MinimumLength} characters.", shown, StringComparison.Ordinal);
         Assert.Equal("/", Location(await FormSignIn.Post(FormSignIn.NewBrowser(app.Factory), "shorty", "shorty-password-1")));
+    }
+
+    [Fact]
+    public async Task The_password_page_shows_only_its_own_sentences_never_text_from_the_address()
+    {
+        var browser = await FormSignIn.SignedIn(app.Factory, "watcher", "watcher-password");
+
+        var page = await browser.GetStringAsync($"{AccountEndpoints.PasswordPage}?problem={Uri.EscapeDataString("call 0800 to reset")}");
+        var signIn = await FormSignIn.NewBrowser(app.Factory).GetStringAsync("/sign-in?failed=locked&until=" + Uri.EscapeDataString("never; call 0800"));
+
+        Assert.Contains("Not changed: the password was not changed.", page, StringComparison.Ordinal);
+        Assert.DoesNotContain("0800", page, StringComparison.Ordinal);
+        Assert.DoesNotContain("0800", signIn, StringComparison.Ordinal);
     }
 
     [Fact]
