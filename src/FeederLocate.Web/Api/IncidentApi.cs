@@ -1,5 +1,4 @@
 using System.Text.Json;
-using System.Text.Json.Nodes;
 using FeederLocate.Core.Evidence;
 using FeederLocate.Core.Formats;
 using FeederLocate.Core.Formats.Documents;
@@ -92,30 +91,26 @@ public static class IncidentApi
                 return GridNotLoaded(id, state);
             }
 
-            JsonNode? body;
+            JsonValueKind kind;
             try
             {
-                body = JsonNode.Parse(text);
+                using var document = JsonDocument.Parse(text);
+                kind = document.RootElement.ValueKind;
             }
             catch (JsonException e)
             {
                 return Results.BadRequest(ApiError.Single("not JSON", "request", "body", string.Empty, $"is not valid JSON: {e.Message}"));
             }
 
-            var items = body is JsonArray array ? array : new JsonArray(body?.DeepClone());
-            var wrapper = new JsonObject
-            {
-                ["format"] = IncidentFormat.FormatTag,
-                ["reportedAt"] = state.ReportedAt.UtcDateTime.ToString("yyyy-MM-dd'T'HH:mm:ss'Z'", System.Globalization.CultureInfo.InvariantCulture),
-                ["faultType"] = "unknown",
-                ["indications"] = field == "indications" ? items.DeepClone() : new JsonArray(),
-            };
-            if (field == "measurements")
-            {
-                wrapper["measurements"] = items.DeepClone();
-            }
+            // The body is one complete JSON value, so it goes into the wrapper as it is: its text, read by the
+            // incident reader, gives the reader's own messages (a lone surrogate, a duplicate key, ...).
+            var items = kind == JsonValueKind.Array ? text : $"[{text}]";
+            var reportedAt = state.ReportedAt.UtcDateTime.ToString("yyyy-MM-dd'T'HH:mm:ss'Z'", System.Globalization.CultureInfo.InvariantCulture);
+            var wrapper = field == "indications"
+                ? $$"""{ "format": "{{IncidentFormat.FormatTag}}", "reportedAt": "{{reportedAt}}", "faultType": "unknown", "indications": {{items}} }"""
+                : $$"""{ "format": "{{IncidentFormat.FormatTag}}", "reportedAt": "{{reportedAt}}", "faultType": "unknown", "indications": [], "measurements": {{items}} }""";
 
-            var read = IncidentReader.Parse(wrapper.ToJsonString(), grid.Grid);
+            var read = IncidentReader.Parse(wrapper, grid.Grid);
             if (read.Value is not { } parsed)
             {
                 return Results.BadRequest(ApiError.From($"the {field} have errors", read.Issues));

@@ -348,7 +348,7 @@ public static class Mutations
             case TreeOp.RenameProperty:
                 if (Pick(members.Where(p => p.Parent is JsonObject).ToList(), edit.Target) is { Key: { } key } renamed)
                 {
-                    string[] names = [key + "X", key.ToUpperInvariant(), key[..^1], string.Empty, " " + key, key + " ", "Id"];
+                    string[] names = [key + "X", key.ToUpperInvariant(), key.Length > 0 ? key[..^1] : "X", string.Empty, " " + key, key + " ", "Id"];
                     var name = names[edit.Choice % names.Length];
                     var parent = (JsonObject)renamed.Parent!;
                     if (!parent.ContainsKey(name))
