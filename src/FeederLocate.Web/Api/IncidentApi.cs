@@ -26,7 +26,7 @@ public static class IncidentApi
     {
         var api = app.MapGroup("/api").WithTags("FeederLocate").WithMetadata(new RequestSizeLimitAttribute(MaximumBodyBytes))
             .RequireAuthorization(AccessPolicies.ApiRead);
-        api.MapGet("/grids", (ClaimsPrincipal user, GridCatalog grids) => grids.All.Where(g => AccountClaims.MaySee(user, g.Name)).Select(g => new GridEntry(
+        api.MapGet("/grids", (ClaimsPrincipal user, GridCatalog grids) => grids.VisibleTo(user).Select(g => new GridEntry(
             g.Name, g.Key, g.Grid.Substations.Length, g.Grid.Segments.Length, g.Graph.Sections.All.Length, g.Grid.Indicators.Length)));
         api.MapGet("/incidents", (ClaimsPrincipal user, IncidentBoard board) =>
             board.List().Where(i => AccountClaims.MaySee(user, i.GridName)).Select(IncidentEntry.Of));
@@ -57,7 +57,7 @@ public static class IncidentApi
     {
         if (grids.Find(grid ?? string.Empty) is not { } loaded || !AccountClaims.MaySee(user, loaded.Name))
         {
-            var offered = grids.All.Where(g => AccountClaims.MaySee(user, g.Name)).Select(g => $"\"{g.Name}\"");
+            var offered = grids.VisibleTo(user).Select(g => $"\"{g.Name}\"");
             return Results.BadRequest(ApiError.Single("unknown grid", "request", "query", "grid", $"must name a loaded grid of this account ({string.Join(", ", offered)}), got \"{grid}\""));
         }
 

@@ -51,6 +51,14 @@ public sealed class GridCatalog
 
     public LoadedGrid? Find(string name) => _byName.GetValueOrDefault(name);
 
+    /// <summary>The grids whose incidents <paramref name="user"/> may see, by name.</summary>
+    public IReadOnlyList<LoadedGrid> VisibleTo(System.Security.Claims.ClaimsPrincipal user) =>
+        [.. All.Where(g => Security.AccountClaims.MaySee(user, g.Name))];
+
+    /// <summary>The grid a page opens on for <paramref name="user"/>: the default one if theirs, else their first.</summary>
+    public LoadedGrid? DefaultFor(System.Security.Claims.ClaimsPrincipal user) =>
+        Default is { } d && Security.AccountClaims.MaySee(user, d.Name) ? d : VisibleTo(user).FirstOrDefault();
+
     /// <summary>Reads a grid file's text; adds it when valid, and gives every issue found either way.</summary>
     public LoadResult<Grid> Add(string fileName, string text)
     {
