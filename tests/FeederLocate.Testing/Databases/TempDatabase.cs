@@ -1,11 +1,11 @@
-namespace FeederLocate.Storage.Tests.Support;
+namespace FeederLocate.Testing;
 
 /// <summary>A fresh folder under the system temp folder holding one database path; deleted on dispose.</summary>
 public sealed class TempDatabase : IDisposable
 {
     public TempDatabase()
     {
-        Folder = Directory.CreateTempSubdirectory("feederlocate-storage-tests-").FullName;
+        Folder = Directory.CreateTempSubdirectory("feederlocate-tests-").FullName;
         Path = System.IO.Path.Combine(Folder, "history.db");
     }
 
