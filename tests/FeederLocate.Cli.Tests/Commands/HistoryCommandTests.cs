@@ -2,9 +2,9 @@ namespace FeederLocate.Cli.Tests.Commands;
 
 public sealed class HistoryCommandTests : IDisposable
 {
-    private readonly string _folder = Directory.CreateTempSubdirectory("feederlocate-history-").FullName;
+    private readonly TempDatabase _db = new();
 
-    private string Db => Path.Combine(_folder, "history.db");
+    private string Db => _db.Path;
 
     private static string Incident(string name) => RepositoryFiles.Path("sample-grid", "incidents", name);
 
@@ -71,7 +71,7 @@ public sealed class HistoryCommandTests : IDisposable
     public void Backup_and_integrity_check_and_csv_export_work_on_a_recorded_database()
     {
         CliRun.Of("record", SampleGrids.Path("isolated"), Incident("isolated-standing-earth-fault-a2.incident.json"), "--segment", "S207", "--cause", "tree, after storm", "--db", Db);
-        var copy = Path.Combine(_folder, "copy.db");
+        var copy = _db.Sibling("copy.db");
 
         var backup = CliRun.Of("backup", "--db", Db, "--output", copy);
         var integrity = CliRun.Of("integrity", "--db", copy, "--json");
@@ -106,21 +106,17 @@ public sealed class HistoryCommandTests : IDisposable
         Assert.InRange(json.GetProperty("truthSectionTop1").GetDouble(), 0, 1);
     }
 
-    public void Dispose()
-    {
-        Microsoft.Data.Sqlite.SqliteConnection.ClearAllPools();
-        Directory.Delete(_folder, recursive: true);
-    }
+    public void Dispose() => _db.Dispose();
 }
 
 public sealed class PlanWithHistoryTests : IDisposable
 {
-    private readonly string _folder = Directory.CreateTempSubdirectory("feederlocate-plan-history-").FullName;
+    private readonly TempDatabase _db = new();
 
     [Fact]
     public void Plan_with_the_database_isolates_the_section_the_learned_ranking_puts_first()
     {
-        var db = Path.Combine(_folder, "history.db");
+        var db = _db.Path;
         var grid = SampleGrids.Path("solid");
         var incident = RepositoryFiles.Path("sample-grid", "incidents", "solid-lg-trip-a1.incident.json");
         for (var i = 0; i < 3; i++)
@@ -136,9 +132,5 @@ public sealed class PlanWithHistoryTests : IDisposable
         Assert.Equal(top, plan.Json().GetProperty("isolatedSections")[0].GetString());
     }
 
-    public void Dispose()
-    {
-        Microsoft.Data.Sqlite.SqliteConnection.ClearAllPools();
-        Directory.Delete(_folder, recursive: true);
-    }
+    public void Dispose() => _db.Dispose();
 }
