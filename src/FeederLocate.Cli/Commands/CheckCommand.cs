@@ -75,7 +75,7 @@ internal static class CheckCommand
     {
         var fed = grid.Segments.Where((_, i) => network.IsSegmentEnergised(i) && network.SubstationIndexOf(network.SuppliedEndOf(i)) == index).ToList();
         double Km(Construction c) => fed.Where(s => grid.LineTypeOf(s).Construction == c).Sum(s => s.LengthKm);
-        var e = SourceImpedance.VoltageFactorMaxMediumVoltage * substation.NominalVoltageKv * 1000 / Math.Sqrt(3);
+        var e = Units.PhaseVoltageV(substation.NominalVoltageKv, SourceImpedance.VoltageFactorMaxMediumVoltage);
         var chargingA = 3 * grid.AngularFrequencyRadPerS * network.TotalCapacitanceF(index) * e;
         var zq = SourceImpedance.AtBusbarOhm(substation, SourceImpedance.VoltageFactorMaxMediumVoltage);
         var ik3 = SequenceFault.Solve(FaultType.LLL, e, zq, System.Numerics.Complex.Zero, System.Numerics.Complex.Zero, 0).PositiveA.Magnitude;

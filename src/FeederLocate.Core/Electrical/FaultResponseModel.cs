@@ -29,7 +29,7 @@ public sealed class FaultResponseModel
         var grid = network.Grid;
         var omega = grid.AngularFrequencyRadPerS;
         _substations = [.. grid.Substations.Select((s, i) => new SubstationTerms(
-            voltageFactor * s.NominalVoltageKv * 1000 / Math.Sqrt(3),
+            Units.PhaseVoltageV(s.NominalVoltageKv, voltageFactor),
             SourceImpedance.AtBusbarOhm(s, voltageFactor),
             NeutralAdmittance.AtBus(s, network.TotalCapacitanceF(i), omega),
             NeutralAdmittance.OfNeutral(s, network.TotalCapacitanceF(i), omega),
@@ -182,17 +182,8 @@ public sealed class FaultResponseModel
         // one gain per side, fixed by the topology, times the fault's neutral displacement.
         var residualA = fault.NeutralVoltageMagnitudeV * (faultBeyond ? p.BeyondGainS : p.NotBeyondGainS);
         var phaseA = onPath ? fault.FaultedPhaseCurrentA : 0;
-        var expected = ExpectedState(p, faultBeyond, onPath, phaseA, residualA);
+        var expected = p.ExpectedState(phaseA, residualA, faultBeyond);
         return new IndicatorReading(phaseA, residualA, faultBeyond, expected);
-    }
-
-    /// <summary>The state an indicator is expected to show for the currents it sees (reference model).</summary>
-    internal static IndicatorState ExpectedState(in MeasuringPoint p, bool faultBeyond, bool onPath, double phaseCurrentA, double residualCurrentA)
-    {
-        var picked = (onPath && phaseCurrentA >= p.PhasePickupA) || residualCurrentA >= p.EarthPickupA;
-        return !picked ? IndicatorState.None
-            : !p.Directional ? IndicatorState.Fault
-            : faultBeyond ? IndicatorState.Forward : IndicatorState.Reverse;
     }
 
     private MeasuringPoint Compile(Indicator indicator)
@@ -219,7 +210,7 @@ public sealed class FaultResponseModel
         else
         {
             var seg = Grid.Segments[segment];
-            var own = Grid.LineTypeOf(seg).C0NfPerKm * 1e-9 * seg.LengthKm;
+            var own = Units.FaradsPerKm(Grid.LineTypeOf(seg).C0NfPerKm) * seg.LengthKm;
             var capacitanceF = Network.TotalCapacitanceF(sub) - Network.CapacitanceAtOrBeyondF(far) + own;
             forward = NeutralAdmittance.OfCapacitance(capacitanceF, omega, terms.DampingPercent) + terms.NeutralS;
         }

@@ -111,7 +111,7 @@ internal static class CrossCountryRanking
         var upA = network.SuppliedEndOf(a);
         var upB = network.SuppliedEndOf(b);
         var substation = grid.Substations[network.SubstationIndexOf(upA)];
-        var e = model.VoltageFactor * substation.NominalVoltageKv * 1000 / Math.Sqrt(3);
+        var e = Units.PhaseVoltageV(substation.NominalVoltageKv, model.VoltageFactor);
         var source = SourceImpedance.AtBusbarOhm(substation, model.VoltageFactor);
         var ancestors = new HashSet<int>();
         for (var v = upA; v >= 0; v = network.ParentOf(v))
@@ -159,10 +159,7 @@ internal static class CrossCountryRanking
             var onPath = same && (o.Point.OnPath(beyondA) || o.Point.OnPath(beyondB));
             var phase = onPath ? currentA : 0;
             var residual = beyondA != beyondB ? currentA : 0;
-            var picked = phase >= o.Point.PhasePickupA || residual >= o.Point.EarthPickupA;
-            expected[i] = !picked ? IndicatorState.None
-                : !o.Point.Directional ? IndicatorState.Fault
-                : beyondA || beyondB ? IndicatorState.Forward : IndicatorState.Reverse;
+            expected[i] = o.Point.ExpectedState(phase, residual, beyondA || beyondB);
             log += o.LogProbability(expected[i]);
         }
 

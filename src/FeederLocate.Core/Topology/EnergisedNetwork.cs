@@ -221,7 +221,7 @@ public sealed class EnergisedNetwork
                         _downNodeOfSegment[tag.Index] = v;
                         _z1FromBusOhm[v] = _z1FromBusOhm[u] + new Complex(type.R1OhmPerKm, type.X1OhmPerKm) * segment.LengthKm;
                         _z0FromBusOhm[v] = _z0FromBusOhm[u] + new Complex(type.R0OhmPerKm, type.X0OhmPerKm) * segment.LengthKm;
-                        _subtreeC0F[v] = type.C0NfPerKm * 1e-9 * segment.LengthKm;
+                        _subtreeC0F[v] = Units.FaradsPerKm(type.C0NfPerKm) * segment.LengthKm;
                     }
                     else
                     {
