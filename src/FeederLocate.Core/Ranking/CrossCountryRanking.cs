@@ -107,6 +107,7 @@ internal static class CrossCountryRanking
     private static double LoopCurrentA(FaultResponseModel model, int a, int b, double loopResistanceOhm)
     {
         var network = model.Network;
+        var sums = model.Aggregates;
         var grid = model.Grid;
         var upA = network.SuppliedEndOf(a);
         var upB = network.SuppliedEndOf(b);
@@ -129,12 +130,12 @@ internal static class CrossCountryRanking
         {
             var seg = grid.Segments[segment];
             var type = grid.LineTypeOf(seg);
-            var z1 = network.PositiveSequencePathOhm(up) + (new Complex(type.R1OhmPerKm, type.X1OhmPerKm) * seg.LengthKm / 2) - network.PositiveSequencePathOhm(branch);
-            var z0 = network.ZeroSequencePathOhm(up) + (new Complex(type.R0OhmPerKm, type.X0OhmPerKm) * seg.LengthKm / 2) - network.ZeroSequencePathOhm(branch);
+            var z1 = sums.PositiveSequencePathOhm(up) + (new Complex(type.R1OhmPerKm, type.X1OhmPerKm) * seg.LengthKm / 2) - sums.PositiveSequencePathOhm(branch);
+            var z0 = sums.ZeroSequencePathOhm(up) + (new Complex(type.R0OhmPerKm, type.X0OhmPerKm) * seg.LengthKm / 2) - sums.ZeroSequencePathOhm(branch);
             return ((2 * z1) + z0) / 3;
         }
 
-        var loop = (2 * (source + network.PositiveSequencePathOhm(branch))) + EarthLoopBeyondBranch(a, upA) + EarthLoopBeyondBranch(b, upB) + (2 * loopResistanceOhm);
+        var loop = (2 * (source + sums.PositiveSequencePathOhm(branch))) + EarthLoopBeyondBranch(a, upA) + EarthLoopBeyondBranch(b, upB) + (2 * loopResistanceOhm);
         return Math.Sqrt(3) * e / loop.Magnitude;
     }
 

@@ -1,12 +1,12 @@
 using System.Collections.Immutable;
-using System.Numerics;
 using FeederLocate.Core.Model;
 
 namespace FeederLocate.Core.Topology;
 
 /// <summary>
-/// The radial network energised for one switching state: per node its substation, the edge it is fed
-/// through and the series impedance from its bus; per segment its supplied end. Nodes are numbered in
+/// The radial network energised for one switching state: per node its substation and the edge it is fed
+/// through; per segment its supplied end. Pure topology: electrical sums over it are
+/// <see cref="Electrical.NetworkAggregates"/>. Nodes are numbered in
 /// pre-order from each bus, so "lies beyond" is an interval test.
 /// </summary>
 public sealed class EnergisedNetwork
@@ -18,12 +18,8 @@ public sealed class EnergisedNetwork
     private readonly int[] _subtreeSize;
     private readonly int[] _upNodeOfSegment;
     private readonly int[] _downNodeOfSegment;
-    private readonly Complex[] _z1FromBusOhm;
-    private readonly Complex[] _z0FromBusOhm;
-    private readonly double[] _subtreeC0F;
-    private readonly double[] _totalC0F;
 
-    private EnergisedNetwork(NetworkGraph graph, SwitchStates states, int nodeCount, int segmentCount, int substationCount)
+    private EnergisedNetwork(NetworkGraph graph, SwitchStates states, int nodeCount, int segmentCount)
     {
         Graph = graph;
         States = states;
@@ -34,10 +30,6 @@ public sealed class EnergisedNetwork
         _subtreeSize = new int[nodeCount];
         _upNodeOfSegment = Enumerable.Repeat(-1, segmentCount).ToArray();
         _downNodeOfSegment = Enumerable.Repeat(-1, segmentCount).ToArray();
-        _z1FromBusOhm = new Complex[nodeCount];
-        _z0FromBusOhm = new Complex[nodeCount];
-        _subtreeC0F = new double[nodeCount];
-        _totalC0F = new double[substationCount];
     }
 
     public NetworkGraph Graph { get; }
@@ -57,7 +49,7 @@ public sealed class EnergisedNetwork
         ArgumentNullException.ThrowIfNull(graph);
         ArgumentNullException.ThrowIfNull(states);
         var grid = graph.Grid;
-        var n = new EnergisedNetwork(graph, states, grid.Nodes.Length, grid.Segments.Length, grid.Substations.Length);
+        var n = new EnergisedNetwork(graph, states, grid.Nodes.Length, grid.Segments.Length);
         problem = n.Feed();
         network = problem is null ? n : null;
         return problem is null;
@@ -91,18 +83,6 @@ public sealed class EnergisedNetwork
     public bool IsAtOrBeyond(int ancestor, int node) =>
         _substationOfNode[ancestor] >= 0 && _substationOfNode[node] == _substationOfNode[ancestor]
         && _preorder[node] >= _preorder[ancestor] && _preorder[node] < _preorder[ancestor] + _subtreeSize[ancestor];
-
-    /// <summary>Sum of r1 + j·x1 over the energised path from the bus to the node, Ω (source excluded).</summary>
-    public Complex PositiveSequencePathOhm(int node) => _z1FromBusOhm[node];
-
-    /// <summary>Sum of r0 + j·x0 over the energised path from the bus to the node, Ω.</summary>
-    public Complex ZeroSequencePathOhm(int node) => _z0FromBusOhm[node];
-
-    /// <summary>Phase-to-earth capacitance, F per phase, of every segment fed through the node (including the edge into it).</summary>
-    public double CapacitanceAtOrBeyondF(int node) => _subtreeC0F[node];
-
-    /// <summary>Phase-to-earth capacitance, F per phase, of every energised segment galvanically connected to the substation's bus.</summary>
-    public double TotalCapacitanceF(int substation) => _totalC0F[substation];
 
     /// <summary>The edges from the node's bus to the node, in feeding order; empty for a bus or a dead node.</summary>
     public IReadOnlyList<EdgeRef> PathFromSource(NodeId node)
@@ -215,18 +195,8 @@ public sealed class EnergisedNetwork
                     order.Add(v);
                     if (tag.Kind == EdgeKind.Segment)
                     {
-                        var segment = grid.Segments[tag.Index];
-                        var type = grid.LineTypeOf(segment);
                         _upNodeOfSegment[tag.Index] = u;
                         _downNodeOfSegment[tag.Index] = v;
-                        _z1FromBusOhm[v] = _z1FromBusOhm[u] + new Complex(type.R1OhmPerKm, type.X1OhmPerKm) * segment.LengthKm;
-                        _z0FromBusOhm[v] = _z0FromBusOhm[u] + new Complex(type.R0OhmPerKm, type.X0OhmPerKm) * segment.LengthKm;
-                        _subtreeC0F[v] = Units.FaradsPerKm(type.C0NfPerKm) * segment.LengthKm;
-                    }
-                    else
-                    {
-                        _z1FromBusOhm[v] = _z1FromBusOhm[u];
-                        _z0FromBusOhm[v] = _z0FromBusOhm[u];
                     }
                 }
             }
@@ -242,7 +212,7 @@ public sealed class EnergisedNetwork
         return null;
     }
 
-    /// <summary>Subtree sizes and capacitances bottom-up, then pre-order numbers top-down.</summary>
+    /// <summary>Subtree sizes bottom-up, then pre-order numbers top-down.</summary>
     private void Number(List<int> order)
     {
         for (var i = order.Count - 1; i >= 0; i--)
@@ -252,11 +222,6 @@ public sealed class EnergisedNetwork
             if (_parentNode[v] is var p and >= 0)
             {
                 _subtreeSize[p] += _subtreeSize[v];
-                _subtreeC0F[p] += _subtreeC0F[v];
-            }
-            else
-            {
-                _totalC0F[_substationOfNode[v]] = _subtreeC0F[v];
             }
         }
 
