@@ -48,11 +48,19 @@ public sealed class EnergisedNetwork
     {
         ArgumentNullException.ThrowIfNull(graph);
         ArgumentNullException.ThrowIfNull(states);
+        var check = RadialCheck.Of(graph, states);
+        if (!check.IsRadial)
+        {
+            network = null;
+            problem = Describe(graph, check);
+            return false;
+        }
+
         var grid = graph.Grid;
-        var n = new EnergisedNetwork(graph, states, grid.Nodes.Length, grid.Segments.Length);
-        problem = n.Feed();
-        network = problem is null ? n : null;
-        return problem is null;
+        network = new EnergisedNetwork(graph, states, grid.Nodes.Length, grid.Segments.Length);
+        network.Feed();
+        problem = null;
+        return true;
     }
 
     /// <summary>Index of the substation feeding the node, or -1 when the node is dead.</summary>
@@ -137,55 +145,23 @@ public sealed class EnergisedNetwork
         return region;
     }
 
-    private TopologyProblem? Feed()
+    /// <summary>Feeds the radial network breadth-first from each bus in turn (the radial check has passed).</summary>
+    private void Feed()
     {
         var grid = Grid;
-        var adjacency = Graph.Graph;
         var order = new List<int>(grid.Nodes.Length);
-        var reported = new HashSet<EdgeRef>();
-        var busOf = new Dictionary<int, int>();
-        for (var s = 0; s < grid.Substations.Length; s++)
-        {
-            busOf[grid.NodeIndex(grid.Substations[s].BusNode)] = s;
-        }
-
-        TopologyProblem? problem = null;
         for (var s = 0; s < grid.Substations.Length; s++)
         {
             var bus = grid.NodeIndex(grid.Substations[s].BusNode);
-            if (_substationOfNode[bus] >= 0)
-            {
-                return Paralleled(bus, bus, EdgeRef.None);
-            }
-
             _substationOfNode[bus] = s;
             order.Add(bus);
             for (var head = order.Count - 1; head < order.Count; head++)
             {
                 var u = order[head];
-                foreach (var edge in adjacency.AdjacentEdges(u))
+                foreach (var (tag, v) in Graph.EdgesAt(u))
                 {
-                    var tag = edge.Tag;
                     if (tag == _parentEdge[u] || (tag.Kind == EdgeKind.Switch && !States.IsClosed(tag.Index)))
                     {
-                        continue;
-                    }
-
-                    var v = edge.Source == u ? edge.Target : edge.Source;
-                    if (_substationOfNode[v] >= 0)
-                    {
-                        if (reported.Add(tag))
-                        {
-                            problem ??= _substationOfNode[v] == s ? Loop(u, v, tag) : Paralleled(u, v, tag);
-                        }
-
-                        continue;
-                    }
-
-                    if (busOf.TryGetValue(v, out var otherBus) && otherBus != s)
-                    {
-                        // Reaching another substation's bus: the two are paralleled through this path.
-                        problem ??= ParalleledWith(u, otherBus, tag);
                         continue;
                     }
 
@@ -200,16 +176,10 @@ public sealed class EnergisedNetwork
                     }
                 }
             }
-
-            if (problem is not null)
-            {
-                return problem;
-            }
         }
 
         FeedOrder = [.. order];
         Number(order);
-        return null;
     }
 
     /// <summary>Subtree sizes bottom-up, then pre-order numbers top-down.</summary>
@@ -245,43 +215,21 @@ public sealed class EnergisedNetwork
         }
     }
 
-    private TopologyProblem Loop(int u, int v, EdgeRef closing)
+    /// <summary>The first reason the check fails: a paralleling of substations, else the first loop connected to a bus.</summary>
+    private static TopologyProblem Describe(NetworkGraph graph, RadialCheck check)
     {
-        var up = PathToRoot(u);
-        var vp = PathToRoot(v);
-        var common = up.Intersect(vp).First();
-        var elements = EdgesUpTo(u, common).Concat(EdgesUpTo(v, common).Reverse()).Append(Graph.Describe(closing)).ToImmutableArray();
-        return new TopologyProblem($"the switching state closes a loop: {string.Join(", ", elements)}", elements);
-    }
-
-    private TopologyProblem Paralleled(int u, int v, EdgeRef closing) => ParalleledWith(u, _substationOfNode[v], closing);
-
-    private TopologyProblem ParalleledWith(int u, int otherSubstation, EdgeRef closing)
-    {
-        var a = Grid.Substations[_substationOfNode[u]].Id;
-        var b = Grid.Substations[Math.Max(0, otherSubstation)].Id;
-        var elements = closing.IsNone ? [] : EdgesUpTo(u, -1).Reverse().Append(Graph.Describe(closing)).ToImmutableArray();
-        return new TopologyProblem(
-            $"the switching state parallels substations {a} and {b}{(closing.IsNone ? string.Empty : $" through {string.Join(", ", elements)}")}; a node must be fed from one bus only",
-            elements);
-    }
-
-    private List<int> PathToRoot(int v)
-    {
-        var path = new List<int>();
-        for (; v >= 0; v = _parentNode[v])
+        var grid = graph.Grid;
+        if (check.Parallelings.FirstOrDefault() is { } p)
         {
-            path.Add(v);
+            var elements = p.Path.Select(graph.Describe).ToImmutableArray();
+            var through = elements.IsEmpty ? string.Empty : $" through {string.Join(", ", elements)}";
+            return new TopologyProblem(
+                $"the switching state parallels substations {grid.Substations[p.First].Id} and {grid.Substations[p.Second].Id}{through}; a node must be fed from one bus only",
+                elements);
         }
 
-        return path;
-    }
-
-    private IEnumerable<string> EdgesUpTo(int v, int ancestor)
-    {
-        for (; v >= 0 && v != ancestor && !_parentEdge[v].IsNone; v = _parentNode[v])
-        {
-            yield return Graph.Describe(_parentEdge[v]);
-        }
+        var loop = check.Loops.First(l => l.Fed);
+        var onLoop = loop.Path.Append(loop.Closing).Select(graph.Describe).ToImmutableArray();
+        return new TopologyProblem($"the switching state closes a loop: {string.Join(", ", onLoop)}", onLoop);
     }
 }
