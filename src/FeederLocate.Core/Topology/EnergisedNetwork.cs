@@ -5,9 +5,9 @@ namespace FeederLocate.Core.Topology;
 
 /// <summary>
 /// The radial network energised for one switching state: per node its substation and the edge it is fed
-/// through; per segment its supplied end. Pure topology: electrical sums over it are
-/// <see cref="Electrical.NetworkAggregates"/>. Nodes are numbered in
-/// pre-order from each bus, so "lies beyond" is an interval test.
+/// through; per segment its supplied end. Nodes are numbered in pre-order from each bus, so "lies beyond"
+/// is an interval test. Pure topology: <see cref="RadialCheck"/> decides whether the state is radial, and
+/// the electrical sums over the network are <see cref="Electrical.NetworkAggregates"/>.
 /// </summary>
 public sealed class EnergisedNetwork
 {
