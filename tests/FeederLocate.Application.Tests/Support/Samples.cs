@@ -11,24 +11,9 @@ public static class Samples
 {
     public static Actor Operator { get; } = new("ana", "operator");
 
-    public static string Root { get; } = FindRoot(AppContext.BaseDirectory);
+    public static NetworkGraph Graph(string scheme) => new(SampleGrids.Grid(scheme));
 
-    public static NetworkGraph Graph(string scheme) =>
-        new(GridReader.Parse(File.ReadAllText(Path.Combine(Root, "sample-grid", $"marrowdell-{scheme}.grid.json"))).ValueOrThrow());
-
+    /// <summary>A sample incident by file name (for instance solid-lg-trip-a1.incident.json), checked against <paramref name="grid"/>.</summary>
     public static Incident Incident(string file, Grid grid) =>
-        IncidentReader.Parse(File.ReadAllText(Path.Combine(Root, "sample-grid", "incidents", file)), grid).ValueOrThrow();
-
-    private static string FindRoot(string start)
-    {
-        for (var dir = new DirectoryInfo(start); dir is not null; dir = dir.Parent)
-        {
-            if (File.Exists(Path.Combine(dir.FullName, "FeederLocate.sln")))
-            {
-                return dir.FullName;
-            }
-        }
-
-        throw new InvalidOperationException($"no FeederLocate.sln above {start}");
-    }
+        IncidentReader.Parse(File.ReadAllText(RepositoryFiles.Path("sample-grid", "incidents", file)), grid).ValueOrThrow();
 }

@@ -3,15 +3,14 @@ using FeederLocate.Storage;
 
 namespace FeederLocate.Application.Tests.Support;
 
-/// <summary>An incident log on a fresh SQLite file, deleted with its folder when the test ends.</summary>
+/// <summary>An incident log on a fresh SQLite file with a clock that stands still, deleted when the test ends.</summary>
 public sealed class TestLog : IDisposable
 {
-    private readonly string _folder = Path.Combine(Path.GetTempPath(), "feederlocate-application-" + Guid.NewGuid().ToString("N"));
+    private readonly TempDatabase _database = new();
 
     public TestLog()
     {
-        Directory.CreateDirectory(_folder);
-        Log = new IncidentLog(IncidentStore.Open(Path.Combine(_folder, "incidents.db")));
+        Log = new IncidentLog(IncidentStore.Open(_database.Path, TestClock.Manual()));
     }
 
     public IncidentLog Log { get; }
@@ -19,7 +18,6 @@ public sealed class TestLog : IDisposable
     public void Dispose()
     {
         Log.Dispose();
-        Microsoft.Data.Sqlite.SqliteConnection.ClearAllPools();
-        Directory.Delete(_folder, recursive: true);
+        _database.Dispose();
     }
 }

@@ -17,14 +17,14 @@ namespace FeederLocate.Web.Tests.Components;
 /// <summary>The incident page with the real services over a fresh SQLite file (registered before bUnit's own setup reads any).</summary>
 public sealed class WorkspaceAnalysisTests : BunitContext
 {
-    private readonly string _folder = Directory.CreateTempSubdirectory("feederlocate-workspace-").FullName;
+    private readonly TempDatabase _database = new();
     private readonly HeldRanker _ranker = new();
     private readonly IncidentBoard _board;
-    private readonly GridCatalog _grids = new(Path.Combine(TestGrids.Root, "sample-grid"), "marrowdell-solid.grid.json");
+    private readonly GridCatalog _grids = new(RepositoryFiles.Path("sample-grid"), SampleGrids.FileName("solid"));
 
     public WorkspaceAnalysisTests()
     {
-        _board = new IncidentBoard(IncidentStore.Open(Path.Combine(_folder, "incidents.db")));
+        _board = new IncidentBoard(IncidentStore.Open(_database.Path));
         Services.AddSingleton(_grids);
         Services.AddSingleton(_board);
         Services.AddSingleton(new IncidentAnalysis(new GridLearning(_board), _ranker));
@@ -59,8 +59,7 @@ public sealed class WorkspaceAnalysisTests : BunitContext
         {
             _board.Dispose();
             _ranker.Dispose();
-            Microsoft.Data.Sqlite.SqliteConnection.ClearAllPools();
-            Directory.Delete(_folder, recursive: true);
+            _database.Dispose();
         }
     }
 }
