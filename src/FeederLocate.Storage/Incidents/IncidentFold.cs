@@ -24,7 +24,7 @@ internal static class IncidentFold
         }
 
         var first = events[0];
-        var start = new IncidentState(first.Incident, opened.GridName, opened.Incident, IncidentStatus.Open, [], null, first.Actor, first.Time, null, 1);
+        var start = new IncidentState(first.Incident, opened.GridName, opened.Incident, IncidentStatus.Open, [], null, first.Actor, first.Time, null, 1) { LastEvent = first.Id };
         return Continue(start, events, 1);
     }
 
@@ -119,6 +119,7 @@ internal static class IncidentFold
             Outcome = outcome,
             ClosedAt = closedAt,
             EventCount = state.EventCount + Math.Max(0, events.Count - from),
+            LastEvent = events.Count > from ? events[^1].Id : state.LastEvent,
         };
     }
 

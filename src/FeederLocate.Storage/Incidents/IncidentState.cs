@@ -23,4 +23,10 @@ public sealed record IncidentState(
     int EventCount)
 {
     public DateTimeOffset ReportedAt => Incident.ReportedAt;
+
+    /// <summary>
+    /// The id of the incident's latest event. Ids increase in commit order across the whole log, so a state
+    /// with a greater id is a later one: what caches of anything derived from the incident key on.
+    /// </summary>
+    public EventId LastEvent { get; init; }
 }

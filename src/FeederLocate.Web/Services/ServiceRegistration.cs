@@ -1,3 +1,7 @@
+using FeederLocate.Application.Analysis;
+using FeederLocate.Application.Evidence;
+using FeederLocate.Application.History;
+using FeederLocate.Application.Incidents;
 using FeederLocate.Storage;
 using FeederLocate.Web.Security;
 
@@ -14,9 +18,13 @@ public static class ServiceRegistration
         services.AddSingleton(_ => new GridCatalog(RepositoryPaths.Resolve(root, options.GridFolder), options.DefaultGrid));
         var databasePath = RepositoryPaths.Resolve(root, options.DatabasePath);
         services.AddSingleton(_ => new IncidentBoard(IncidentStore.Open(databasePath)));
+        services.AddSingleton<IncidentLog>(provider => provider.GetRequiredService<IncidentBoard>());
         services.AddFeederLocateSecurity(databasePath);
-        services.AddSingleton<IncidentAnalysis>();
+        services.AddSingleton<IFaultRanker, CoreFaultRanker>();
+        services.AddSingleton(provider => new GridLearning(provider.GetRequiredService<IncidentLog>()));
+        services.AddSingleton(provider => new IncidentAnalysis(provider.GetRequiredService<GridLearning>(), provider.GetRequiredService<IFaultRanker>()));
         services.AddSingleton<IncidentHistory>();
+        services.AddSingleton<EvidenceIntake>();
         services.AddSingleton(TimeProvider.System);
         return services;
     }
