@@ -70,7 +70,7 @@ public sealed class IncidentStore : IDisposable
     /// Logs an incident with its confirmed fault location and closes it, all in one transaction: the
     /// <c>record</c> command. The outcome's segment must be in <paramref name="grid"/>.
     /// </summary>
-    public IncidentId Record(Grid grid, Incident incident, OutcomeLogged outcome, Actor actor)
+    public IncidentId Append(Grid grid, Incident incident, OutcomeLogged outcome, Actor actor)
     {
         ArgumentNullException.ThrowIfNull(grid);
         ArgumentNullException.ThrowIfNull(outcome);
@@ -120,12 +120,12 @@ public sealed class IncidentStore : IDisposable
     /// Every incident of the grid named <paramref name="gridName"/> (exact match) with an outcome logged, by id,
     /// each with its evidence as last updated and the confirmed segment.
     /// </summary>
-    public IReadOnlyList<RecordedOutcome> Outcomes(string gridName)
+    public IReadOnlyList<IncidentOutcome> Outcomes(string gridName)
     {
         ArgumentNullException.ThrowIfNull(gridName);
         return States(gridName)
             .Where(s => s.Outcome is not null)
-            .Select(s => new RecordedOutcome(s.Id, s.Incident, s.Outcome!.Outcome.ConfirmedSegment, s.ReportedAt) { LastEvent = s.LastEvent })
+            .Select(s => new IncidentOutcome(s.Id, s.Incident, s.Outcome!.Outcome.ConfirmedSegment, s.ReportedAt) { LastEvent = s.LastEvent })
             .ToList();
     }
 

@@ -73,7 +73,7 @@ public static class LogVerification
 
     private static bool SameReading(Indication posted, Indication logged) =>
         posted.Indicator == logged.Indicator && posted.State == logged.State && posted.Source == logged.Source
-        && posted.ReadAt == logged.ReadAt && posted.Suspect == logged.Suspect;
+        && posted.ReadAt == logged.ReadAt && posted.Distrusted == logged.Distrusted;
 
     private static void Note(List<string> findings, string finding)
     {

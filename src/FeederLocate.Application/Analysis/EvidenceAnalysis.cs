@@ -14,14 +14,9 @@ public static class EvidenceAnalysis
         ArgumentNullException.ThrowIfNull(graph);
         ArgumentNullException.ThrowIfNull(incident);
         ArgumentNullException.ThrowIfNull(priors);
-        try
-        {
-            return new RankingOutcome((ranker ?? new CoreFaultRanker()).Rank(graph, incident, priors), null);
-        }
-        catch (RankingException e)
-        {
-            return new RankingOutcome(null, e.Message);
-        }
+        return FaultRanking.Refusal(graph, incident) is { } problem
+            ? new RankingOutcome(null, problem)
+            : new RankingOutcome((ranker ?? new CoreFaultRanker()).Rank(graph, incident, priors), null);
     }
 
     /// <summary>The switching order for the ranking's most likely section; the problem instead when there is none.</summary>

@@ -34,7 +34,7 @@ public sealed class EvidenceIntake(IncidentLog log)
             return new EvidenceResult(0, read.Issues);
         }
 
-        log.RecordAll(incident, [.. items.Select(toEvent)], actor, grid);
+        log.AppendAll(incident, [.. items.Select(toEvent)], actor, grid);
         return new EvidenceResult(items.Count, read.Issues);
     }
 }

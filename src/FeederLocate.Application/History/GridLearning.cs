@@ -43,10 +43,10 @@ public sealed class GridLearning
     }
 
     /// <summary>The grid's confirmed incidents, for learning.</summary>
-    public IReadOnlyList<ConfirmedIncident> ConfirmedIncidents(NetworkGraph graph)
+    public IReadOnlyList<Outcome> OutcomesForLearning(NetworkGraph graph)
     {
         ArgumentNullException.ThrowIfNull(graph);
-        return History.ConfirmedIncidents.Of(graph.Grid, Outcomes(graph).All);
+        return LearningOutcomes.Of(graph.Grid, Outcomes(graph).All);
     }
 
     /// <summary>Fault rates and indicator reliabilities learned from every outcome of the grid.</summary>
@@ -74,13 +74,13 @@ public sealed class GridLearning
             : LearnedRankingPriors.ToRankingPriors(LearnedRankingPriors.Learn(graph.Grid, Observe(graph, used)), hasHistory: true));
     }
 
-    private List<ObservedIncident> Observe(NetworkGraph graph, IReadOnlyList<RecordedOutcome> outcomes) =>
+    private List<ObservedIncident> Observe(NetworkGraph graph, IReadOnlyList<IncidentOutcome> outcomes) =>
         [.. outcomes.Select(o => _observed.GetOrAdd((graph, o.Id, o.LastEvent.Value), _ =>
         {
-            var confirmed = History.ConfirmedIncidents.Of(graph.Grid, [o])[0];
+            var confirmed = LearningOutcomes.Of(graph.Grid, [o])[0];
             return new ObservedIncident(confirmed, LearnedRankingPriors.ObservationsOf(graph, confirmed));
         }))];
 }
 
 /// <summary>A grid's outcomes as read at one moment, and the id of the last event among their incidents (0 when none).</summary>
-public sealed record GridOutcomes(IReadOnlyList<RecordedOutcome> All, long Through);
+public sealed record GridOutcomes(IReadOnlyList<IncidentOutcome> All, long Through);

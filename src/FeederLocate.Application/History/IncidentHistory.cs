@@ -42,7 +42,7 @@ public sealed class IncidentHistory(IncidentLog log, GridLearning learning, Inci
             reviews.Add(new IncidentReview(summary, section, rank));
         }
 
-        var perSection = learning.ConfirmedIncidents(graph)
+        var perSection = learning.OutcomesForLearning(graph)
             .GroupBy(o => graph.Sections.OfSegment(grid.SegmentIndex(o.Segment)).Id)
             .ToDictionary(g => g.Key, g => g.Count());
         return new GridHistory(reviews, [.. learning.Learned(graph).Indicators.Indicators], perSection);

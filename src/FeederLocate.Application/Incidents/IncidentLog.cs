@@ -53,7 +53,7 @@ public class IncidentLog : IDisposable
     }
 
     /// <summary>The incidents of the grid named <paramref name="gridName"/> with an outcome logged (see <see cref="IncidentStore.Outcomes"/>).</summary>
-    public IReadOnlyList<RecordedOutcome> Outcomes(string gridName)
+    public IReadOnlyList<IncidentOutcome> Outcomes(string gridName)
     {
         lock (_gate)
         {
@@ -80,23 +80,23 @@ public class IncidentLog : IDisposable
         Open(grid, new Incident(reportedAt, null, ImmutableDictionary<SwitchId, SwitchPosition>.Empty, trippedDevice, faultType, [], []), actor);
 
     /// <summary>Logs a past incident with where its fault was confirmed, and closes it, in one transaction.</summary>
-    public IncidentId Record(Grid grid, Incident incident, OutcomeLogged outcome, Actor actor)
+    public IncidentId Append(Grid grid, Incident incident, OutcomeLogged outcome, Actor actor)
     {
         IncidentId id;
         lock (_gate)
         {
-            id = _store.Record(grid, incident, outcome, actor);
+            id = _store.Append(grid, incident, outcome, actor);
         }
 
         Changed?.Invoke(id);
         return id;
     }
 
-    /// <summary>Appends one change; see <see cref="RecordAll"/>.</summary>
-    public void Record(IncidentId id, IncidentEvent change, Actor actor, Grid? grid = null) => RecordAll(id, [change], actor, grid);
+    /// <summary>Appends one change; see <see cref="AppendAll"/>.</summary>
+    public void Append(IncidentId id, IncidentEvent change, Actor actor, Grid? grid = null) => AppendAll(id, [change], actor, grid);
 
     /// <summary>Appends every change in one transaction (all or none), checked against the grid when given.</summary>
-    public void RecordAll(IncidentId id, IReadOnlyList<IncidentEvent> changes, Actor actor, Grid? grid = null)
+    public void AppendAll(IncidentId id, IReadOnlyList<IncidentEvent> changes, Actor actor, Grid? grid = null)
     {
         lock (_gate)
         {

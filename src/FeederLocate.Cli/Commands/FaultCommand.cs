@@ -86,7 +86,7 @@ internal static class FaultCommand
         FaultResult result;
         try
         {
-            result = FaultCurrents.At(network!, new FaultCase(new SegmentId(segmentId), position, type!.Value, rfOhm, voltageFactor));
+            result = FaultCurrents.At(network, new FaultCase(new SegmentId(segmentId), position, type!.Value, rfOhm, voltageFactor));
         }
         catch (FaultCaseException e)
         {

@@ -67,7 +67,7 @@ internal static class HistoryCommands
             using var log = HistoryDatabase.OpenLog(parse.GetValue(db)!);
             var graph = new NetworkGraph(model);
             var learning = new GridLearning(log);
-            var outcomes = learning.ConfirmedIncidents(graph);
+            var outcomes = learning.OutcomesForLearning(graph);
             var learned = learning.Learned(graph);
             var segments = learned.FaultRates.Segments.OrderByDescending(s => s.Faults).ThenByDescending(s => s.FaultsPerKmYear).ToList();
             var indicators = learned.Indicators.Indicators.OrderByDescending(i => i.FalseReportProbability + i.MissProbability).ToList();

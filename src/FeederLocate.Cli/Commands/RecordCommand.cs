@@ -39,7 +39,7 @@ internal static class RecordCommand
 
         var actor = Logger(dbPath, by);
         using var log = HistoryDatabase.OpenLog(dbPath);
-        var id = log.Record(grid, incident, new OutcomeLogged(segment, incident.FaultType, cause), actor);
+        var id = log.Append(grid, incident, new OutcomeLogged(segment, incident.FaultType, cause), actor);
         if (json)
         {
             JsonOutput.Write(console.Out, new { incidentId = id.Value });

@@ -49,7 +49,7 @@ public sealed class BaselineLocator
         var node = -1;
         foreach (var indication in incident.Indications)
         {
-            if (indication.Suspect || indication.State is not (IndicatorState.Fault or IndicatorState.Forward))
+            if (indication.Distrusted || indication.State is not (IndicatorState.Fault or IndicatorState.Forward))
             {
                 continue;
             }

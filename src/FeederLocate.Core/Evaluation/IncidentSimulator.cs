@@ -10,7 +10,7 @@ namespace FeederLocate.Core.Evaluation;
 /// <summary>
 /// Makes incidents with the reference model: a segment drawn by its prior fault rate, a uniform position,
 /// a fault type and resistance suited to the grounding, every indicator's expected state corrupted at
-/// the given rates, and noisy substation records at the feeder breakers.
+/// the given rates, and noisy substation measurements at the feeder breakers.
 /// </summary>
 public sealed class IncidentSimulator
 {
@@ -166,6 +166,6 @@ public sealed class IncidentSimulator
     {
         // Box–Muller: a standard normal draw.
         var z = Math.Sqrt(-2 * Math.Log(1 - random.NextDouble())) * Math.Cos(2 * Math.PI * random.NextDouble());
-        return Math.Max(0, value * (1 + (_settings.RecordNoiseRelative * z)));
+        return Math.Max(0, value * (1 + (_settings.MeasurementNoiseRelative * z)));
     }
 }

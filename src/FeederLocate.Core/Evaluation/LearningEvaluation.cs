@@ -63,7 +63,7 @@ public static class LearningEvaluation
         var total = checkpoints.Count + 1;
         foreach (var k in checkpoints.Order())
         {
-            var outcomes = history.Take(k).Select(h => new ConfirmedIncident(h.Incident, h.Segment)).ToList();
+            var outcomes = history.Take(k).Select(h => new Outcome(h.Incident, h.Segment)).ToList();
             var priors = LearnedRankingPriors.From(graph, outcomes);
             curve.Add(new LearningPoint(k, SectionTop1(graph, tests, options, priors)));
             progress?.Report(++done / (double)total);

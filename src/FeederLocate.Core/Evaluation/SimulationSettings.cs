@@ -7,13 +7,13 @@ namespace FeederLocate.Core.Evaluation;
 /// How simulated incidents go wrong: each indication is lost (unknown) with <see cref="UnknownProbability"/>;
 /// one that should show a pickup shows none with <see cref="MissProbability"/>; one that should show none
 /// reports falsely with <see cref="FalseProbability"/> (or its own rate in <see cref="FalseProbabilityByIndicator"/>).
-/// Substation records carry relative noise.
+/// Substation measurements carry relative noise.
 /// </summary>
 public sealed record SimulationSettings(
     double MissProbability = 0.05,
     double FalseProbability = 0.02,
     double UnknownProbability = 0.10,
-    double RecordNoiseRelative = 0.02,
+    double MeasurementNoiseRelative = 0.02,
     ImmutableDictionary<IndicatorId, double>? FalseProbabilityByIndicator = null)
 {
     public double FalseProbabilityOf(IndicatorId indicator) =>

@@ -41,15 +41,15 @@ public enum SwitchPosition
 }
 
 /// <summary>One indicator's state as reported by telecontrol or read by a crew.</summary>
-/// <param name="Suspect">The operator distrusts this indicator; the ranking leaves it out.</param>
+/// <param name="Distrusted">The operator distrusts this reading (the files' and the API's `suspect` field); the ranking leaves it out.</param>
 public sealed record Indication(
     IndicatorId Indicator,
     IndicatorState State,
     IndicationSource Source,
     DateTimeOffset? ReadAt = null,
-    bool Suspect = false);
+    bool Distrusted = false);
 
-/// <summary>Substation record of the feeder breaker <see cref="Device"/>: currents toward the feeder.</summary>
+/// <summary>Substation measurement of the feeder breaker <see cref="Device"/>: currents toward the feeder.</summary>
 /// <param name="PhaseCurrentA">Largest faulted-phase RMS current.</param>
 /// <param name="ResidualCurrentA">|3I0|.</param>
 /// <param name="NeutralVoltageV">|U0| at the busbar.</param>
@@ -61,7 +61,7 @@ public sealed record SubstationMeasurement(
 
 /// <summary>
 /// What is known of one incident: switch states deviating from normal, the device that cleared the
-/// fault (null when nothing tripped), the fault type (null when unknown), substation records and
+/// fault (null when nothing tripped), the fault type (null when unknown), substation measurements and
 /// indications. <see cref="ReenergisedAt"/> is the time of the latest trial re-energisation, if any:
 /// indications read before it are stale.
 /// </summary>

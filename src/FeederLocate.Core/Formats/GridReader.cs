@@ -251,7 +251,7 @@ public static class GridReader
         GridFormat.Choice(r, "kind", GridFormat.SwitchKinds) ?? SwitchKind.Disconnector,
         r.RequiredBool("normallyOpen") ?? false,
         r.RequiredBool("remote") ?? false,
-        r.OptionalNumber("travelMinutes", NumberRange.AtLeast(0)));
+        Units.Duration(r.OptionalNumber("travelMinutes", NumberRange.AtLeast(0))));
 
     private static Indicator ReadIndicator(ElementReader r)
     {
@@ -263,7 +263,7 @@ public static class GridReader
             r.OptionalNumber("earthPickupA", NumberRange.Positive),
             r.RequiredBool("directional") ?? false,
             r.RequiredBool("remote") ?? false,
-            r.OptionalNumber("resetMinutes", NumberRange.Positive));
+            Units.Duration(r.OptionalNumber("resetMinutes", NumberRange.Positive)));
         if (indicator.PhasePickupA is null && indicator.EarthPickupA is null)
         {
             r.Error("phasePickupA", "or earthPickupA is required: an indicator needs at least one element");

@@ -36,7 +36,7 @@ public static class GridWriter
                 w.WriteString("kind", GridFormat.Name(s.Kind));
                 w.WriteBoolean("normallyOpen", s.NormallyOpen);
                 w.WriteBoolean("remote", s.Remote);
-                Optional(w, "travelMinutes", s.TravelMinutes);
+                Optional(w, "travelMinutes", Units.Minutes(s.TravelTime));
             });
             Array(w, "indicators", grid.Indicators, (w, i) =>
             {
@@ -47,7 +47,7 @@ public static class GridWriter
                 Optional(w, "earthPickupA", i.EarthPickupA);
                 w.WriteBoolean("directional", i.Directional);
                 w.WriteBoolean("remote", i.Remote);
-                Optional(w, "resetMinutes", i.ResetMinutes);
+                Optional(w, "resetMinutes", Units.Minutes(i.ResetTime));
             });
             w.WriteEndObject();
         }

@@ -68,7 +68,7 @@ public static class IncidentWriter
                     w.WriteString("readAt", Time(readAt));
                 }
 
-                if (i.Suspect)
+                if (i.Distrusted)
                 {
                     w.WriteBoolean("suspect", true);
                 }

@@ -24,7 +24,7 @@ namespace FeederLocate.Core.Learning;
 /// </remarks>
 public static class FaultRateLearning
 {
-    public static FaultRateEstimate Learn(Grid grid, IEnumerable<ConfirmedFault> faults, FaultRateOptions? options = null)
+    public static FaultRateEstimate Learn(Grid grid, IEnumerable<OutcomeSite> faults, FaultRateOptions? options = null)
     {
         ArgumentNullException.ThrowIfNull(grid);
         ArgumentNullException.ThrowIfNull(faults);
@@ -63,7 +63,7 @@ public static class FaultRateLearning
     }
 
     /// <summary>T in years: the configured period, else the span of the history (at least the minimum), 0 without history.</summary>
-    public static double ObservationYears(IReadOnlyCollection<ConfirmedFault> faults, FaultRateOptions options)
+    public static double ObservationYears(IReadOnlyCollection<OutcomeSite> faults, FaultRateOptions options)
     {
         ArgumentNullException.ThrowIfNull(faults);
         ArgumentNullException.ThrowIfNull(options);

@@ -12,7 +12,7 @@ public static class HistoryLearning
 {
     public static LearnedPriors Learn(
         Grid grid,
-        IEnumerable<ConfirmedFault> faults,
+        IEnumerable<OutcomeSite> faults,
         IEnumerable<IndicatorObservation> observations,
         LearningOptions? options = null)
     {

@@ -7,12 +7,12 @@ namespace FeederLocate.Core.Learning;
 /// What one indicator showed in a past incident (<paramref name="Observed"/>) against what the fault
 /// model says it should have shown for the confirmed fault (<paramref name="Expected"/>).
 /// </summary>
-/// <param name="Suspect">The operator distrusted the reading; it then counts for nothing.</param>
+/// <param name="Distrusted">The operator distrusted the reading; it then counts for nothing.</param>
 public sealed record IndicatorObservation(
     IndicatorId Indicator,
     IndicatorState Expected,
     IndicatorState Observed,
-    bool Suspect = false)
+    bool Distrusted = false)
 {
     /// <summary>
     /// Pairs the expected states with what <paramref name="incident"/> reports: an indicator the incident does
@@ -25,7 +25,7 @@ public sealed record IndicatorObservation(
         ArgumentNullException.ThrowIfNull(expected);
         return expected
             .Select(pair => incident.IndicationOf(pair.Key) is { } indication
-                ? new IndicatorObservation(pair.Key, pair.Value, indication.State, indication.Suspect)
+                ? new IndicatorObservation(pair.Key, pair.Value, indication.State, indication.Distrusted)
                 : new IndicatorObservation(pair.Key, pair.Value, IndicatorState.Unknown))
             .ToList();
     }

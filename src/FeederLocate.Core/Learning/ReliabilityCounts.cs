@@ -28,7 +28,7 @@ public sealed record ReliabilityCounts(int MissTrials, int Misses, int FalseRepo
     public static ReliabilityCounts Of(IndicatorObservation observation)
     {
         ArgumentNullException.ThrowIfNull(observation);
-        if (observation.Suspect || observation.Expected == IndicatorState.Unknown || observation.Observed == IndicatorState.Unknown)
+        if (observation.Distrusted || observation.Expected == IndicatorState.Unknown || observation.Observed == IndicatorState.Unknown)
         {
             return Zero;
         }

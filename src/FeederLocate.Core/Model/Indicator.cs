@@ -10,7 +10,7 @@ namespace FeederLocate.Core.Model;
 /// <param name="EarthPickupA">Residual (earth) element pickup on |3I0|; null means no earth element.</param>
 /// <param name="Directional">True: reports forward or reverse, never fault.</param>
 /// <param name="Remote">Reports over telecontrol; false means read in the field.</param>
-/// <param name="ResetMinutes">How long a flag stays up after the fault; null means it stays until reset.</param>
+/// <param name="ResetTime">How long a flag stays up after the fault (the grid's resetMinutes); null means it stays until reset.</param>
 public sealed record Indicator(
     IndicatorId Id,
     SegmentId Segment,
@@ -19,7 +19,7 @@ public sealed record Indicator(
     double? EarthPickupA,
     bool Directional,
     bool Remote,
-    double? ResetMinutes = null)
+    TimeSpan? ResetTime = null)
 {
     /// <summary>
     /// The state the indicator shows for the currents through it: it picks up when the phase current

@@ -12,7 +12,7 @@ public enum SwitchKind
 /// <summary>A switching device between two nodes. It has no impedance.</summary>
 /// <param name="NormallyOpen">True marks a tie point, open in the normal state.</param>
 /// <param name="Remote">Operable from the control room.</param>
-/// <param name="TravelMinutes">Time for a crew to reach it, for manual devices.</param>
+/// <param name="TravelTime">Time for a crew to reach it, for manual devices (the grid's travelMinutes).</param>
 public sealed record SwitchingDevice(
     SwitchId Id,
     NodeId From,
@@ -20,7 +20,7 @@ public sealed record SwitchingDevice(
     SwitchKind Kind,
     bool NormallyOpen,
     bool Remote,
-    double? TravelMinutes = null)
+    TimeSpan? TravelTime = null)
 {
     /// <summary>True where the device is open in the normal state.</summary>
     public bool IsTie => NormallyOpen;

@@ -18,4 +18,10 @@ public static class Units
 
     /// <summary>A rate per km·year from the rate per 100 km·year that fault statistics quote.</summary>
     public static double PerKmYear(double per100KmYear) => per100KmYear / 100;
+
+    /// <summary>A duration from minutes as the files give them (resetMinutes, travelMinutes); null stays null.</summary>
+    public static TimeSpan? Duration(double? minutes) => minutes is { } m ? TimeSpan.FromMinutes(m) : null;
+
+    /// <summary>Minutes as the files write them, from a duration; null stays null.</summary>
+    public static double? Minutes(TimeSpan? duration) => duration?.TotalMinutes;
 }

@@ -24,7 +24,7 @@ internal static class CrossCountryRanking
             && computation.Incident.FaultType is null or FaultType.LG or FaultType.LLG;
     }
 
-    public static Outcome Rank(RankingComputation computation, List<SegmentScore> scores, RankingOptions options)
+    public static CrossCountryResult Rank(RankingComputation computation, List<SegmentScore> scores, RankingOptions options)
     {
         var model = computation.Model;
         var network = computation.Network;
@@ -83,7 +83,7 @@ internal static class CrossCountryRanking
             consistent = ConsistencyCheck.Explains(Checks(computation, top.Expected), MeasurementChecks(computation, top.Predicted), top.InsideTrip, options);
         }
 
-        return new Outcome(
+        return new CrossCountryResult(
             [.. p.Take(scores.Count)],
             [.. ranked.OrderByDescending(r => r.Probability).Take(10)],
             shares,
@@ -172,7 +172,7 @@ internal static class CrossCountryRanking
             predicted[m] = (beyondA || beyondB ? currentA : 0, beyondA != beyondB ? currentA : 0);
 
             // The neutral voltage of a cross-country fault is not modelled: that record carries no evidence here.
-            log += computation.RecordLogLikelihood(record.Measurement with { NeutralVoltageV = null }, (predicted[m].Item1, predicted[m].Item2, 0));
+            log += computation.MeasurementLogLikelihood(record.Measurement with { NeutralVoltageV = null }, (predicted[m].Item1, predicted[m].Item2, 0));
         }
 
         var inside = computation.Incident.TrippedDevice is null || computation.TripLogFactor(a) == 0 || computation.TripLogFactor(b) == 0;
@@ -210,7 +210,7 @@ internal static class CrossCountryRanking
         return checks.ToImmutable();
     }
 
-    internal sealed record Outcome(
+    internal sealed record CrossCountryResult(
         ImmutableArray<double> SingleProbabilities,
         ImmutableArray<CrossCountrySuspect> Pairs,
         Dictionary<int, double> SegmentShares,

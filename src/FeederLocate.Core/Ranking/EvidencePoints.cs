@@ -21,8 +21,8 @@ internal sealed record ObservedIndication(
     public double LogProbability(IndicatorState expected) => LogProbabilityByExpected[(int)expected];
 }
 
-/// <summary>A substation record compiled against the measuring point of its device.</summary>
-internal sealed record MeasuredRecord(SubstationMeasurement Measurement, MeasuringPoint Point);
+/// <summary>A substation measurement compiled against the measuring point of its device.</summary>
+internal sealed record MeasurementPoint(SubstationMeasurement Measurement, MeasuringPoint Point);
 
 internal static class EvidencePoints
 {
@@ -31,7 +31,7 @@ internal static class EvidencePoints
         var observed = new List<ObservedIndication>();
         foreach (var indication in incident.Indications)
         {
-            if (indication.Suspect)
+            if (indication.Distrusted)
             {
                 leftOut.Add(indication.Indicator);
                 continue;
@@ -59,8 +59,8 @@ internal static class EvidencePoints
         return observed;
     }
 
-    public static List<MeasuredRecord> Measurements(Grid grid, Incident incident, FaultResponseModel model) =>
-        [.. incident.Measurements.Select(m => new MeasuredRecord(m, model.SwitchPoint(grid.SwitchIndex(m.Device))))];
+    public static List<MeasurementPoint> Measurements(Grid grid, Incident incident, FaultResponseModel model) =>
+        [.. incident.Measurements.Select(m => new MeasurementPoint(m, model.SwitchPoint(grid.SwitchIndex(m.Device))))];
 
     /// <summary>
     /// Read after the flag may have reset, or before a trial re-energisation changed what it shows.
@@ -72,7 +72,7 @@ internal static class EvidencePoints
             return false;
         }
 
-        var afterReset = indicator.ResetMinutes is { } reset && readAt - incident.ReportedAt > TimeSpan.FromMinutes(reset);
+        var afterReset = indicator.ResetTime is { } reset && readAt - incident.ReportedAt > reset;
         var beforeReenergising = incident.ReenergisedAt is { } reenergised && readAt < reenergised;
         return afterReset || beforeReenergising;
     }

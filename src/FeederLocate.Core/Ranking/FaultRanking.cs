@@ -1,3 +1,4 @@
+using System.Diagnostics.CodeAnalysis;
 using System.Collections.Immutable;
 using System.Globalization;
 using FeederLocate.Core.Evidence;
@@ -8,7 +9,7 @@ namespace FeederLocate.Core.Ranking;
 
 /// <summary>
 /// Entry point of the ranking: the posterior probability of the fault lying on each energised segment
-/// (and so in each section), from the indications and substation records of an incident, with the
+/// (and so in each section), from the indications and substation measurements of an incident, with the
 /// reference fault model predicting what each would show for a fault anywhere.
 /// </summary>
 public static class FaultRanking
@@ -30,21 +31,51 @@ public static class FaultRanking
         return Assemble(computation, scores);
     }
 
-    /// <summary>Ranks an incident, or says why it cannot.</summary>
-    public static bool TryRank(Grid grid, Incident incident, out RankingResult? result, out string? problem, RankingOptions? options = null, RankingPriors? priors = null)
+    /// <summary>
+    /// Ranks an incident, or says why it cannot: switch states that give no radial network, or nothing
+    /// energised. Such evidence is a refusal, never an exception.
+    /// </summary>
+    public static bool TryRank(Grid grid, Incident incident, [NotNullWhen(true)] out RankingResult? result, [NotNullWhen(false)] out string? problem, RankingOptions? options = null, RankingPriors? priors = null)
     {
-        try
-        {
-            result = Rank(grid, incident, options, priors);
-            problem = null;
-            return true;
-        }
-        catch (RankingException e)
+        ArgumentNullException.ThrowIfNull(grid);
+        return TryRank(new NetworkGraph(grid), incident, out result, out problem, options, priors);
+    }
+
+    /// <summary>As <see cref="TryRank(Grid, Incident, out RankingResult?, out string?, RankingOptions?, RankingPriors?)"/> on a prepared graph.</summary>
+    public static bool TryRank(NetworkGraph graph, Incident incident, [NotNullWhen(true)] out RankingResult? result, [NotNullWhen(false)] out string? problem, RankingOptions? options = null, RankingPriors? priors = null)
+    {
+        ArgumentNullException.ThrowIfNull(graph);
+        ArgumentNullException.ThrowIfNull(incident);
+        problem = Refusal(graph, incident);
+        if (problem is not null)
         {
             result = null;
-            problem = e.Message;
             return false;
         }
+
+        result = Rank(graph, incident, options, priors);
+        return true;
+    }
+
+    /// <summary>Why <paramref name="incident"/> cannot be ranked on <paramref name="graph"/>; null when it can.</summary>
+    public static string? Refusal(NetworkGraph graph, Incident incident)
+    {
+        ArgumentNullException.ThrowIfNull(graph);
+        ArgumentNullException.ThrowIfNull(incident);
+        if (!graph.TryEnergise(SwitchStates.AtFaultTime(graph.Grid, incident), out var network, out var topology))
+        {
+            return RankingComputation.NoRadialNetwork(topology);
+        }
+
+        for (var s = 0; s < graph.Grid.Segments.Length; s++)
+        {
+            if (network.IsSegmentEnergised(s))
+            {
+                return null;
+            }
+        }
+
+        return RankingComputation.NothingEnergised;
     }
 
     private static RankingResult Assemble(RankingComputation computation, List<SegmentScore> scores)
@@ -147,7 +178,7 @@ public static class FaultRanking
             $"stale indications (read after the indicator's reset time or before a trial re-energisation) weigh {Pct(o.StaleWeight)}",
             $"fault resistance marginalised over: earth faults on isolated and resonant networks {Ohms(o.HighResistanceEarthFaultOhms)}; on solid and impedance networks {Ohms(o.LowResistanceEarthFaultOhms)}; short circuits {Ohms(o.ShortCircuitOhms)}",
             $"measurement tolerance: phase current {Pct(o.PhaseCurrentTolerance.Relative)} + {o.PhaseCurrentTolerance.Absolute.ToString(CultureInfo.InvariantCulture)} A, residual current {Pct(o.ResidualCurrentTolerance.Relative)} + {o.ResidualCurrentTolerance.Absolute.ToString(CultureInfo.InvariantCulture)} A, neutral voltage {Pct(o.NeutralVoltageTolerance.Relative)} + {o.NeutralVoltageTolerance.Absolute.ToString(CultureInfo.InvariantCulture)} V",
-            "indications are compared with a fault at each segment's midpoint; substation records at several positions along it",
+            "indications are compared with a fault at each segment's midpoint; substation measurements at several positions along it",
             "load current is ignored in the fault currents (reference model); Z2 = Z1",
         };
         if (computation.Incident.TrippedDevice is { } tripped)

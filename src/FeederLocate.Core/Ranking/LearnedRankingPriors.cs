@@ -6,11 +6,8 @@ using FeederLocate.Core.Topology;
 
 namespace FeederLocate.Core.Ranking;
 
-/// <summary>A logged incident with the segment where its fault was confirmed.</summary>
-public sealed record ConfirmedIncident(Incident Incident, SegmentId Segment);
-
 /// <summary>A confirmed incident with what it teaches about its indicators (see <see cref="LearnedRankingPriors.ObservationsOf"/>).</summary>
-public sealed record ObservedIncident(ConfirmedIncident Outcome, IReadOnlyList<IndicatorObservation> Observations);
+public sealed record ObservedIncident(Outcome Outcome, IReadOnlyList<IndicatorObservation> Observations);
 
 /// <summary>
 /// Turns logged outcomes into priors for the ranking: each confirmed fault counts for its segment's
@@ -33,7 +30,7 @@ public static class LearnedRankingPriors
             FieldFalseReportProbability = RankingOptions.Default.FieldRates.FalseReportProbability,
         });
 
-    public static LearnedPriors Learn(NetworkGraph graph, IReadOnlyList<ConfirmedIncident> outcomes, LearningOptions? options = null)
+    public static LearnedPriors Learn(NetworkGraph graph, IReadOnlyList<Outcome> outcomes, LearningOptions? options = null)
     {
         options ??= Options;
         ArgumentNullException.ThrowIfNull(graph);
@@ -42,7 +39,7 @@ public static class LearnedRankingPriors
     }
 
     /// <summary>
-    /// Learning from incidents whose observations are already known: the same as <see cref="Learn(NetworkGraph, IReadOnlyList{ConfirmedIncident}, LearningOptions?)"/>
+    /// Learning from incidents whose observations are already known: the same as <see cref="Learn(NetworkGraph, IReadOnlyList{Outcome}, LearningOptions?)"/>
     /// without refining a fault per incident again, for callers that learn from many subsets of one history.
     /// </summary>
     public static LearnedPriors Learn(Grid grid, IReadOnlyList<ObservedIncident> observed, LearningOptions? options = null)
@@ -50,7 +47,7 @@ public static class LearnedRankingPriors
         options ??= Options;
         ArgumentNullException.ThrowIfNull(grid);
         ArgumentNullException.ThrowIfNull(observed);
-        var faults = observed.Select(o => new ConfirmedFault(o.Outcome.Segment, o.Outcome.Incident.ReportedAt)).ToList();
+        var faults = observed.Select(o => new OutcomeSite(o.Outcome.Segment, o.Outcome.Incident.ReportedAt)).ToList();
         return HistoryLearning.Learn(grid, faults, observed.SelectMany(o => o.Observations).ToList(), options);
     }
 
@@ -58,7 +55,7 @@ public static class LearnedRankingPriors
     /// What one confirmed incident teaches about its indicators: each listed indicator's state against the one
     /// expected for the best-fitting fault on the confirmed segment. The costly part of learning (one refined fault per incident).
     /// </summary>
-    public static IReadOnlyList<IndicatorObservation> ObservationsOf(NetworkGraph graph, ConfirmedIncident outcome)
+    public static IReadOnlyList<IndicatorObservation> ObservationsOf(NetworkGraph graph, Outcome outcome)
     {
         ArgumentNullException.ThrowIfNull(outcome);
         return IndicatorObservation.ForIncident(outcome.Incident, ExpectedAtConfirmed(graph, outcome.Incident, outcome.Segment));
@@ -77,7 +74,7 @@ public static class LearnedRankingPriors
     }
 
     /// <summary>Learns from the outcomes and gives the ranking's priors in one step.</summary>
-    public static RankingPriors From(NetworkGraph graph, IReadOnlyList<ConfirmedIncident> outcomes, LearningOptions? options = null) =>
+    public static RankingPriors From(NetworkGraph graph, IReadOnlyList<Outcome> outcomes, LearningOptions? options = null) =>
         outcomes.Count == 0 ? RankingPriors.None : ToRankingPriors(Learn(graph, outcomes, options), hasHistory: true);
 
     /// <summary>What each indicator the incident lists should have shown for the best-fitting fault on the confirmed segment.</summary>
@@ -85,7 +82,7 @@ public static class LearnedRankingPriors
     {
         ArgumentNullException.ThrowIfNull(graph);
         ArgumentNullException.ThrowIfNull(incident);
-        var computation = new RankingComputation(graph, incident with { Indications = [.. incident.Indications.Select(i => i with { Suspect = false })] },
+        var computation = new RankingComputation(graph, incident with { Indications = [.. incident.Indications.Select(i => i with { Distrusted = false })] },
             RankingOptions.Default, RankingPriors.None);
         var index = graph.Grid.SegmentIndex(segment);
         if (!computation.Network.IsSegmentEnergised(index))

@@ -8,7 +8,7 @@ namespace FeederLocate.Core.Ranking;
 
 /// <summary>
 /// One ranking: every energised segment a hypothesis, its likelihood marginalised over fault type,
-/// fault resistance and (for the substation records) position, times its prior.
+/// fault resistance and (for the substation measurements) position, times its prior.
 /// Indications are compared at the segment's midpoint, so the cost is segments × indicators × resistances.
 /// </summary>
 internal sealed class RankingComputation
@@ -23,14 +23,14 @@ internal sealed class RankingComputation
     private readonly NetworkGraph _graph;
     private readonly FaultResponseModel _model;
     private readonly List<ObservedIndication> _observed;
-    private readonly List<MeasuredRecord> _measured;
+    private readonly List<MeasurementPoint> _measured;
     private readonly MeasuringPoint? _trip;
     private readonly List<IndicatorId> _leftOut = [];
     private readonly ImmutableArray<FaultTypePlan>[] _plans;
     private readonly bool[] _beyond;
     private readonly bool[] _measuredBeyond;
     private readonly IndicationSums _sums;
-    private readonly RecordSums _records;
+    private readonly MeasurementSums _records;
     private readonly List<int> _recordsBeyond = [];
 
     public RankingComputation(NetworkGraph graph, Incident incident, RankingOptions options, RankingPriors priors)
@@ -42,10 +42,10 @@ internal sealed class RankingComputation
         _priors = priors;
         if (!graph.TryEnergise(SwitchStates.AtFaultTime(_grid, incident), out var network, out var problem))
         {
-            throw new RankingException($"the incident's switch states give no radial network: {problem}");
+            throw new RankingException(NoRadialNetwork(problem));
         }
 
-        Network = network!;
+        Network = network;
         _model = new FaultResponseModel(Network);
         _observed = EvidencePoints.Indications(_grid, incident, _model, options, priors, _leftOut);
         _measured = EvidencePoints.Measurements(_grid, incident, _model);
@@ -55,16 +55,20 @@ internal sealed class RankingComputation
         _measuredBeyond = new bool[_measured.Count];
         _sums = new IndicationSums(_model, _observed);
         _lowCurrentEarthFault = [.. _grid.Substations.Select(s => s.Grounding.Scheme is GroundingScheme.Isolated or GroundingScheme.Resonant)];
-        _records = new RecordSums(this, _measured, _model);
+        _records = new MeasurementSums(this, _measured, _model);
     }
 
     public EnergisedNetwork Network { get; }
+
+    internal const string NothingEnergised = "no segment is energised in the incident's switch states: nothing to rank";
+
+    internal static string NoRadialNetwork(TopologyProblem problem) => $"the incident's switch states give no radial network: {problem}";
 
     internal FaultResponseModel Model => _model;
 
     internal IReadOnlyList<ObservedIndication> Observed => _observed;
 
-    internal IReadOnlyList<MeasuredRecord> Measured => _measured;
+    internal IReadOnlyList<MeasurementPoint> Measured => _measured;
 
     internal IReadOnlyList<IndicatorId> LeftOut => _leftOut;
 
@@ -88,7 +92,7 @@ internal sealed class RankingComputation
 
         if (scores.Count == 0)
         {
-            throw new RankingException("no segment is energised in the incident's switch states: nothing to rank");
+            throw new RankingException(NothingEnergised);
         }
 
         return scores;
@@ -175,20 +179,20 @@ internal sealed class RankingComputation
         return _observed.Select((o, i) => o.LogProbability(expected[i])).Sum();
     }
 
-    /// <summary>Σ log-likelihood of the substation records, record by record (the slow, plain sum).</summary>
-    public double RecordLogLikelihoodDirect(int segment, in FaultSolution fault)
+    /// <summary>Σ log-likelihood of the substation measurements, record by record (the slow, plain sum).</summary>
+    public double MeasurementLogLikelihoodDirect(int segment, in FaultSolution fault)
     {
         var total = 0.0;
         foreach (var record in _measured)
         {
-            total += RecordLogLikelihood(record.Measurement, Predicted(record, segment, fault));
+            total += MeasurementLogLikelihood(record.Measurement, Predicted(record, segment, fault));
         }
 
         return total;
     }
 
     /// <summary>The same sum through the tabulated shortcut the ranking uses.</summary>
-    public double RecordLogLikelihoodFast(int segment, in FaultSolution fault)
+    public double MeasurementLogLikelihoodFast(int segment, in FaultSolution fault)
     {
         var sub = fault.Substation;
         var beyond = Enumerable.Range(0, _measured.Count)
@@ -200,7 +204,7 @@ internal sealed class RankingComputation
     public double IndicationLogLikelihood(int segment, in FaultSolution fault) => _sums.LogLikelihood(segment, fault);
 
     /// <summary>The value a record's device would have measured for a solved fault.</summary>
-    public (double PhaseA, double ResidualA, double NeutralV) Predicted(MeasuredRecord record, int segment, in FaultSolution fault)
+    public (double PhaseA, double ResidualA, double NeutralV) Predicted(MeasurementPoint record, int segment, in FaultSolution fault)
     {
         var point = record.Point;
         var same = point.Substation >= 0 && point.Substation == fault.Substation;
@@ -246,7 +250,7 @@ internal sealed class RankingComputation
                 var mid = _model.Solve(segment, 0.5, plan.Type, rf);
                 var indications = _sums.LogLikelihood(segment, mid);
 
-                var (records, position) = RecordsLikelihood(segment, plan.Type, rf, mid);
+                var (records, position) = MeasurementsLikelihood(segment, plan.Type, rf, mid);
                 var likelihood = indications + records;
                 typeMarginal = LogMath.Add(typeMarginal, logWeight + likelihood);
                 if (likelihood + tripLog > best.LogLikelihood)
@@ -263,8 +267,8 @@ internal sealed class RankingComputation
         return new SegmentScore(segment, logPrior, tripLog + marginal, best, byType);
     }
 
-    /// <summary>The substation records' likelihood averaged over positions, and the best-fitting position.</summary>
-    private (double LogLikelihood, double BestPosition) RecordsLikelihood(int segment, FaultType type, double rf, in FaultSolution mid)
+    /// <summary>The substation measurements' likelihood averaged over positions, and the best-fitting position.</summary>
+    private (double LogLikelihood, double BestPosition) MeasurementsLikelihood(int segment, FaultType type, double rf, in FaultSolution mid)
     {
         if (_measured.Count == 0)
         {
@@ -290,7 +294,7 @@ internal sealed class RankingComputation
         return (total - Math.Log(positions.Length), best.Position);
     }
 
-    internal double RecordLogLikelihood(SubstationMeasurement m, (double PhaseA, double ResidualA, double NeutralV) predicted)
+    internal double MeasurementLogLikelihood(SubstationMeasurement m, (double PhaseA, double ResidualA, double NeutralV) predicted)
     {
         var log = 0.0;
         if (m.PhaseCurrentA is { } phase)

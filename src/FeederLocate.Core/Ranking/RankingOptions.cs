@@ -56,7 +56,7 @@ public sealed record RankingOptions
     /// <summary>Fault resistances of short circuits, Ω (a few ohms at most, common practice).</summary>
     public ImmutableArray<double> ShortCircuitOhms { get; init; } = [0, 0.5, 1.5, 3];
 
-    /// <summary>Positions along a segment (fraction from its from node) at which the substation records are compared.</summary>
+    /// <summary>Positions along a segment (fraction from its from node) at which the substation measurements are compared.</summary>
     public ImmutableArray<double> Positions { get; init; } = [1.0 / 6, 0.5, 5.0 / 6];
 
     /// <summary>Likelihood factor of a fault where the tripped device would not have seen it (maloperation, wrong switch state).</summary>

@@ -24,7 +24,7 @@ public sealed record IndicationCheck(
     bool Stale,
     string Verdict);
 
-/// <summary>One substation record against the value predicted at the suspect's best-fitting fault.</summary>
+/// <summary>One substation measurement against the value predicted at the suspect's best-fitting fault.</summary>
 public sealed record MeasurementCheck(SwitchId Device, string Quantity, double MeasuredValue, double PredictedValue, double DeviationSigma);
 
 /// <summary>The range of distance from the substation bus, along the energised path, where the records fit, km.</summary>

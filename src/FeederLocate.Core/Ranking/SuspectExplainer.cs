@@ -102,7 +102,7 @@ internal static class SuspectExplainer
                 });
                 if (fits)
                 {
-                    points.Add((distances.AlongSegmentKm(score.Segment, position), computation.RecordLogLikelihoodDirect(score.Segment, fault), true));
+                    points.Add((distances.AlongSegmentKm(score.Segment, position), computation.MeasurementLogLikelihoodDirect(score.Segment, fault), true));
                 }
             }
         }

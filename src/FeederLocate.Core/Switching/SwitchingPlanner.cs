@@ -1,3 +1,4 @@
+using System.Diagnostics.CodeAnalysis;
 using System.Collections.Immutable;
 using FeederLocate.Core.Evidence;
 using FeederLocate.Core.Model;
@@ -86,7 +87,7 @@ public static class SwitchingPlanner
     }
 
     /// <summary>Plans for the ranking's most likely section, or says why it cannot.</summary>
-    public static bool TryPlan(NetworkGraph graph, Incident incident, RankingResult ranking, out SwitchingPlan? plan, out string? problem, SwitchingOptions? options = null)
+    public static bool TryPlan(NetworkGraph graph, Incident incident, RankingResult ranking, [NotNullWhen(true)] out SwitchingPlan? plan, [NotNullWhen(false)] out string? problem, SwitchingOptions? options = null)
     {
         try
         {
@@ -108,7 +109,7 @@ public static class SwitchingPlanner
         yield return "load flow: backward/forward sweep per phase, constant-power loads (power factor 0.95 lagging where loadKvar is absent), segment impedance (r1 + j·x1)·length, switches ideal, every busbar at 1.0 pu";
         yield return $"cold-load factor {Words.Number(o.ColdLoadFactor)} on the load of every node that was without supply; voltage limit {Words.Number(o.VoltageLimitPu)} pu; ampacityA per line type; transformerRatedMva where given";
         yield return $"timeline: one sequence; crews leave at the start; remote operation {Words.Number(o.RemoteOperationTime.TotalMinutes)} min, manual {Words.Number(o.ManualOperationTime.TotalMinutes)} min after arrival, fuse replacement {Words.Number(o.FuseReplacementTime.TotalMinutes)} min";
-        var defaulted = steps.Where(s => s.Device is { } d && !ctx.Grid.Switch(d).Remote && ctx.Grid.Switch(d).TravelMinutes is null)
+        var defaulted = steps.Where(s => s.Device is { } d && !ctx.Grid.Switch(d).Remote && ctx.Grid.Switch(d).TravelTime is null)
             .Select(s => s.Device!.Value).Distinct().ToList();
         if (defaulted.Count > 0)
         {

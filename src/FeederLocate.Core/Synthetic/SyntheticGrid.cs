@@ -59,7 +59,7 @@ public static class SyntheticGrid
                     var kind = random.Next(6) switch { 0 => SwitchKind.Disconnector, 1 => SwitchKind.Fuse, _ => SwitchKind.LoadBreakSwitch };
                     var remote = kind == SwitchKind.LoadBreakSwitch && random.Next(2) == 0;
                     switches.Add(new SwitchingDevice(new SwitchId($"SW-F{f + 1}-{switches.Count}"), attach, beyond, kind, false, remote,
-                        remote ? null : 10 + random.Next(50)));
+                        remote ? null : TimeSpan.FromMinutes(10 + random.Next(50))));
                     feederNodes.Add(beyond);
                     attach = beyond;
                 }

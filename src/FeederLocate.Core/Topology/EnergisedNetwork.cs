@@ -1,3 +1,4 @@
+using System.Diagnostics.CodeAnalysis;
 using System.Collections.Immutable;
 using FeederLocate.Core.Model;
 
@@ -42,9 +43,9 @@ public sealed class EnergisedNetwork
     public ImmutableArray<int> FeedOrder { get; private set; }
 
     internal static EnergisedNetwork Build(NetworkGraph graph, SwitchStates states) =>
-        TryBuild(graph, states, out var network, out var problem) ? network! : throw new TopologyException(problem!);
+        TryBuild(graph, states, out var network, out var problem) ? network : throw new TopologyException(problem);
 
-    internal static bool TryBuild(NetworkGraph graph, SwitchStates states, out EnergisedNetwork? network, out TopologyProblem? problem)
+    internal static bool TryBuild(NetworkGraph graph, SwitchStates states, [NotNullWhen(true)] out EnergisedNetwork? network, [NotNullWhen(false)] out TopologyProblem? problem)
     {
         ArgumentNullException.ThrowIfNull(graph);
         ArgumentNullException.ThrowIfNull(states);

@@ -1,3 +1,4 @@
+using System.Diagnostics.CodeAnalysis;
 using FeederLocate.Core.Model;
 using QuikGraph;
 
@@ -56,7 +57,7 @@ public sealed class NetworkGraph
     public EnergisedNetwork Energise(SwitchStates states) => EnergisedNetwork.Build(this, states);
 
     /// <summary>Builds the radial network energised in <paramref name="states"/>, or says why it cannot.</summary>
-    public bool TryEnergise(SwitchStates states, out EnergisedNetwork? network, out TopologyProblem? problem) =>
+    public bool TryEnergise(SwitchStates states, [NotNullWhen(true)] out EnergisedNetwork? network, [NotNullWhen(false)] out TopologyProblem? problem) =>
         EnergisedNetwork.TryBuild(this, states, out network, out problem);
 
     /// <summary>The name of an edge's element, e.g. "segment S7" or "switch LB2".</summary>

@@ -21,7 +21,8 @@ internal static class EventPayload
     public const string PlanStepCompletedKind = "planStepCompleted";
     public const string OutcomeLoggedKind = "outcomeLogged";
     public const string IncidentClosedKind = "incidentClosed";
-    public const string SubstationRecordAmendedKind = "substationRecordAmended";
+    // The stored kind keeps the name it was first written under, so older logs still read.
+    public const string TripAmendedKind = "substationRecordAmended";
 
     // Required constructor parameters and nullable annotations are enforced, so a payload missing a
     // non-optional field fails to read instead of yielding nulls; optional fields have defaults.
@@ -42,7 +43,7 @@ internal static class EventPayload
         PlanStepCompleted => PlanStepCompletedKind,
         OutcomeLogged => OutcomeLoggedKind,
         IncidentClosed => IncidentClosedKind,
-        SubstationRecordAmended => SubstationRecordAmendedKind,
+        TripAmended => TripAmendedKind,
         _ => throw new ArgumentException($"unknown event type {e.GetType().Name}", nameof(e)),
     };
 
@@ -54,14 +55,14 @@ internal static class EventPayload
             IncidentOpened o => new OpenedPayload(o.GridName, IncidentWriter.Write(o.Incident), IsoTime.Format(o.ReportedAt)),
             IndicationEntered { Indication: var i } => new IndicationPayload(
                 i.Indicator.Value, IncidentFormat.Name(i.State), IncidentFormat.Name(i.Source),
-                i.ReadAt is { } readAt ? IsoTime.Format(readAt) : null, i.Suspect),
+                i.ReadAt is { } readAt ? IsoTime.Format(readAt) : null, i.Distrusted),
             MeasurementRecorded { Measurement: var m } => new MeasurementPayload(
                 m.Device.Value, m.PhaseCurrentA, m.ResidualCurrentA, m.NeutralVoltageV),
             SwitchStateChanged s => new SwitchPayload(s.Switch.Value, IncidentFormat.Name(s.Position)),
             PlanStepCompleted p => new PlanStepPayload(p.Order, p.Action, p.Device, p.Note),
             OutcomeLogged o => new OutcomePayload(o.ConfirmedSegment.Value, IncidentFormat.Name(o.FaultType), o.Cause, o.Notes),
             IncidentClosed c => new ClosedPayload(c.Note),
-            SubstationRecordAmended a => new AmendedPayload(IncidentFormat.Name(a.FaultType), a.TrippedDevice?.Value),
+            TripAmended a => new AmendedPayload(IncidentFormat.Name(a.FaultType), a.TrippedDevice?.Value),
             _ => throw new ArgumentException($"unknown event type {e.GetType().Name}", nameof(e)),
         };
         return JsonSerializer.Serialize(payload, payload.GetType(), Options);
@@ -81,7 +82,7 @@ internal static class EventPayload
                 PlanStepCompletedKind => Read<PlanStepPayload>(json).ToEvent(),
                 OutcomeLoggedKind => Read<OutcomePayload>(json).ToEvent(id),
                 IncidentClosedKind => new IncidentClosed(Read<ClosedPayload>(json).Note),
-                SubstationRecordAmendedKind => Read<AmendedPayload>(json).ToEvent(id),
+                TripAmendedKind => Read<AmendedPayload>(json).ToEvent(id),
                 _ => throw new CorruptEventException(id, $"has unknown kind \"{kind}\""),
             };
         }
@@ -130,6 +131,7 @@ internal static class EventPayload
 
     private sealed record OpenedPayload(string GridName, string Incident, string ReportedAt);
 
+    // The stored field keeps the format's name `suspect` for the operator's distrust mark.
     private sealed record IndicationPayload(string Indicator, string State, string Source, string? ReadAt = null, bool Suspect = false);
 
     private sealed record MeasurementPayload(string Device, double? PhaseCurrentA = null, double? ResidualCurrentA = null, double? NeutralVoltageV = null)
@@ -159,7 +161,7 @@ internal static class EventPayload
 
     private sealed record AmendedPayload(string FaultType, string? TrippedDevice = null)
     {
-        public SubstationRecordAmended ToEvent(EventId id) =>
+        public TripAmended ToEvent(EventId id) =>
             new(TrippedDevice is null ? null : new SwitchId(TrippedDevice), Choice(id, "faultType", FaultType, IncidentFormat.FaultTypes));
     }
 }

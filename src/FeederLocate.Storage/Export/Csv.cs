@@ -10,7 +10,7 @@ internal static class Csv
 {
     public const string RecordEnd = "\r\n";
 
-    public static void WriteRecord(TextWriter writer, IEnumerable<string?> fields)
+    public static void WriteRow(TextWriter writer, IEnumerable<string?> fields)
     {
         var first = true;
         foreach (var field in fields)

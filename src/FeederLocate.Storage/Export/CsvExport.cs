@@ -25,10 +25,10 @@ public static class CsvExport
     {
         ArgumentNullException.ThrowIfNull(incidents);
         ArgumentNullException.ThrowIfNull(writer);
-        Csv.WriteRecord(writer, IncidentColumns);
+        Csv.WriteRow(writer, IncidentColumns);
         foreach (var i in incidents)
         {
-            Csv.WriteRecord(writer,
+            Csv.WriteRow(writer,
             [
                 i.Id.ToString(),
                 i.GridName,
@@ -48,12 +48,12 @@ public static class CsvExport
     {
         ArgumentNullException.ThrowIfNull(reliabilities);
         ArgumentNullException.ThrowIfNull(writer);
-        Csv.WriteRecord(writer, IndicatorColumns);
+        Csv.WriteRow(writer, IndicatorColumns);
         foreach (var r in reliabilities.Indicators)
         {
             var miss = r.MissInterval90;
             var falseReport = r.FalseReportInterval90;
-            Csv.WriteRecord(writer,
+            Csv.WriteRow(writer,
             [
                 r.Indicator.Value,
                 r.Kind.Directional ? "true" : "false",

@@ -90,12 +90,12 @@ internal static class IncidentFold
                     steps.Add(new CompletedPlanStep(step, stored.Actor, stored.Time));
                     break;
                 case OutcomeLogged logged:
-                    outcome = new LoggedOutcome(logged, stored.Actor, stored.Time);
+                    outcome = new OutcomeInForce(logged, stored.Actor, stored.Time);
                     break;
                 case IncidentClosed:
                     closedAt = stored.Time;
                     break;
-                case SubstationRecordAmended amended:
+                case TripAmended amended:
                     incident = incident with { TrippedDevice = amended.TrippedDevice, FaultType = amended.FaultType };
                     break;
                 case IncidentOpened:

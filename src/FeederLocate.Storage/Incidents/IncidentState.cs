@@ -16,7 +16,7 @@ public sealed record IncidentState(
     Incident Incident,
     IncidentStatus Status,
     ImmutableArray<CompletedPlanStep> CompletedSteps,
-    LoggedOutcome? Outcome,
+    OutcomeInForce? Outcome,
     Actor OpenedBy,
     DateTimeOffset OpenedAt,
     DateTimeOffset? ClosedAt,

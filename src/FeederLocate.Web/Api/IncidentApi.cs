@@ -18,7 +18,7 @@ namespace FeederLocate.Web.Api;
 
 /// <summary>
 /// The HTTP interface for telecontrol and other systems: grids and incidents, indications and
-/// substation records (single or batch, in the incident format's own shapes), the ranking and the plan,
+/// substation measurements (single or batch, in the incident format's own shapes), the ranking and the plan,
 /// outcomes. Bodies are limited to 1 MB; bad input is a 400 naming the element and field.
 /// </summary>
 public static class IncidentApi
@@ -155,7 +155,7 @@ public static class IncidentApi
                 return Results.BadRequest(ApiError.Single("bad fault type", "outcome", "body", "faultType", $"must be LG, LL, LLG, LLL or unknown, got \"{typeText}\""));
             }
 
-            board.Record(new IncidentId(id), new OutcomeLogged(new SegmentId(segment), type, body.Cause, body.Notes), AccountClaims.ActorOf(user));
+            board.Append(new IncidentId(id), new OutcomeLogged(new SegmentId(segment), type, body.Cause, body.Notes), AccountClaims.ActorOf(user));
             return Results.Accepted($"/api/incidents/{id}", new { accepted = 1 });
         });
     }

@@ -61,11 +61,11 @@ public sealed class IncidentAnalysisTests : IDisposable
         var alone = FaultRanking.Rank(graph, evidence);
         var (first, second) = (alone.Segments[0].Id, alone.Segments[1].Id);
         var past = log.Open(grid, evidence, Samples.Operator);
-        log.Record(past, new OutcomeLogged(first, evidence.FaultType, "first report"), Samples.Operator);
+        log.Append(past, new OutcomeLogged(first, evidence.FaultType, "first report"), Samples.Operator);
         var current = log.Open(grid, evidence, Samples.Operator);
 
         var before = await analysis.RankAsync(graph, log.State(current));
-        log.Record(past, new OutcomeLogged(second, evidence.FaultType, "corrected by the crew"), Samples.Operator);
+        log.Append(past, new OutcomeLogged(second, evidence.FaultType, "corrected by the crew"), Samples.Operator);
         var after = await analysis.RankAsync(graph, log.State(current));
 
         Assert.Equal(Probabilities(Expected(graph, evidence, first)), Probabilities(before.Result!));
@@ -82,7 +82,7 @@ public sealed class IncidentAnalysisTests : IDisposable
         var analysis = new IncidentAnalysis(new GridLearning(log), _ranker);
         var id = log.Open(graph.Grid, Samples.Incident("solid-lg-trip-a1.incident.json", graph.Grid), Samples.Operator);
         await analysis.RankAsync(graph, log.State(id));
-        log.Record(id, new IndicationEntered(new Indication(new IndicatorId("FPI-A1-14"), IndicatorState.Fault, IndicationSource.Field, null)), Samples.Operator);
+        log.Append(id, new IndicationEntered(new Indication(new IndicatorId("FPI-A1-14"), IndicatorState.Fault, IndicationSource.Field, null)), Samples.Operator);
 
         _ranker.Hold();
         var requests = new Task<RankingOutcome>[20];
@@ -107,7 +107,7 @@ public sealed class IncidentAnalysisTests : IDisposable
 
         var first = await analysis.RankAsync(graph, log.State(id));
         var again = await analysis.RankAsync(graph, log.State(id));
-        log.Record(id, new MeasurementRecorded(new SubstationMeasurement(new SwitchId("CB-A1"), 1700, null, null)), Samples.Operator);
+        log.Append(id, new MeasurementRecorded(new SubstationMeasurement(new SwitchId("CB-A1"), 1700, null, null)), Samples.Operator);
         var changed = await analysis.RankAsync(graph, log.State(id));
 
         Assert.Same(first, again);
@@ -131,7 +131,7 @@ public sealed class IncidentAnalysisTests : IDisposable
     }
 
     private static RankingResult Expected(NetworkGraph graph, Incident evidence, SegmentId confirmed) =>
-        FaultRanking.Rank(graph, evidence, priors: LearnedRankingPriors.From(graph, [new ConfirmedIncident(evidence, confirmed)]));
+        FaultRanking.Rank(graph, evidence, priors: LearnedRankingPriors.From(graph, [new Outcome(evidence, confirmed)]));
 
     private static List<(string, double)> Probabilities(RankingResult result) =>
         [.. result.Segments.Select(s => (s.Id.Value, s.Probability))];

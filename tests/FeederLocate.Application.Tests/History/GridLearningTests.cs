@@ -23,8 +23,8 @@ public sealed class GridLearningTests : IDisposable
         var evidence = Samples.Incident(file, graph.Grid);
         var segments = FaultRanking.Rank(graph, evidence).Segments;
         var log = _test.Log;
-        var a = log.Record(graph.Grid, evidence, new OutcomeLogged(segments[0].Id, evidence.FaultType), Samples.Operator);
-        var b = log.Record(graph.Grid, evidence, new OutcomeLogged(segments[1].Id, evidence.FaultType), Samples.Operator);
+        var a = log.Append(graph.Grid, evidence, new OutcomeLogged(segments[0].Id, evidence.FaultType), Samples.Operator);
+        var b = log.Append(graph.Grid, evidence, new OutcomeLogged(segments[1].Id, evidence.FaultType), Samples.Operator);
         var learning = new GridLearning(log);
 
         var all = learning.Priors(graph);
@@ -32,7 +32,7 @@ public sealed class GridLearningTests : IDisposable
 
         Assert.Equal(Rates(LearnedRankingPriors.From(graph, [new(evidence, segments[0].Id), new(evidence, segments[1].Id)])), Rates(all));
         Assert.Equal(Rates(LearnedRankingPriors.From(graph, [new(evidence, segments[1].Id)])), Rates(withoutA));
-        Assert.Equal(2, learning.ConfirmedIncidents(graph).Count);
+        Assert.Equal(2, learning.OutcomesForLearning(graph).Count);
         Assert.NotEqual(a, b);
     }
 
@@ -44,13 +44,13 @@ public sealed class GridLearningTests : IDisposable
         var log = _test.Log;
         var learning = new GridLearning(log);
         var past = log.Open(graph.Grid, evidence, Samples.Operator);
-        log.Record(past, new OutcomeLogged(new SegmentId("S109"), evidence.FaultType), Samples.Operator);
+        log.Append(past, new OutcomeLogged(new SegmentId("S109"), evidence.FaultType), Samples.Operator);
 
         var first = learning.Learned(graph);
         var unchanged = learning.Learned(graph);
-        log.Record(log.Open(graph.Grid, evidence, Samples.Operator), new IndicationEntered(evidence.Indications[0]), Samples.Operator);
+        log.Append(log.Open(graph.Grid, evidence, Samples.Operator), new IndicationEntered(evidence.Indications[0]), Samples.Operator);
         var afterOtherIncident = learning.Learned(graph);
-        log.Record(past, new OutcomeLogged(new SegmentId("S108"), evidence.FaultType), Samples.Operator);
+        log.Append(past, new OutcomeLogged(new SegmentId("S108"), evidence.FaultType), Samples.Operator);
         var afterCorrection = learning.Learned(graph);
 
         Assert.Same(first, unchanged);
@@ -67,9 +67,9 @@ public sealed class GridLearningTests : IDisposable
         var evidence = Samples.Incident("solid-lg-trip-a1.incident.json", graph.Grid);
         var log = _test.Log;
         var id = log.Open(graph.Grid, evidence, Samples.Operator);
-        log.Record(id, new OutcomeLogged(new SegmentId("S-REMOVED"), evidence.FaultType), Samples.Operator);
+        log.Append(id, new OutcomeLogged(new SegmentId("S-REMOVED"), evidence.FaultType), Samples.Operator);
 
-        Assert.Empty(new GridLearning(log).ConfirmedIncidents(graph));
+        Assert.Empty(new GridLearning(log).OutcomesForLearning(graph));
         Assert.Same(RankingPriors.None, new GridLearning(log).Priors(graph));
     }
 

@@ -35,7 +35,7 @@ public sealed class IncidentSwitchingTests : IDisposable
         var untouched = grid.Switches.Where(s => s.Id != breaker.Id && s.Id != tie.Id && s.Id != sectionaliser.Id).ToList();
         var log = _test.Log;
         var id = log.Open(grid, breaker.Id, FaultType.LG, new DateTimeOffset(2026, 11, 30, 6, 12, 0, TimeSpan.Zero), Samples.Operator);
-        log.RecordAll(id, [
+        log.AppendAll(id, [
             new SwitchStateChanged(sectionaliser.Id, SwitchPosition.Open),
             new PlanStepCompleted(1, "close", tie.Id.Value),
             new PlanStepCompleted(2, "open", tie.Id.Value),

@@ -122,7 +122,7 @@ public sealed class CliFuzzTests(ITestOutputHelper output) : IDisposable
             print: t => Describe(t, bases));
 
         output.WriteLine(tally.Summary);
-        Assert.True(tally[ReaderFuzzTests.Outcome.Accepted] >= GridMutants / 20, $"too few valid mutants to run fault and rank on: {tally.Summary}");
+        Assert.True(tally[ReaderFuzzTests.MutantFate.Accepted] >= GridMutants / 20, $"too few valid mutants to run fault and rank on: {tally.Summary}");
     }
 
     [Fact]
@@ -162,7 +162,7 @@ public sealed class CliFuzzTests(ITestOutputHelper output) : IDisposable
             print: t => Describe(t, bases));
 
         output.WriteLine(tally.Summary);
-        Assert.True(tally[ReaderFuzzTests.Outcome.Accepted] >= IncidentMutants / 20, $"too few valid mutants to rank: {tally.Summary}");
+        Assert.True(tally[ReaderFuzzTests.MutantFate.Accepted] >= IncidentMutants / 20, $"too few valid mutants to rank: {tally.Summary}");
     }
 
     /// <summary>

@@ -115,21 +115,21 @@ public sealed class ReaderFuzzTests(ITestOutputHelper output)
         }
     }
 
-    internal static Outcome Classify<T>(LoadResult<T> result)
+    internal static MutantFate Classify<T>(LoadResult<T> result)
         where T : class
     {
         if (result.Succeeded)
         {
-            return Outcome.Accepted;
+            return MutantFate.Accepted;
         }
 
         return result.Errors.All(e => e.Message.StartsWith("is not valid JSON", StringComparison.Ordinal)
             || e.Message.StartsWith("must hold one JSON object", StringComparison.Ordinal))
-            ? Outcome.RejectedAsJson
-            : Outcome.RejectedByElementChecks;
+            ? MutantFate.RejectedAsJson
+            : MutantFate.RejectedByElementChecks;
     }
 
-    internal enum Outcome
+    internal enum MutantFate
     {
         Accepted,
         RejectedAsJson,
@@ -139,20 +139,20 @@ public sealed class ReaderFuzzTests(ITestOutputHelper output)
     /// <summary>Counts outcomes across CsCheck's threads, to show the mutants exercised every path.</summary>
     internal sealed class Tally
     {
-        private readonly int[] _counts = new int[Enum.GetValues<Outcome>().Length];
+        private readonly int[] _counts = new int[Enum.GetValues<MutantFate>().Length];
 
-        public void Count(Outcome outcome) => Interlocked.Increment(ref _counts[(int)outcome]);
+        public void Count(MutantFate outcome) => Interlocked.Increment(ref _counts[(int)outcome]);
 
-        public int this[Outcome outcome] => Volatile.Read(ref _counts[(int)outcome]);
+        public int this[MutantFate outcome] => Volatile.Read(ref _counts[(int)outcome]);
 
-        public string Summary => string.Join(", ", Enum.GetValues<Outcome>().Select(o => $"{o} {this[o]}"));
+        public string Summary => string.Join(", ", Enum.GetValues<MutantFate>().Select(o => $"{o} {this[o]}"));
 
         public void AssertTheMutantsReachedEveryOutcome(int total)
         {
             var summary = Summary;
-            Assert.True(this[Outcome.Accepted] >= total / 20, $"too few mutants were accepted to test the round trip: {summary}");
-            Assert.True(this[Outcome.RejectedAsJson] >= total / 20, $"too few mutants broke the JSON syntax: {summary}");
-            Assert.True(this[Outcome.RejectedByElementChecks] >= total / 5, $"too few mutants reached the element checks: {summary}");
+            Assert.True(this[MutantFate.Accepted] >= total / 20, $"too few mutants were accepted to test the round trip: {summary}");
+            Assert.True(this[MutantFate.RejectedAsJson] >= total / 20, $"too few mutants broke the JSON syntax: {summary}");
+            Assert.True(this[MutantFate.RejectedByElementChecks] >= total / 5, $"too few mutants reached the element checks: {summary}");
         }
     }
 }

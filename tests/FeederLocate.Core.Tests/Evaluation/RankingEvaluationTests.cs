@@ -119,7 +119,7 @@ public class RankingEvaluationTests
         var baseline = new BaselineLocator(Grids.Normal(grid));
         var incident = EngineIncidents.WithIndications(new SwitchId("CB-A1"), FaultType.LG,
             ("FPI-A1-01", Forward), ("FPI-A1-04", Fault), ("FPI-A1-11", Forward))
-            .With("FPI-A1-11", i => i with { Suspect = true });
+            .With("FPI-A1-11", i => i with { Distrusted = true });
 
         Assert.Equal("S103", baseline.Suspects(incident, 1)[0].Value);
     }

@@ -18,7 +18,7 @@ public class FaultRateLearningTests
     public void Posteriors_match_the_hand_computed_Gamma_updates()
     {
         var options = new FaultRateOptions { ObservationYears = 2 };
-        var faults = new[] { new ConfirmedFault(new SegmentId("S1"), Day), new ConfirmedFault(new SegmentId("S1"), Day.AddDays(90)) };
+        var faults = new[] { new OutcomeSite(new SegmentId("S1"), Day), new OutcomeSite(new SegmentId("S1"), Day.AddDays(90)) };
 
         var rates = FaultRateLearning.Learn(TestGrids.Brackenfold(), faults, options);
 
@@ -67,8 +67,8 @@ public class FaultRateLearningTests
         // 2020-01-01 to 2024-01-01 is 1461 days = 4 × 365.25: exactly 4 years.
         var faults = new[]
         {
-            new ConfirmedFault(new SegmentId("S3"), new DateTimeOffset(2020, 1, 1, 0, 0, 0, TimeSpan.Zero)),
-            new ConfirmedFault(new SegmentId("S3"), new DateTimeOffset(2024, 1, 1, 0, 0, 0, TimeSpan.Zero)),
+            new OutcomeSite(new SegmentId("S3"), new DateTimeOffset(2020, 1, 1, 0, 0, 0, TimeSpan.Zero)),
+            new OutcomeSite(new SegmentId("S3"), new DateTimeOffset(2024, 1, 1, 0, 0, 0, TimeSpan.Zero)),
         };
 
         var rates = FaultRateLearning.Learn(TestGrids.Brackenfold(), faults);
@@ -81,7 +81,7 @@ public class FaultRateLearningTests
     [Fact]
     public void A_history_shorter_than_the_minimum_counts_as_the_minimum()
     {
-        var faults = new[] { new ConfirmedFault(new SegmentId("S1"), Day), new ConfirmedFault(new SegmentId("S2"), Day.AddDays(7)) };
+        var faults = new[] { new OutcomeSite(new SegmentId("S1"), Day), new OutcomeSite(new SegmentId("S2"), Day.AddDays(7)) };
 
         Assert.Equal(1, FaultRateLearning.Learn(TestGrids.Brackenfold(), faults).ObservationYears, Tolerance);
         Assert.Equal(0.5, FaultRateLearning.Learn(TestGrids.Brackenfold(), faults, new FaultRateOptions { MinimumObservationYears = 0.5 }).ObservationYears, Tolerance);
@@ -92,9 +92,9 @@ public class FaultRateLearningTests
     {
         var faults = new[]
         {
-            new ConfirmedFault(new SegmentId("S9"), Day),
-            new ConfirmedFault(new SegmentId("S9"), Day.AddDays(30)),
-            new ConfirmedFault(new SegmentId("S1"), Day.AddDays(60)),
+            new OutcomeSite(new SegmentId("S9"), Day),
+            new OutcomeSite(new SegmentId("S9"), Day.AddDays(30)),
+            new OutcomeSite(new SegmentId("S1"), Day.AddDays(60)),
         };
 
         var rates = FaultRateLearning.Learn(TestGrids.Brackenfold(), faults);
@@ -110,7 +110,7 @@ public class FaultRateLearningTests
     {
         Gen.Select(Gen.Int[0, 40], Gen.Double[0.5, 30]).Sample((faultsOnS3, years) =>
         {
-            var faults = Enumerable.Range(0, faultsOnS3).Select(i => new ConfirmedFault(new SegmentId("S3"), Day.AddDays(i)));
+            var faults = Enumerable.Range(0, faultsOnS3).Select(i => new OutcomeSite(new SegmentId("S3"), Day.AddDays(i)));
 
             var rates = FaultRateLearning.Learn(TestGrids.Brackenfold(), faults, new FaultRateOptions { ObservationYears = years });
 

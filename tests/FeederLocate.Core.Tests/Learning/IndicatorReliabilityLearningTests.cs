@@ -141,7 +141,7 @@ public class IndicatorReliabilityLearningTests
     {
         var incident = TestIncidents.EarthFault() with
         {
-            Indications = [new Indication(Fi1, IndicatorState.None, IndicationSource.Remote, Suspect: true), new Indication(Fi2, IndicatorState.Forward, IndicationSource.Remote)],
+            Indications = [new Indication(Fi1, IndicatorState.None, IndicationSource.Remote, Distrusted: true), new Indication(Fi2, IndicatorState.Forward, IndicationSource.Remote)],
         };
         var expected = new Dictionary<IndicatorId, IndicatorState>
         {
@@ -154,7 +154,7 @@ public class IndicatorReliabilityLearningTests
 
         Assert.Equal(
         [
-            new IndicatorObservation(Fi1, IndicatorState.Fault, IndicatorState.None, Suspect: true),
+            new IndicatorObservation(Fi1, IndicatorState.Fault, IndicatorState.None, Distrusted: true),
             new IndicatorObservation(Fi2, IndicatorState.Forward, IndicatorState.Forward),
             new IndicatorObservation(Fi3, IndicatorState.Fault, IndicatorState.Unknown),
         ], observations);

@@ -113,7 +113,7 @@ public class RankingPropertyTests
                 return i with
                 {
                     State = state,
-                    Suspect = random.NextDouble() < 0.1,
+                    Distrusted = random.NextDouble() < 0.1,
                     Source = field ? IndicationSource.Field : i.Source,
                     ReadAt = field ? c.Incident.ReportedAt.AddMinutes(random.Next(0, 300)) : null,
                 };
@@ -147,7 +147,7 @@ public class RankingPropertyTests
     public void Record_sum_through_the_table_equals_the_plain_sum_within_its_interpolation_error()
     {
         // The records of devices that do not have the fault beyond them are one function of |U0| per
-        // substation, tabulated from 0 to 1.5·E in 1024 steps and interpolated linearly (RecordSums). Linear
+        // substation, tabulated from 0 to 1.5·E in 1024 steps and interpolated linearly (MeasurementSums). Linear
         // interpolation over a step h misses a function by at most h²/8 · max|f''| on that step (error bound
         // of linear interpolation, any numerical analysis text), so that is the tolerance, with f'' estimated
         // from second differences of the plain sum across the step (safety factor 2), plus 1e-9.
@@ -159,8 +159,8 @@ public class RankingPropertyTests
             var computation = h.Computation();
             var fault = computation.Model.Solve(h.Segment, h.Position, h.Type, h.FaultResistanceOhm);
 
-            var direct = computation.RecordLogLikelihoodDirect(h.Segment, fault);
-            var fast = computation.RecordLogLikelihoodFast(h.Segment, fault);
+            var direct = computation.MeasurementLogLikelihoodDirect(h.Segment, fault);
+            var fast = computation.MeasurementLogLikelihoodFast(h.Segment, fault);
 
             var tolerance = InterpolationBound(computation, fault) + 1e-9;
             Assert.True(Math.Abs(fast - direct) <= tolerance, $"fast {fast} vs direct {direct}, tolerance {tolerance} ({h})");
@@ -180,7 +180,7 @@ public class RankingPropertyTests
             return 0;
         }
 
-        double F(double u) => records.Sum(r => computation.RecordLogLikelihood(r.Measurement, (0, u * r.Point.NotBeyondGainS, u)));
+        double F(double u) => records.Sum(r => computation.MeasurementLogLikelihood(r.Measurement, (0, u * r.Point.NotBeyondGainS, u)));
         var delta = stepV / 8;
         var maxCurvature = 0.0;
         for (var j = 0; j <= 8; j++)

@@ -127,7 +127,7 @@ public class RobustnessTests
     {
         // FPI-A1-11 is the indicator that places the fault beyond LB-A1-3; marked suspect it must count for nothing.
         var (grid, incident) = SolidS108();
-        var suspect = incident.With("FPI-A1-11", i => i with { Suspect = true });
+        var suspect = incident.With("FPI-A1-11", i => i with { Distrusted = true });
 
         var ranking = FaultRanking.Rank(grid, suspect);
 
@@ -149,7 +149,7 @@ public class RobustnessTests
         // shows fault: it pulls toward SEC-S112. Read 30 min after the report the flag is fresh; read after
         // 180 min it may have reset and been set again by something else, so it weighs less (StaleWeight).
         var grid = Grids.Sample("solid");
-        Assert.Equal(120, grid.Indicator(new IndicatorId("FPI-A1-17")).ResetMinutes);
+        Assert.Equal(TimeSpan.FromMinutes(120), grid.Indicator(new IndicatorId("FPI-A1-17")).ResetTime);
         var incident = EngineIncidents.WithIndications(new SwitchId("CB-A1"), FaultType.LG,
             ("FPI-A1-01", Forward), ("FPI-A1-04", Fault), ("FPI-A1-11", Forward), ("FPI-A1-14", None));
         Incident WithLateral(double? readAfterMinutes) => incident with

@@ -39,7 +39,7 @@ public static class ExhaustiveRestoration
                 states = states.With(grid.Switches[domain[k]].Id, (mask & (1 << k)) != 0 ? SwitchPosition.Closed : SwitchPosition.Open);
             }
 
-            if (!graph.TryEnergise(states, out var network, out _) || segments.Any(network!.IsSegmentEnergised) || !WithinLimits(grid, network, factors, voltageLimitPu))
+            if (!graph.TryEnergise(states, out var network, out _) || segments.Any(network.IsSegmentEnergised) || !WithinLimits(grid, network, factors, voltageLimitPu))
             {
                 continue;
             }

@@ -236,7 +236,7 @@ public class TopologyTests
 
         Assert.True(new NetworkGraph(grid).TryEnergise(states, out var network, out var problem), problem?.Message);
 
-        Assert.Equal(new SubstationId("B"), network!.SubstationOf(new NodeId("A2-05"))!.Id);
+        Assert.Equal(new SubstationId("B"), network.SubstationOf(new NodeId("A2-05"))!.Id);
         Assert.Equal(new SubstationId("A"), network.SubstationOf(new NodeId("A2-03"))!.Id);
     }
 }

@@ -14,7 +14,7 @@ public class EventRoundTripTests
     public static TheoryData<IncidentEvent> LaterEvents => new()
     {
         new IndicationEntered(new Indication(new IndicatorId("FI3"), IndicatorState.Fault, IndicationSource.Field,
-            new DateTimeOffset(2026, 3, 14, 6, 20, 30, TimeSpan.Zero), Suspect: true)),
+            new DateTimeOffset(2026, 3, 14, 6, 20, 30, TimeSpan.Zero), Distrusted: true)),
         new IndicationEntered(new Indication(new IndicatorId("FI2"), IndicatorState.Reverse, IndicationSource.Remote)),
         new MeasurementRecorded(new SubstationMeasurement(new SwitchId("CB1"), 2140.5, 38.25, 9800)),
         new MeasurementRecorded(new SubstationMeasurement(new SwitchId("CB1"), NeutralVoltageV: 9750)),

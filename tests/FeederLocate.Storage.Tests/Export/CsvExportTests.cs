@@ -16,7 +16,7 @@ public class CsvExportTests
     {
         using var db = new TempDatabase();
         using var store = IncidentStore.Open(db.Path);
-        store.Record(TestGrids.Brackenfold(), TestIncidents.EarthFault(),
+        store.Append(TestGrids.Brackenfold(), TestIncidents.EarthFault(),
             new OutcomeLogged(new SegmentId("S3"), FaultType.LG, "tree", "Oak on line, \"big\" one\nnear N4"), new Actor("cli"));
         var text = new StringWriter();
 
@@ -34,7 +34,7 @@ public class CsvExportTests
         using var db = new TempDatabase();
         using var store = IncidentStore.Open(db.Path);
         store.OpenIncident("Ferncombe, \"north\" 11 kV", TestIncidents.EarthFault() with { FaultType = null }, new Actor("cli"));
-        store.Record(TestGrids.Brackenfold(), TestIncidents.EarthFault(), new OutcomeLogged(new SegmentId("S1"), Cause: "joint\r\nfailure"), new Actor("cli"));
+        store.Append(TestGrids.Brackenfold(), TestIncidents.EarthFault(), new OutcomeLogged(new SegmentId("S1"), Cause: "joint\r\nfailure"), new Actor("cli"));
         var text = new StringWriter();
 
         CsvExport.WriteIncidents(store.Incidents(), text);
@@ -53,7 +53,7 @@ public class CsvExportTests
         {
             var text = new StringWriter();
 
-            Csv.WriteRecord(text, record);
+            Csv.WriteRow(text, record);
 
             Assert.Equal([record], CsvText.Read(text.ToString()));
         });

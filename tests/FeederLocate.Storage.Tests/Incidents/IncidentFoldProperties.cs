@@ -14,7 +14,7 @@ public class IncidentFoldProperties
             Gen.Enum<IndicatorState>(),
             Gen.Enum<IndicationSource>(),
             Gen.Bool,
-            (id, state, source, suspect) => new IndicationEntered(new Indication(id, state, source, Suspect: suspect)));
+            (id, state, source, distrusted) => new IndicationEntered(new Indication(id, state, source, Distrusted: distrusted)));
 
     [Fact]
     public void Each_indicator_keeps_its_last_indication_and_is_listed_once()
@@ -43,7 +43,7 @@ public class IncidentFoldProperties
             (IncidentEvent)new MeasurementRecorded(new SubstationMeasurement(new SwitchId("CB1"), residual ? null : current, residual ? current / 50 : null))),
         Gen.Bool.Select(open => (IncidentEvent)new SwitchStateChanged(new SwitchId("LB2"), open ? SwitchPosition.Open : SwitchPosition.Closed)),
         Gen.Int[1, 9].Select(order => (IncidentEvent)new PlanStepCompleted(order, "open", "LB2")),
-        Gen.Enum<FaultType>().Select(type => (IncidentEvent)new SubstationRecordAmended(new SwitchId("CB1"), type)),
+        Gen.Enum<FaultType>().Select(type => (IncidentEvent)new TripAmended(new SwitchId("CB1"), type)),
         Gen.Const((IncidentEvent)new OutcomeLogged(new SegmentId("S2"), FaultType.LG, "cable joint")));
 
     [Fact]

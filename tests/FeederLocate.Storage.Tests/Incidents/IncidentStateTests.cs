@@ -22,7 +22,7 @@ public class IncidentStateTests
 
         store.Append(id, new IndicationEntered(new Indication(new IndicatorId("FI3"), IndicatorState.None, IndicationSource.Field)), Crew);
         store.Append(id, new IndicationEntered(new Indication(new IndicatorId("FI3"), IndicatorState.Fault, IndicationSource.Field, fieldRead)), Crew);
-        store.Append(id, new IndicationEntered(new Indication(new IndicatorId("FI1"), IndicatorState.None, IndicationSource.Remote, Suspect: true)), Operator);
+        store.Append(id, new IndicationEntered(new Indication(new IndicatorId("FI1"), IndicatorState.None, IndicationSource.Remote, Distrusted: true)), Operator);
         store.Append(id, new MeasurementRecorded(new SubstationMeasurement(new SwitchId("CB1"), NeutralVoltageV: 9800)), Operator);
         store.Append(id, new SwitchStateChanged(new SwitchId("LB2"), SwitchPosition.Open), Operator);
         store.Append(id, new SwitchStateChanged(new SwitchId("CB1"), SwitchPosition.Closed), Operator);
@@ -41,7 +41,7 @@ public class IncidentStateTests
             // FI1 is replaced where it stood; FI3, new, goes last with its second reading.
             Indications =
             [
-                new Indication(new IndicatorId("FI1"), IndicatorState.None, IndicationSource.Remote, Suspect: true),
+                new Indication(new IndicatorId("FI1"), IndicatorState.None, IndicationSource.Remote, Distrusted: true),
                 new Indication(new IndicatorId("FI2"), IndicatorState.Forward, IndicationSource.Remote),
                 new Indication(new IndicatorId("FI3"), IndicatorState.Fault, IndicationSource.Field, fieldRead),
             ],
@@ -62,7 +62,7 @@ public class IncidentStateTests
         var step = Assert.Single(state.CompletedSteps);
         Assert.Equal(new CompletedPlanStep(new PlanStepCompleted(1, "open", "LB2"), Operator, stepDone), step);
         // The later outcome replaces the earlier.
-        Assert.Equal(new LoggedOutcome(new OutcomeLogged(new SegmentId("S2"), FaultType.LG, "cable joint"), Crew, outcomeLogged), state.Outcome);
+        Assert.Equal(new OutcomeInForce(new OutcomeLogged(new SegmentId("S2"), FaultType.LG, "cable joint"), Crew, outcomeLogged), state.Outcome);
     }
 
     [Fact]
@@ -86,7 +86,7 @@ public class IncidentStateTests
         using var db = new TempDatabase();
         using var store = IncidentStore.Open(db.Path, TestClock.Manual());
 
-        var id = store.Record(TestGrids.Brackenfold(), TestIncidents.EarthFault(), new OutcomeLogged(new SegmentId("S1")), new Actor("cli"));
+        var id = store.Append(TestGrids.Brackenfold(), TestIncidents.EarthFault(), new OutcomeLogged(new SegmentId("S1")), new Actor("cli"));
 
         Assert.Equal(["incidentOpened", "outcomeLogged", "incidentClosed"], store.Events(id).Select(e => e.Kind));
         Assert.Equal(IncidentStatus.Closed, store.State(id).Status);
@@ -98,7 +98,7 @@ public class IncidentStateTests
         using var db = new TempDatabase();
         using var store = IncidentStore.Open(db.Path, TestClock.Manual());
         var grid = TestGrids.Brackenfold();
-        var first = store.Record(grid, TestIncidents.EarthFault(), new OutcomeLogged(new SegmentId("S2"), FaultType.LLG, "digger"), new Actor("cli"));
+        var first = store.Append(grid, TestIncidents.EarthFault(), new OutcomeLogged(new SegmentId("S2"), FaultType.LLG, "digger"), new Actor("cli"));
         var second = store.OpenIncident("Ferncombe 11 kV", TestIncidents.EarthFault(TestIncidents.ReportedAt.AddDays(3)) with { FaultType = null }, Operator);
 
         var list = store.Incidents();
@@ -120,7 +120,7 @@ public class IncidentStateTests
         store.Append(withOutcome, new IndicationEntered(new Indication(new IndicatorId("FI3"), IndicatorState.Fault, IndicationSource.Field)), Crew);
         store.Append(withOutcome, new OutcomeLogged(new SegmentId("S3")), Crew, grid);
         store.OpenIncident(grid.Name, TestIncidents.EarthFault(), Operator);
-        store.Record(TestGrids.Brackenfold("Ferncombe 11 kV"), TestIncidents.EarthFault(), new OutcomeLogged(new SegmentId("S1")), Operator);
+        store.Append(TestGrids.Brackenfold("Ferncombe 11 kV"), TestIncidents.EarthFault(), new OutcomeLogged(new SegmentId("S1")), Operator);
 
         var outcome = Assert.Single(store.Outcomes(grid.Name));
 
@@ -129,7 +129,7 @@ public class IncidentStateTests
         Assert.Equal(TestIncidents.ReportedAt, outcome.ReportedAt);
         // The evidence as last updated, with the field reading entered later.
         Assert.Equal(IndicatorState.Fault, outcome.Incident.IndicationOf(new IndicatorId("FI3"))?.State);
-        Assert.Equal(new Core.Learning.ConfirmedFault(new SegmentId("S3"), TestIncidents.ReportedAt), outcome.ToConfirmedFault());
+        Assert.Equal(new Core.Learning.OutcomeSite(new SegmentId("S3"), TestIncidents.ReportedAt), outcome.ToSite());
         Assert.Empty(store.Outcomes("brackenfold 20 kv"));
     }
 }

@@ -112,7 +112,7 @@ public class StoreRefusalTests
         using var store = IncidentStore.Open(db.Path);
 
         Assert.Throws<IncidentGridMismatchException>(() =>
-            store.Record(TestGrids.Brackenfold(), TestIncidents.EarthFault(), new OutcomeLogged(new SegmentId("S99")), Operator));
+            store.Append(TestGrids.Brackenfold(), TestIncidents.EarthFault(), new OutcomeLogged(new SegmentId("S99")), Operator));
 
         Assert.Empty(store.Incidents());
     }

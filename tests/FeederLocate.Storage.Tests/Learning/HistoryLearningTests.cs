@@ -19,12 +19,12 @@ public class HistoryLearningTests
         // Three faults on S3 over the years 2022 to 2024 (2 years apart at the ends: 731 days).
         foreach (var reportedAt in new[] { "2022-05-01T10:00:00Z", "2023-02-11T03:30:00Z", "2024-05-01T10:00:00Z" })
         {
-            store.Record(grid, TestIncidents.EarthFault(DateTimeOffset.Parse(reportedAt, System.Globalization.CultureInfo.InvariantCulture)),
+            store.Append(grid, TestIncidents.EarthFault(DateTimeOffset.Parse(reportedAt, System.Globalization.CultureInfo.InvariantCulture)),
                 new OutcomeLogged(new SegmentId("S3")), new Actor("cli"));
         }
 
         var outcomes = store.Outcomes(grid.Name);
-        var priors = HistoryLearning.Learn(grid, outcomes.Select(o => o.ToConfirmedFault()), []);
+        var priors = HistoryLearning.Learn(grid, outcomes.Select(o => o.ToSite()), []);
 
         // T = 731/365.25 = 2.001369 years. Overhead type: Gamma(4 + 3, 50 + 5·T), mean m = 7/(50 + 5T) = 0.116651.
         // S3: Gamma(10m + 3, 10 + 5T), mean (10m + 3)/(10 + 5T) = 0.208255 per km·year, × 5 km = 1.041 faults a year.

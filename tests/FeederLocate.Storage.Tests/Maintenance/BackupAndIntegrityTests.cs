@@ -51,7 +51,7 @@ public class BackupAndIntegrityTests
             var first = store.OpenIncident(TestGrids.BrackenfoldName, TestIncidents.EarthFault(), Operator);
             clock.At(5);
             store.Append(first, new IndicationEntered(new Indication(new IndicatorId("FI3"), IndicatorState.Fault, IndicationSource.Field)), Operator);
-            var second = store.Record(TestGrids.Brackenfold(), TestIncidents.EarthFault(), new OutcomeLogged(new SegmentId("S2")), Operator);
+            var second = store.Append(TestGrids.Brackenfold(), TestIncidents.EarthFault(), new OutcomeLogged(new SegmentId("S2")), Operator);
             original = [.. store.Events(first), .. store.Events(second)];
 
             store.BackupTo(backupPath);

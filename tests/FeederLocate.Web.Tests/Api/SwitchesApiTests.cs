@@ -19,7 +19,7 @@ public sealed class SwitchesApiTests(ApiFixture app) : IClassFixture<ApiFixture>
 
         var tripped = await app.Client.GetFromJsonAsync<JsonElement>($"/api/incidents/{id}/switches");
         var board = Microsoft.Extensions.DependencyInjection.ServiceProviderServiceExtensions.GetRequiredService<Services.IncidentBoard>(app.Factory.Services);
-        board.Record(new Storage.Incidents.IncidentId(id), new Storage.Events.PlanStepCompleted(1, "close", "CB-A1"), new Storage.Events.Actor("ana", "operator"));
+        board.Append(new Storage.Incidents.IncidentId(id), new Storage.Events.PlanStepCompleted(1, "close", "CB-A1"), new Storage.Events.Actor("ana", "operator"));
         var closed = await app.Client.GetFromJsonAsync<JsonElement>($"/api/incidents/{id}/switches");
         var missing = await app.Client.GetAsync("/api/incidents/987654/switches");
 

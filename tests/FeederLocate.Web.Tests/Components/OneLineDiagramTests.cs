@@ -54,7 +54,7 @@ public class OneLineDiagramTests : ComponentTest
 
         cut.Find("g[data-indicator='FPI-A1-01'] text.mark").MarkupMatches("<text class=\"mark\" y=\"4\">▶</text>");
         Assert.Equal("fault", cut.Find("g[data-indicator='FPI-A1-04']").GetAttribute("data-state"));
-        Assert.Single(cut.FindAll("g[data-indicator='FPI-A1-04'] line.suspect-mark"));
+        Assert.Single(cut.FindAll("g[data-indicator='FPI-A1-04'] line.distrust-mark"));
         Assert.Equal("unknown", cut.Find("g[data-indicator='FPI-A1-07']").GetAttribute("data-state"));
     }
 

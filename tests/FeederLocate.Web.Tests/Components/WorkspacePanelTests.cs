@@ -17,7 +17,7 @@ public class WorkspacePanelTests : ComponentTest
     [Fact]
     public void Indicator_entry_offers_only_the_states_of_each_kind_and_raises_the_choice()
     {
-        (Indicator Indicator, IndicatorState State, bool Suspect)? set = null;
+        (Indicator Indicator, IndicatorState State, bool Distrusted)? set = null;
         var cut = Render<IndicatorEntry>(p => p
             .Add(c => c.Indicators, _grid.Grid.Indicators)
             .Add(c => c.Current, new Dictionary<IndicatorId, Indication>())
@@ -30,7 +30,7 @@ public class WorkspacePanelTests : ComponentTest
         Assert.NotNull(set);
         Assert.Equal(new IndicatorId("FPI-A1-04"), set.Value.Indicator.Id);
         Assert.Equal(IndicatorState.Fault, set.Value.State);
-        Assert.False(set.Value.Suspect);
+        Assert.False(set.Value.Distrusted);
     }
 
     [Fact]
@@ -95,15 +95,15 @@ public class RecordAndPlanPanelTests : ComponentTest
     [Fact]
     public void Record_form_amends_tripped_device_and_fault_type_and_enters_currents()
     {
-        FeederLocate.Storage.Events.SubstationRecordAmended? amended = null;
+        FeederLocate.Storage.Events.TripAmended? amended = null;
         SubstationMeasurement? measured = null;
-        var cut = Render<RecordForm>(p => p
+        var cut = Render<MeasurementForm>(p => p
             .Add(c => c.Breakers, [new SwitchId("CB-A1"), new SwitchId("CB-A2")])
             .Add(c => c.ProtectiveDevices, [new SwitchId("CB-A1"), new SwitchId("RC-B1-1")])
             .Add(c => c.TrippedDevice, new SwitchId("CB-A1"))
             .Add(c => c.FaultType, (FaultType?)null)
             .Add(c => c.OnAmend, a => amended = a)
-            .Add(c => c.OnRecord, m => measured = m));
+            .Add(c => c.OnMeasurement, m => measured = m));
 
         Assert.Equal("CB-A1", cut.Find("[data-testid='record-tripped']").GetAttribute("value"));
         cut.Find("[data-testid='record-tripped']").Change("RC-B1-1");
@@ -112,7 +112,7 @@ public class RecordAndPlanPanelTests : ComponentTest
         cut.Find("input[aria-label='phase current A']").Change("2140");
         cut.FindAll("button").Single(b => b.TextContent == "Enter record").Click();
 
-        Assert.Equal(new FeederLocate.Storage.Events.SubstationRecordAmended(new SwitchId("RC-B1-1"), FaultType.LLL), amended);
+        Assert.Equal(new FeederLocate.Storage.Events.TripAmended(new SwitchId("RC-B1-1"), FaultType.LLL), amended);
         Assert.Equal(new SubstationMeasurement(new SwitchId("CB-A1"), 2140), measured);
     }
 

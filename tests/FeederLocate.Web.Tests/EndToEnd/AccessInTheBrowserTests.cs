@@ -38,7 +38,7 @@ public sealed class AccessInTheBrowserTests(WebAppFixture app) : IClassFixture<W
         Assert.Equal(0, await page.Locator("header img").CountAsync());
 
         // The operator's change reaches the viewer's page without reloading.
-        board.Record(id, new IndicationEntered(new Indication(new IndicatorId("FPI-A1-04"), IndicatorState.Fault, IndicationSource.Remote, DateTimeOffset.UtcNow, false)),
+        board.Append(id, new IndicationEntered(new Indication(new IndicatorId("FPI-A1-04"), IndicatorState.Fault, IndicationSource.Remote, DateTimeOffset.UtcNow, false)),
             new Actor("ana", "operator"));
         await Assertions.Expect(page.Locator("g[data-indicator='FPI-A1-04']")).ToHaveAttributeAsync("data-state", "fault");
         await page.CloseAsync();

@@ -14,7 +14,7 @@ internal sealed class Timeline(Grid grid, SwitchingOptions options)
     public TimeSpan Travel(int device)
     {
         var d = grid.Switches[device];
-        return d.Remote ? TimeSpan.Zero : d.TravelMinutes is { } m ? TimeSpan.FromMinutes(m) : options.DefaultTravelTime;
+        return d.Remote ? TimeSpan.Zero : d.TravelTime is { } travel ? travel : options.DefaultTravelTime;
     }
 
     public TimeSpan Duration(StepAction action, int device) => action switch

@@ -117,6 +117,6 @@ internal sealed class PlanningContext
 
     private EnergisedNetwork EnergiseOrThrow(SwitchStates states, string when) =>
         Graph.TryEnergise(states, out var network, out var problem)
-            ? network!
+            ? network
             : throw new PlanningException($"the incident's switch states give no radial network {when}: {problem}");
 }

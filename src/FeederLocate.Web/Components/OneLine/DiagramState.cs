@@ -17,4 +17,4 @@ public sealed record DiagramState(
 }
 
 /// <summary>An indicator's entered state as the diagram shows it.</summary>
-public sealed record DiagramIndication(IndicatorState State, bool Suspect);
+public sealed record DiagramIndication(IndicatorState State, bool Distrusted);

@@ -4,21 +4,21 @@ using FeederLocate.Core.Model;
 namespace FeederLocate.Core.Ranking;
 
 /// <summary>
-/// The substation records' log-likelihood for a fault, in O(k): a record whose device does not have
+/// The substation measurements' log-likelihood for a fault, in O(k): a record whose device does not have
 /// the fault beyond it predicts no phase current, a residual of |U0|·3|Y0B| and the bus |U0|, so all
 /// of them together are one smooth function of |U0| per substation, tabulated once and interpolated.
 /// Only the k records with the fault beyond their device are evaluated one by one.
 /// </summary>
-internal sealed class RecordSums
+internal sealed class MeasurementSums
 {
     private const int TableSteps = 2048;
     private readonly RankingComputation _computation;
-    private readonly IReadOnlyList<MeasuredRecord> _records;
+    private readonly IReadOnlyList<MeasurementPoint> _records;
     private readonly double[] _otherNetworks;
     private readonly double[][] _table;
     private readonly double[] _stepV;
 
-    public RecordSums(RankingComputation computation, IReadOnlyList<MeasuredRecord> records, FaultResponseModel model)
+    public MeasurementSums(RankingComputation computation, IReadOnlyList<MeasurementPoint> records, FaultResponseModel model)
     {
         _computation = computation;
         _records = records;
@@ -30,7 +30,7 @@ internal sealed class RecordSums
         {
             foreach (var r in records.Where(r => r.Point.Substation != sub))
             {
-                _otherNetworks[sub] += computation.RecordLogLikelihood(r.Measurement, (0, 0, 0));
+                _otherNetworks[sub] += computation.MeasurementLogLikelihood(r.Measurement, (0, 0, 0));
             }
 
             // |U0| of an earth fault stays below about 1.5·E even near resonance; above, values are computed directly.
@@ -55,8 +55,8 @@ internal sealed class RecordSums
         {
             var record = _records[m];
             var p = record.Point;
-            var asNotBeyond = _computation.RecordLogLikelihood(record.Measurement, (0, u0 * p.NotBeyondGainS, u0));
-            var actual = _computation.RecordLogLikelihood(record.Measurement, (fault.FaultedPhaseCurrentA, u0 * p.BeyondGainS, u0));
+            var asNotBeyond = _computation.MeasurementLogLikelihood(record.Measurement, (0, u0 * p.NotBeyondGainS, u0));
+            var actual = _computation.MeasurementLogLikelihood(record.Measurement, (fault.FaultedPhaseCurrentA, u0 * p.BeyondGainS, u0));
             sum += actual - asNotBeyond;
         }
 
@@ -77,6 +77,6 @@ internal sealed class RecordSums
         return (_table[sub][k] * (1 - t)) + (_table[sub][k + 1] * t);
     }
 
-    private double NotBeyond(List<MeasuredRecord> same, double u0) =>
-        same.Sum(r => _computation.RecordLogLikelihood(r.Measurement, (0, u0 * r.Point.NotBeyondGainS, u0)));
+    private double NotBeyond(List<MeasurementPoint> same, double u0) =>
+        same.Sum(r => _computation.MeasurementLogLikelihood(r.Measurement, (0, u0 * r.Point.NotBeyondGainS, u0)));
 }

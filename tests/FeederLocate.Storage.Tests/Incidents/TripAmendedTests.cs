@@ -6,7 +6,7 @@ using FeederLocate.Storage.Incidents;
 
 namespace FeederLocate.Storage.Tests.Incidents;
 
-public class SubstationRecordAmendedTests
+public class TripAmendedTests
 {
     [Fact]
     public void Amending_the_record_replaces_tripped_device_and_fault_type_and_survives_reopening()
@@ -17,7 +17,7 @@ public class SubstationRecordAmendedTests
         using (var store = IncidentStore.Open(db.Path))
         {
             id = store.OpenIncident(grid.Name, TestIncidents.EarthFault(), new Actor("ana"));
-            store.Append(id, new SubstationRecordAmended(null, FaultType.LLG), new Actor("ana"), grid);
+            store.Append(id, new TripAmended(null, FaultType.LLG), new Actor("ana"), grid);
         }
 
         using var reopened = IncidentStore.Open(db.Path);
@@ -25,7 +25,7 @@ public class SubstationRecordAmendedTests
 
         Assert.Null(incident.TrippedDevice);
         Assert.Equal(FaultType.LLG, incident.FaultType);
-        Assert.IsType<SubstationRecordAmended>(reopened.Events(id)[^1].Event);
+        Assert.IsType<TripAmended>(reopened.Events(id)[^1].Event);
     }
 
     [Fact]
@@ -37,7 +37,7 @@ public class SubstationRecordAmendedTests
         var id = store.OpenIncident(grid.Name, TestIncidents.EarthFault(), new Actor("ana"));
 
         Assert.ThrowsAny<IncidentStoreException>(() =>
-            store.Append(id, new SubstationRecordAmended(new SwitchId("CB-NOWHERE"), FaultType.LG), new Actor("ana"), grid));
+            store.Append(id, new TripAmended(new SwitchId("CB-NOWHERE"), FaultType.LG), new Actor("ana"), grid));
         Assert.Equal(new SwitchId("CB1"), store.State(id).Incident.TrippedDevice);
     }
 }
