@@ -67,6 +67,9 @@ public class SchemaTests
     [InlineData("bad-switch-position")]
     [InlineData("unknown-fault-type")]
     [InlineData("wrong-format-tag")]
+    [InlineData("reclosing-attempts-out-of-range")]
+    [InlineData("relay-bad-direction")]
+    [InlineData("relay-negative-reactance")]
     public void Incident_schema_rejects_a_structurally_broken_incident(string name)
     {
         var results = Evaluate(IncidentSchema.Value, RepositoryFiles.Path("tests", "FeederLocate.Core.Tests", "Formats", "BrokenIncidents", $"{name}.incident.json"));
