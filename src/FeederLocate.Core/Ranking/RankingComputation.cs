@@ -33,6 +33,7 @@ internal sealed class RankingComputation
     private readonly RecordSums _records;
     private readonly List<int> _recordsBeyond = [];
     private readonly ProtectionEvidence _protection;
+    private readonly double _maximumTrippingEarthFaultOhm;
 
     public RankingComputation(NetworkGraph graph, Incident incident, RankingOptions options, RankingPriors priors)
     {
@@ -58,6 +59,7 @@ internal sealed class RankingComputation
         _lowCurrentEarthFault = [.. _grid.Substations.Select(s => s.Grounding.Scheme is GroundingScheme.Isolated or GroundingScheme.Resonant)];
         _records = new RecordSums(this, _measured, _model);
         _protection = new ProtectionEvidence(_model, incident, options);
+        _maximumTrippingEarthFaultOhm = options.LowResistanceEarthFaultOhms.IsDefaultOrEmpty ? 0 : options.LowResistanceEarthFaultOhms.Max();
     }
 
     public EnergisedNetwork Network { get; }
@@ -285,7 +287,10 @@ internal sealed class RankingComputation
         var best = (Log: double.NegativeInfinity, Position: 0.5);
         // Where the earthing keeps an earth fault's current low, the records hardly change along a segment:
         // the midpoint stands for it (the finer check of the best explanation still uses every position).
-        var positions = _lowCurrentEarthFault[mid.Substation] && type is FaultType.LG or FaultType.LLG ? MidpointOnly : _options.Positions;
+        // So do high-resistance earth faults on solid and impedance networks: the fault resistance, not the line, sets their current.
+        var positions = type is FaultType.LG or FaultType.LLG && (_lowCurrentEarthFault[mid.Substation] || rf > _maximumTrippingEarthFaultOhm)
+            ? MidpointOnly
+            : _options.Positions;
         foreach (var position in positions)
         {
             var fault = position == 0.5 ? mid : _model.Solve(segment, position, type, rf);
