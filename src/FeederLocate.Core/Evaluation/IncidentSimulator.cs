@@ -31,7 +31,7 @@ public sealed class IncidentSimulator
         _grid = graph.Grid;
         _settings = settings;
         _network = graph.Energise(SwitchStates.Normal(_grid));
-        _model = new FaultResponseModel(_network);
+        _model = new FaultResponseModel(_network, settings.VoltageFactor);
         _truePriors = truePriors ?? RankingPriors.None;
         _segments = [.. Enumerable.Range(0, _grid.Segments.Length).Where(_network.IsSegmentEnergised)];
         _cumulativeWeight = new double[_segments.Length];
@@ -132,7 +132,7 @@ public sealed class IncidentSimulator
     }
 
     /// <summary>
-    /// What the protection reports: every feeder breaker's earth-fault direction, the fault locator at the
+    /// What the protection reports: every feeder breaker's and recloser's earth-fault direction, the fault locator at the
     /// tripped feeder breaker, the reclosing sequence of the tripping breaker or recloser (locked out: the
     /// fault is permanent) and the fuses of the faulted feeder found blown (the one that cleared it) or intact.
     /// </summary>
@@ -146,7 +146,8 @@ public sealed class IncidentSimulator
         for (var d = 0; d < _grid.Switches.Length; d++)
         {
             var device = _grid.Switches[d];
-            if (device.Kind != SwitchKind.Breaker || !_grid.Substations.Any(s => s.BusNode == device.From || s.BusNode == device.To))
+            var feederHead = device.Kind == SwitchKind.Breaker && _grid.Substations.Any(s => s.BusNode == device.From || s.BusNode == device.To);
+            if (!feederHead && device.Kind != SwitchKind.Recloser)
             {
                 continue;
             }

@@ -17,7 +17,7 @@ public sealed record SimulationSettings(
     ImmutableDictionary<IndicatorId, double>? FalseProbabilityByIndicator = null)
 {
     /// <summary>
-    /// Adds the protection context: an earth-fault direction from every feeder breaker (wrong or silent
+    /// Adds the protection context: an earth-fault direction from every feeder breaker and recloser (wrong or silent
     /// with <see cref="RelayErrorProbability"/>), the fault locator's reactance at the tripped feeder
     /// breaker, the reclosing sequence of a tripped breaker or recloser, and the fuses on the faulted
     /// feeder found blown or intact.
@@ -29,6 +29,9 @@ public sealed record SimulationSettings(
     /// (log-uniform 200 Ω to 5 kΩ: a conductor down on dry ground) and trip nothing.
     /// </summary>
     public double HighResistanceShare { get; init; }
+
+    /// <summary>Voltage factor of the simulated faults: 1.0, the network at its nominal voltage (the records of a real fault).</summary>
+    public double VoltageFactor { get; init; } = 1.0;
 
     /// <summary>P(a relay's earth-fault direction is wrong or silent): 5 % (common practice).</summary>
     public double RelayErrorProbability { get; init; } = 0.05;

@@ -153,6 +153,7 @@ public static class FaultRanking
             $"measurement tolerance: phase current {Pct(o.PhaseCurrentTolerance.Relative)} + {o.PhaseCurrentTolerance.Absolute.ToString(CultureInfo.InvariantCulture)} A, residual current {Pct(o.ResidualCurrentTolerance.Relative)} + {o.ResidualCurrentTolerance.Absolute.ToString(CultureInfo.InvariantCulture)} A, neutral voltage {Pct(o.NeutralVoltageTolerance.Relative)} + {o.NeutralVoltageTolerance.Absolute.ToString(CultureInfo.InvariantCulture)} V",
             "indications are compared with a fault at each segment's midpoint; substation records at several positions along it",
             "load current is ignored in the fault currents (reference model); Z2 = Z1",
+            $"predictions at voltage factor c = {o.VoltageFactor.ToString(CultureInfo.InvariantCulture)} (recorded values are compared with the current at nominal voltage, within the tolerances; IEC 60909-0's cmax = 1.1 is for ratings)",
         };
         if (computation.Incident.TrippedDevice is { } tripped)
         {

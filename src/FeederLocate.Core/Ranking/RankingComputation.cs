@@ -48,7 +48,7 @@ internal sealed class RankingComputation
         }
 
         Network = network!;
-        _model = new FaultResponseModel(Network);
+        _model = new FaultResponseModel(Network, options.VoltageFactor);
         _observed = EvidencePoints.Indications(_grid, incident, _model, options, priors, _leftOut, Expired);
         _measured = EvidencePoints.Measurements(_grid, incident, _model);
         _trip = incident.TrippedDevice is { } tripped ? _model.SwitchPoint(_grid.SwitchIndex(tripped)) : null;

@@ -38,6 +38,13 @@ public sealed record RankingOptions
     /// <summary>Weight (0..1) of an indication read before a trial re-energisation. One read after its indicator's reset time (counted from the fault) carries no weight at all.</summary>
     public double StaleWeight { get; init; } = 0.3;
 
+    /// <summary>
+    /// Voltage factor c of the predictions compared with the evidence: 1.0. IEC 60909-0's cmax = 1.1 rates
+    /// equipment for the largest current; a recorded current is compared with the current at the nominal
+    /// voltage, within the measurement tolerance (common practice).
+    /// </summary>
+    public double VoltageFactor { get; init; } = 1.0;
+
     /// <summary>Faulted-phase current at the feeder breaker: 5 % + 20 A (CT and recorder class, common practice).</summary>
     public MeasurementTolerance PhaseCurrentTolerance { get; init; } = new(0.05, 20);
 
