@@ -18,9 +18,12 @@ public sealed record EvidenceResult(int Accepted, IReadOnlyList<ValidationIssue>
 /// </summary>
 public sealed class EvidenceIntake(IncidentLog log)
 {
-    /// <summary>Indications: one object or an array of them, as in an incident file's <c>indications</c>.</summary>
+    /// <summary>
+    /// Indications: one object or an array of them, as in an incident file's <c>indications</c>; with the
+    /// incident's fault time known, a reading dated before it is refused by the reader.
+    /// </summary>
     public EvidenceResult AddIndications(IncidentId incident, Grid grid, string json, Actor actor) =>
-        Add(incident, grid, actor, IncidentReader.ParseIndications(json, grid), i => new IndicationEntered(i));
+        Add(incident, grid, actor, IncidentReader.ParseIndications(json, grid, log.State(incident).Incident.FaultAt), i => new IndicationEntered(i));
 
     /// <summary>Substation measurements: one object or an array, as in an incident file's <c>measurements</c>.</summary>
     public EvidenceResult AddMeasurements(IncidentId incident, Grid grid, string json, Actor actor) =>

@@ -58,6 +58,7 @@ internal static class PlanCommand
 
         var grid = InputFiles.LoadGrid(gridPath, console.Error);
         var incident = InputFiles.LoadIncident(incidentPath, grid, console.Error);
+        InputFiles.CheckGridReference(incident, incidentPath, gridPath);
         var graph = new NetworkGraph(grid);
         var ranked = EvidenceAnalysis.Rank(graph, incident, HistoryDatabase.PriorsFor(dbPath, graph));
         if (ranked.Result is not { } ranking)

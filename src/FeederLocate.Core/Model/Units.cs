@@ -19,6 +19,12 @@ public static class Units
     /// <summary>A rate per km·year from the rate per 100 km·year that fault statistics quote.</summary>
     public static double PerKmYear(double per100KmYear) => per100KmYear / 100;
 
+    /// <summary>The shortest reset time the files may give, in minutes: one second (a duration is kept to 100 ns).</summary>
+    public const double ShortestResetMinutes = 1.0 / 60;
+
+    /// <summary>The longest duration the files may give, in minutes: one year.</summary>
+    public const double LongestDurationMinutes = 525_960;
+
     /// <summary>A duration from minutes as the files give them (resetMinutes, travelMinutes); null stays null.</summary>
     public static TimeSpan? Duration(double? minutes) => minutes is { } m ? TimeSpan.FromMinutes(m) : null;
 

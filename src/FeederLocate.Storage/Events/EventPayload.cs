@@ -23,6 +23,7 @@ internal static class EventPayload
     public const string IncidentClosedKind = "incidentClosed";
     // The stored kind keeps the name it was first written under, so older logs still read.
     public const string TripAmendedKind = "substationRecordAmended";
+    public const string ProtectionRecordedKind = "protectionRecorded";
 
     // Required constructor parameters and nullable annotations are enforced, so a payload missing a
     // non-optional field fails to read instead of yielding nulls; optional fields have defaults.
@@ -44,6 +45,7 @@ internal static class EventPayload
         OutcomeLogged => OutcomeLoggedKind,
         IncidentClosed => IncidentClosedKind,
         TripAmended => TripAmendedKind,
+        ProtectionRecorded => ProtectionRecordedKind,
         _ => throw new ArgumentException($"unknown event type {e.GetType().Name}", nameof(e)),
     };
 
@@ -63,6 +65,7 @@ internal static class EventPayload
             OutcomeLogged o => new OutcomePayload(o.ConfirmedSegment.Value, IncidentFormat.Name(o.FaultType), o.Cause, o.Notes),
             IncidentClosed c => new ClosedPayload(c.Note),
             TripAmended a => new AmendedPayload(IncidentFormat.Name(a.FaultType), a.TrippedDevice?.Value),
+            ProtectionRecorded p => new ProtectionPayload(ProtectionText(p)),
             _ => throw new ArgumentException($"unknown event type {e.GetType().Name}", nameof(e)),
         };
         return JsonSerializer.Serialize(payload, payload.GetType(), Options);
@@ -83,6 +86,7 @@ internal static class EventPayload
                 OutcomeLoggedKind => Read<OutcomePayload>(json).ToEvent(id),
                 IncidentClosedKind => new IncidentClosed(Read<ClosedPayload>(json).Note),
                 TripAmendedKind => Read<AmendedPayload>(json).ToEvent(id),
+                ProtectionRecordedKind => Protection(id, Read<ProtectionPayload>(json)),
                 _ => throw new CorruptEventException(id, $"has unknown kind \"{kind}\""),
             };
         }
@@ -128,6 +132,29 @@ internal static class EventPayload
         names.TryGetValue(text, out var value)
             ? value
             : throw new CorruptEventException(id, $"has {field} \"{text}\"; expected one of {string.Join(", ", names.Keys)}");
+
+    /// <summary>The protection fields in the incident format's own shape, inside a minimal incident document.</summary>
+    private static string ProtectionText(ProtectionRecorded p) =>
+        IncidentWriter.Write(new Incident(p.FaultAt ?? DateTimeOffset.UnixEpoch, null, System.Collections.Immutable.ImmutableDictionary<SwitchId, SwitchPosition>.Empty, null, null, [], [])
+        {
+            FaultAt = p.FaultAt,
+            Reclosing = p.Reclosing,
+            Fuses = p.Fuses,
+            Relays = p.Relays,
+        });
+
+    private static ProtectionRecorded Protection(EventId id, ProtectionPayload payload)
+    {
+        var read = IncidentReader.Parse(payload.Protection, grid: null);
+        if (read.Value is not { } incident)
+        {
+            throw new CorruptEventException(id, "holds a protection context that does not read back: " + string.Join("; ", read.Errors));
+        }
+
+        return ProtectionRecorded.Of(incident);
+    }
+
+    private sealed record ProtectionPayload(string Protection);
 
     private sealed record OpenedPayload(string GridName, string Incident, string ReportedAt);
 

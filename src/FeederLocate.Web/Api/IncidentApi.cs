@@ -44,6 +44,8 @@ public static class IncidentApi
             WithIncident(board, user, id, state => grids.Find(state.GridName) is not { } grid
                 ? GridNotLoaded(id, state)
                 : Results.Ok(SwitchEntry.Of(grid.Grid, IncidentSwitching.Current(grid.Grid, state)))));
+        api.MapPost("/incidents/{id:long}/protection", (long id, ClaimsPrincipal user, HttpRequest request, IncidentBoard board, GridCatalog grids, TimeProvider clock) =>
+            ProtectionApi.Post(id, user, request, board, grids, clock)).RequireAuthorization(AccessPolicies.ApiWrite);
         api.MapGet("/incidents/{id:long}/ranking", (long id, ClaimsPrincipal user, IncidentBoard board, GridCatalog grids, IncidentAnalysis analysis) =>
             WithIncidentAsync(board, user, id, async state =>
             {
@@ -74,7 +76,7 @@ public static class IncidentApi
         return app;
     }
 
-    private static async Task<IResult> OpenIncident(HttpRequest request, ClaimsPrincipal user, string? grid, IncidentBoard board, GridCatalog grids)
+    private static async Task<IResult> OpenIncident(HttpRequest request, ClaimsPrincipal user, string? grid, IncidentBoard board, GridCatalog grids, TimeProvider clock)
     {
         if (grids.Find(grid ?? string.Empty) is not { } loaded || !AccountClaims.MaySee(user, loaded.Name))
         {
@@ -91,6 +93,11 @@ public static class IncidentApi
         if (result.Value is not { } incident)
         {
             return Results.BadRequest(ApiError.From("the incident has errors", result.Issues));
+        }
+
+        if (incident.FaultAt is { } faultAt && faultAt > clock.GetUtcNow())
+        {
+            return Results.BadRequest(ApiError.Single("in the future", "incident", "file", "faultAt", "is later than now"));
         }
 
         var id = board.Open(loaded, incident, AccountClaims.ActorOf(user));
@@ -119,6 +126,14 @@ public static class IncidentApi
                 : Results.BadRequest(ApiError.From($"the {field} have errors", result.Issues));
         });
     }
+
+    internal static async Task<string?> Body(HttpRequest request) => await ReadBody(request);
+
+    internal static IResult BodyTooLarge() => TooLarge();
+
+    internal static IResult InIncident(IncidentBoard board, ClaimsPrincipal user, long id, Func<IncidentState, IResult> action) => WithIncident(board, user, id, action);
+
+    internal static IResult NoGrid(long id, IncidentState state) => GridNotLoaded(id, state);
 
     private static async Task<IResult> PostOutcome(long id, ClaimsPrincipal user, HttpRequest request, IncidentBoard board, GridCatalog grids)
     {

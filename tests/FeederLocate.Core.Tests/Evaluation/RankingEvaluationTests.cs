@@ -50,7 +50,8 @@ public class RankingEvaluationTests
             for (var n = 0; n < 15; n++)
             {
                 var simulated = simulator.Next(random, n);
-                var expected = FaultCurrents.At(network, new FaultCase(simulated.Segment, simulated.Position, simulated.Type, simulated.FaultResistanceOhm));
+                // The simulator's faults are at the nominal voltage (c = 1.0, SimulationSettings.VoltageFactor).
+                var expected = FaultCurrents.At(network, new FaultCase(simulated.Segment, simulated.Position, simulated.Type, simulated.FaultResistanceOhm, 1.0));
 
                 Assert.Equal(grid.Indicators.Length, simulated.Incident.Indications.Length);
                 Assert.All(expected.Indicators, r => Assert.Equal(r.Expected, simulated.Incident.IndicationOf(r.Id)!.State));

@@ -19,6 +19,9 @@ public class CrossCountryTests
     /// <summary>IEC 60909-0 cmax for MV, as the engine and the sample-grid README use.</summary>
     private const double VoltageFactor = 1.1;
 
+    /// <summary>The records here are derived at c = 1.1 (VoltageFactor): the ranking is told the same c.</summary>
+    private static readonly RankingOptions AtDerivedVoltage = RankingOptions.Default with { VoltageFactor = VoltageFactor };
+
     /// <summary>Source impedance at A-BUS from the sample-grid README (IEC 60909-0 with KT).</summary>
     private static readonly Complex SourceOhm = new(0.0591, 1.4499);
 
@@ -40,7 +43,7 @@ public class CrossCountryTests
         var grid = Grids.Sample("isolated");
         var incident = CrossCountryIncident(grid, LoopCurrentA(grid, ToMiddleOfS105, ToMiddleOfS206));
 
-        var ranking = FaultRanking.Rank(grid, incident);
+        var ranking = FaultRanking.Rank(grid, incident, AtDerivedVoltage);
 
         Assert.NotEmpty(ranking.CrossCountry);
         var top = ranking.CrossCountry[0];
@@ -60,7 +63,7 @@ public class CrossCountryTests
         var grid = Grids.Sample("isolated");
         var incident = CrossCountryIncident(grid, LoopCurrentA(grid, ToMiddleOfS105, ToMiddleOfS207));
 
-        var ranking = FaultRanking.Rank(grid, incident);
+        var ranking = FaultRanking.Rank(grid, incident, AtDerivedVoltage);
 
         Assert.NotEmpty(ranking.CrossCountry);
         Assert.True(InSections(ranking.CrossCountry[0]), $"top pair {ranking.CrossCountry[0]}");
