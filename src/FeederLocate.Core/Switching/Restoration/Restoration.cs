@@ -5,13 +5,13 @@ using FeederLocate.Core.Topology;
 namespace FeederLocate.Core.Switching;
 
 /// <summary>
-/// Restoration of the healthy dead area: candidates per restoring switch, CP-SAT picks disjoint ones,
-/// and the combination is verified by one load flow; a combination that breaks a limit on a donor
-/// substation is forbidden (a cut) and the selection repeated.
+/// Restoration of the healthy dead area: candidates per restoring switch, an exact branch and bound
+/// picks disjoint ones, and the combination is verified by one load flow; a combination that breaks a
+/// limit on a donor substation is forbidden (with every set holding it) and the selection repeated.
 /// </summary>
 internal static class Restoration
 {
-    private const int MaxRounds = 25;
+    private const int MaxRounds = 200;
 
     public static RestorationResult Plan(PlanningContext ctx, IsolationResult isolation, DeadArea dead, SupplyLimits limits, IReadOnlySet<int> avoidZones, ICollection<string> notes)
     {
@@ -19,10 +19,10 @@ internal static class Restoration
         var forbidden = new List<IReadOnlyList<int>>();
         for (var round = 0; round < MaxRounds; round++)
         {
-            var chosen = TieSelection.Select(candidates, forbidden, ctx.Options.SolverTimeLimit, out var optimal);
-            if (!optimal)
+            var chosen = TieSelection.Select(ctx.Zones, candidates, forbidden, ctx.Options.MaxSelectionBranches, out var complete);
+            if (!complete)
             {
-                notes.Add("the selection of restoring switches stopped at its time limit: the best combination found is used");
+                notes.Add($"the selection of restoring switches stopped after {ctx.Options.MaxSelectionBranches} branches: the best combination found by then is used");
             }
 
             var (network, verdicts) = Combine(ctx, dead, limits, chosen);
