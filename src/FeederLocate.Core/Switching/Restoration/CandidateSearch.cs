@@ -13,11 +13,13 @@ namespace FeederLocate.Core.Switching;
 internal static class CandidateSearch
 {
     public static ImmutableArray<Candidate> Find(
-        PlanningContext ctx, IsolationResult isolation, DeadArea dead, SupplyLimits limits, IReadOnlySet<int> avoidZones, ICollection<string> notes)
+        PlanningContext ctx, IsolationResult isolation, DeadArea dead, SupplyLimits limits, IReadOnlySet<int> avoidZones, ICollection<string> notes,
+        IReadOnlySet<int> enumerateEvery, ISet<int> wholeOnly)
     {
         var grid = ctx.Grid;
         var zones = ctx.Zones;
         var found = ImmutableArray.CreateBuilder<Candidate>();
+        var flow = new RestorationFlow(ctx, dead.Network, limits);
         for (var source = 0; source < grid.Switches.Length; source++)
         {
             if (dead.States.IsClosed(source))
@@ -53,23 +55,10 @@ internal static class CandidateSearch
             var normal = ctx.FaultTimeNetwork.FeedingEdgeOf(deadNode) == new EdgeRef(EdgeKind.Switch, source);
             var makesOntoFault = DeviceRules.CanMakeOntoFault(grid.Switches[procedure[^1].Device].Kind);
             var tree = new ZoneTree(ctx, dead.States, root, z => dead.Lost[z]);
-            var enumeration = new GroupEnumeration(tree, z => makesOntoFault || !avoidZones.Contains(z), ctx.Options.MaxCandidatesPerSource, group =>
+            var enumeration = new GroupEnumeration(tree, z => makesOntoFault || !avoidZones.Contains(z), ctx.Options.MaxCandidatesPerSource, enumerateEvery.Contains(source), group =>
             {
                 var cuts = tree.CutsOf(group);
-                var states = dead.States;
-                foreach (var cut in cuts)
-                {
-                    states = states.With(grid.Switches[cut].Id, SwitchPosition.Open);
-                }
-
-                states = states.With(device.Id, SwitchPosition.Closed);
-                var network = ctx.TryEnergise(states);
-                if (network is null)
-                {
-                    return null;
-                }
-
-                var verdict = limits.Check(network, new HashSet<int> { donor }, [head]);
+                var verdict = flow.Check(head, source, liveNode, deadNode, group);
                 if (!verdict.Holds)
                 {
                     return null;
@@ -83,6 +72,11 @@ internal static class CandidateSearch
                     group.Sum(z => zones.All[z].Customers), group.Sum(z => zones.All[z].Nodes.Length), normal, operations, verdict);
             });
             found.AddRange(enumeration.Run());
+            if (enumeration.WholeOnly)
+            {
+                wholeOnly.Add(source);
+            }
+
             if (enumeration.Capped)
             {
                 notes.Add($"{device.Id}: more than {ctx.Options.MaxCandidatesPerSource} groups of zones could be picked up; the largest ones found first were checked, not every group");

@@ -9,8 +9,11 @@ namespace FeederLocate.Core.Switching;
 /// of a radial network with constant-power loads only grows with the group, so a group that breaks a
 /// limit ends its branch: no larger group holding it is checked. Zones join as early as they can, so
 /// the largest feasible groups come first; at most <c>cap</c> groups are checked (a deterministic limit).
+/// Unless <c>every</c> is set, a source that can pick up everything it reaches gives that one group only:
+/// it holds every customer and node the smaller ones do, with at most as many ties and operations, so
+/// the smaller ones matter only when the whole group is refused together with others on the same donor.
 /// </summary>
-internal sealed class GroupEnumeration(ZoneTree tree, Func<int, bool> admits, int cap, Func<HashSet<int>, Candidate?> check)
+internal sealed class GroupEnumeration(ZoneTree tree, Func<int, bool> admits, int cap, bool every, Func<HashSet<int>, Candidate?> check)
 {
     private readonly HashSet<int> _group = [];
     private readonly List<Candidate> _found = [];
@@ -19,11 +22,26 @@ internal sealed class GroupEnumeration(ZoneTree tree, Func<int, bool> admits, in
     /// <summary>True when the limit of checks stopped the enumeration before every group was seen.</summary>
     public bool Capped { get; private set; }
 
+    /// <summary>True when only the whole reachable group was given (it keeps every limit).</summary>
+    public bool WholeOnly { get; private set; }
+
     public List<Candidate> Run()
     {
         if (!admits(tree.Root))
         {
             return _found;
+        }
+
+        if (!every)
+        {
+            var reachable = Reachable();
+            if (reachable.Count > 1 && check(reachable) is { } all)
+            {
+                _checks++;
+                WholeOnly = true;
+                _found.Add(all);
+                return _found;
+            }
         }
 
         _group.Add(tree.Root);
@@ -34,6 +52,25 @@ internal sealed class GroupEnumeration(ZoneTree tree, Func<int, bool> admits, in
         }
 
         return _found;
+    }
+
+    /// <summary>The admitted zones reached from the root through admitted zones.</summary>
+    private HashSet<int> Reachable()
+    {
+        var reached = new HashSet<int> { tree.Root };
+        var stack = new Stack<int>([tree.Root]);
+        while (stack.TryPop(out var z))
+        {
+            foreach (var (child, _) in tree.Children(z))
+            {
+                if (admits(child) && reached.Add(child))
+                {
+                    stack.Push(child);
+                }
+            }
+        }
+
+        return reached;
     }
 
     private ImmutableList<int> Children(int zone) => [.. tree.Children(zone).Select(c => c.Zone)];

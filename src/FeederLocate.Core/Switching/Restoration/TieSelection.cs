@@ -20,10 +20,33 @@ internal static class TieSelection
             return [];
         }
 
-        var search = new Search(zones, candidates, forbidden, branchLimit);
-        search.Run();
-        complete = !search.Stopped;
-        return [.. search.Best.Order().Select(i => candidates[i])];
+        // Islands joined by no forbidden combination are independent: each part is searched on its own.
+        var islands = candidates.Select(c => c.Island).Distinct().Order().ToList();
+        var part = islands.ToDictionary(i => i, i => i);
+        int Find(int island) => part[island] == island ? island : part[island] = Find(part[island]);
+        foreach (var combination in forbidden)
+        {
+            foreach (var i in combination.Skip(1))
+            {
+                part[Find(candidates[i].Island)] = Find(candidates[combination[0]].Island);
+            }
+        }
+
+        var chosen = new List<Candidate>();
+        var budget = branchLimit;
+        foreach (var members in Enumerable.Range(0, candidates.Count).GroupBy(i => Find(candidates[i].Island)).OrderBy(g => g.Key))
+        {
+            var indices = members.ToList();
+            var local = indices.Select((global, k) => (global, k)).ToDictionary(p => p.global, p => p.k);
+            var localForbidden = forbidden.Where(f => local.ContainsKey(f[0])).Select(f => (IReadOnlyList<int>)[.. f.Select(i => local[i])]).ToList();
+            var search = new Search(zones, [.. indices.Select(i => candidates[i])], localForbidden, Math.Max(1, budget));
+            search.Run();
+            budget -= search.Branches;
+            complete &= !search.Stopped;
+            chosen.AddRange(search.Best.Order().Select(k => candidates[indices[k]]));
+        }
+
+        return chosen;
     }
 
     private sealed class Search
@@ -84,6 +107,8 @@ internal static class TieSelection
         public List<int> Best { get; private set; } = [];
 
         public bool Stopped { get; private set; }
+
+        public long Branches => _branches;
 
         public void Run() => Branch(0, RestorationScore.Zero);
 
