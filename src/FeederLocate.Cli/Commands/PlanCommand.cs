@@ -118,19 +118,17 @@ internal static class PlanCommand
         TableOutput.Write(output, summary);
         if (d.TestOrder.Count > 0)
         {
-            output.WriteLine("Test order (before the steps above; follow the branch after each result):");
-            var tests = TableOutput.Table("order", "first", "action", "device", "sections", "p", "branches");
+            output.WriteLine("Test order: the alternative to the steps above, for testing before isolating. Start from the incident's start state;");
+            output.WriteLine("after each entry follow the branch of its result (each entry's steps follow those of the entry that led to it):");
+            var tests = TableOutput.Table("entry", "steps", "watch", "p", "branches");
             foreach (var t in d.TestOrder)
             {
-                var branches = new[] { t.IfHolds, t.IfTrips, t.IfU0Stays, t.IfU0Collapses, t.IfU0Returns, t.IfU0StaysAbsent }
-                    .OfType<PlanDocument.BranchEntry>()
-                    .Select(b => $"{b.Result}: {b.Then}");
+                var entrySteps = t.Steps.Select(s => $"{s.Order}. {s.Action} {s.Device} (about {s.AtMinutes.ToString("0", CultureInfo.InvariantCulture)} min): {s.Reason}");
+                var branches = t.Branches.Select(b => $"{b.Result}: {b.Then}");
                 tests.AddRow(
-                    t.Order.ToString(CultureInfo.InvariantCulture),
-                    string.Join("; ", t.Before),
-                    t.Action,
-                    t.Device,
-                    string.Join(" ", t.Energises ?? t.CutsOff ?? []),
+                    t.Entry.ToString(CultureInfo.InvariantCulture),
+                    string.Join(Environment.NewLine, entrySteps),
+                    t.Observe == "trip" ? "breaker holds or trips" : "U0",
                     Percent(t.FaultProbability),
                     string.Join(Environment.NewLine, branches));
             }

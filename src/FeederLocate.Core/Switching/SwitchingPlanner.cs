@@ -63,8 +63,14 @@ public static class SwitchingPlanner
 
         var final = limits.Check(replay.Final);
         var testOrder = TestOrders.For(ctx, suspects, notes, out var expectedReenergisations);
+        var testViolations = TestOrderReplay.Violations(ctx, testOrder);
+        if (testViolations.Count > 0)
+        {
+            throw new InvalidOperationException($"the planner made an unsafe test order: {string.Join("; ", testViolations)}");
+        }
+
         var named = new List<SectionId> { isolate };
-        named.AddRange(testOrder.SelectMany(t => t.Sections.Concat(t.First.FaultIn).Concat(t.Second.FaultIn)));
+        named.AddRange(testOrder.SelectMany(t => t.ReenergisesSections.Concat(t.CutsOffSections).Concat(t.Branches.SelectMany(b => b.FaultIn))));
         return new SwitchingPlan(
             [.. steps],
             [isolate],

@@ -52,9 +52,10 @@ public class PlanCommandTests
         Assert.Equal(0, run.ExitCode);
         var tests = run.Json().GetProperty("testOrder").EnumerateArray().ToList();
         Assert.NotEmpty(tests);
-        Assert.Equal("openWatchingU0", tests[0].GetProperty("action").GetString());
-        Assert.True(tests[0].TryGetProperty("ifU0Stays", out _));
-        Assert.True(tests[0].TryGetProperty("ifU0Collapses", out _));
+        Assert.Equal("neutralVoltage", tests[0].GetProperty("observe").GetString());
+        Assert.Equal("open", tests[0].GetProperty("steps")[0].GetProperty("action").GetString());
+        var results = tests[0].GetProperty("branches").EnumerateArray().Select(b => b.GetProperty("result").GetString()).ToList();
+        Assert.Equal(["u0Stays", "u0Collapses"], results);
     }
 
     [Fact]
@@ -65,11 +66,17 @@ public class PlanCommandTests
         Assert.Equal(0, run.ExitCode);
         var json = run.Json();
         var first = json.GetProperty("testOrder")[0];
-        Assert.Equal("trialClose", first.GetProperty("action").GetString());
-        Assert.Equal("CB-A2", first.GetProperty("device").GetString());
-        Assert.True(first.TryGetProperty("energises", out _));
-        Assert.True(first.TryGetProperty("ifHolds", out _));
-        Assert.True(first.TryGetProperty("ifTrips", out _));
+        Assert.Equal(1, first.GetProperty("entry").GetInt32());
+        Assert.Equal("trip", first.GetProperty("observe").GetString());
+        var steps = first.GetProperty("steps").EnumerateArray().ToList();
+        Assert.Equal("close", steps[^1].GetProperty("action").GetString());
+        Assert.Equal("CB-A2", steps[^1].GetProperty("device").GetString());
+        Assert.True(first.TryGetProperty("reenergisesSections", out _));
+        Assert.InRange(first.GetProperty("faultProbability").GetDouble(), 0, 1);
+        var branches = first.GetProperty("branches").EnumerateArray().ToList();
+        Assert.Equal(["holds", "trips"], branches.Select(b => b.GetProperty("result").GetString()));
+        Assert.True(branches[0].TryGetProperty("faultIn", out _));
+        Assert.True(branches[0].TryGetProperty("next", out _));
         Assert.InRange(json.GetProperty("expectedReenergisationsOntoFault").GetDouble(), 0, 1);
     }
 

@@ -75,4 +75,20 @@ public class PlanCheckerTests
         var plan = good with { Steps = [.. good.Steps.Where(s => s.Action != StepAction.Earth)] };
         Assert.Contains(Problems(grid, plan), p => p.Contains("no Earth step", StringComparison.Ordinal));
     }
+
+    [Fact]
+    public void A_load_break_switch_closing_onto_a_suspect_in_the_test_order_is_caught()
+    {
+        // The impedance sample's split ranking: entry 1 leaves LB-A2-3, the entrance of suspect SEC-S209, open.
+        var (graph, incident) = PlanSafetyTests.Load("impedance-lg-trip-a2.incident.json", "impedance");
+        var plan = SwitchingPlanner.Plan(graph, incident, Core.Ranking.FaultRanking.Rank(graph, incident));
+        var checker = new PlanChecker(graph.Grid);
+        Assert.Empty(checker.CheckTestOrder(incident, plan, new SegmentId("S209"), standing: false).Problems);
+
+        var first = plan.TestOrder[0];
+        var extra = new SwitchingStep(first.Steps.Length + 1, StepAction.Close, new SwitchId("LB-A2-3"), null, [], first.Steps[^1].At, "test");
+        var bad = plan with { TestOrder = [first with { Steps = [.. first.Steps, extra] }, .. plan.TestOrder.Skip(1)] };
+        Assert.Contains(checker.CheckTestOrder(incident, bad, new SegmentId("S209"), standing: false).Problems,
+            p => p.Contains("LB-A2-3 closes onto a section that may hold the fault", StringComparison.Ordinal));
+    }
 }

@@ -7,9 +7,9 @@ namespace FeederLocate.Core.Switching;
 /// time; each step starts when the one before it is done and its device can be reached, and takes the
 /// operation time (remote, manual, or fuse replacement).
 /// </summary>
-internal sealed class Timeline(Grid grid, SwitchingOptions options)
+internal sealed class Timeline(Grid grid, SwitchingOptions options, TimeSpan start = default)
 {
-    public TimeSpan Now { get; private set; } = TimeSpan.Zero;
+    public TimeSpan Now { get; private set; } = start;
 
     public TimeSpan Travel(int device)
     {
