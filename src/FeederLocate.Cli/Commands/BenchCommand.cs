@@ -26,15 +26,18 @@ internal static class BenchCommand
         var rounds = new Option<int>("--rounds") { Description = "Measured rounds (after one warm-up round); the fastest is reported", DefaultValueFactory = _ => 3 };
         var ranking = new Option<bool>("--ranking") { Description = "Measure the ranking of simulated incidents instead of the engine sweep" };
         var plan = new Option<bool>("--plan") { Description = "Measure the switching plan of simulated incidents instead of the engine sweep" };
+        var scheme = new Option<string>("--scheme") { Description = "With --ranking: grounding of the generated grid (isolated, resonant, solid, impedance)", DefaultValueFactory = _ => "resonant" };
+        var protection = new Option<bool>("--protection") { Description = "With --ranking: incidents carry the protection context, and a third of the earth faults on solid and impedance grids go through a high resistance" };
         var json = CliOptions.Json();
         var command = new Command("bench", "Benchmark the fault engine (every indicator's response for a fault on every segment of a generated grid) or, with --ranking, the ranking")
         {
-            segments, seed, share, positions, rounds, ranking, plan, json,
+            segments, seed, share, positions, rounds, ranking, plan, scheme, protection, json,
         };
         command.SetAction(parse => parse.GetValue(plan)
             ? BenchPlan.Run(console, parse.GetValue(segments), parse.GetValue(seed), parse.GetValue(share), parse.GetValue(rounds), parse.GetValue(json))
             : parse.GetValue(ranking)
-            ? BenchRanking.Run(console, parse.GetValue(segments), parse.GetValue(seed), parse.GetValue(share), parse.GetValue(rounds), parse.GetValue(json))
+            ? BenchRanking.Run(console, parse.GetValue(segments), parse.GetValue(seed), parse.GetValue(share), parse.GetValue(rounds), parse.GetValue(json),
+                BenchRanking.Scheme(parse.GetValue(scheme)!), parse.GetValue(protection))
             : Run(console, parse.GetValue(segments), parse.GetValue(seed), parse.GetValue(share),
                 parse.GetValue(positions), parse.GetValue(rounds), parse.GetValue(json)));
         return command;

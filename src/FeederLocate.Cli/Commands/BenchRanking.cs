@@ -1,4 +1,5 @@
 using System.Diagnostics;
+using FeederLocate.Cli.Input;
 using FeederLocate.Cli.Output;
 using FeederLocate.Core.Evaluation;
 using FeederLocate.Core.Model;
@@ -14,11 +15,12 @@ namespace FeederLocate.Cli.Commands;
 /// </summary>
 internal static class BenchRanking
 {
-    public static int Run(CliConsole console, int segments, int seed, double share, int rounds, bool json)
+    public static int Run(CliConsole console, int segments, int seed, double share, int rounds, bool json,
+        GroundingScheme scheme = GroundingScheme.Resonant, bool protection = false)
     {
-        var grid = SyntheticGrid.Generate(new SyntheticGridOptions(segments, seed, GroundingScheme.Resonant, share));
+        var grid = SyntheticGrid.Generate(new SyntheticGridOptions(segments, seed, scheme, share));
         var graph = new NetworkGraph(grid);
-        var simulator = new IncidentSimulator(graph, new SimulationSettings());
+        var simulator = new IncidentSimulator(graph, new SimulationSettings() with { ProtectionContext = protection, HighResistanceShare = protection ? 1.0 / 3 : 0 });
         var random = new Random(seed);
         var incidents = Enumerable.Range(0, rounds + 1).Select(n => simulator.Next(random, n)).ToList();
         var times = new List<double>();
@@ -52,7 +54,7 @@ internal static class BenchRanking
         }
 
         var table = TableOutput.Table("measure", "value");
-        table.AddRow("grid", $"{document.Segments} segments, {document.Indicators} indicators (generated, seed {seed})");
+        table.AddRow("grid", $"{document.Segments} segments, {document.Indicators} indicators (generated, {Core.Formats.GridFormat.Name(scheme)}, seed {seed}{(protection ? ", with protection context and high-resistance earth faults" : string.Empty)})");
         table.AddRow("incidents ranked (after one warm-up)", document.Incidents.ToString(System.Globalization.CultureInfo.InvariantCulture));
         table.AddRow("rank time, fastest", $"{document.FastestMs:F1} ms");
         table.AddRow("rank time, median", $"{document.MedianMs:F1} ms");
@@ -61,6 +63,12 @@ internal static class BenchRanking
         TableOutput.Write(console.Out, table);
         return CliApp.Success;
     }
+
+    /// <summary>The grounding scheme named on the command line.</summary>
+    public static GroundingScheme Scheme(string name) =>
+        Core.Formats.GridFormat.Schemes.TryGetValue(name, out var scheme)
+            ? scheme
+            : throw new BadInputException($"error: --scheme must be one of {string.Join(", ", Core.Formats.GridFormat.Schemes.Keys)}, got \"{name}\"");
 
     internal sealed record Document(int Segments, int Indicators, int Incidents, double FastestMs, double MedianMs, double SlowestMs, int SectionTop1Hits);
 }

@@ -57,6 +57,7 @@ internal static class PlanCommand
 
         var grid = InputFiles.LoadGrid(gridPath, console.Error);
         var incident = InputFiles.LoadIncident(incidentPath, grid, console.Error);
+        InputFiles.CheckGridReference(incident, incidentPath, gridPath);
         var graph = new NetworkGraph(grid);
         RankingResult ranking;
         try

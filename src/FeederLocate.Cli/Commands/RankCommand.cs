@@ -28,6 +28,7 @@ internal static class RankCommand
     {
         var grid = InputFiles.LoadGrid(gridPath, console.Error);
         var incident = InputFiles.LoadIncident(incidentPath, grid, console.Error);
+        InputFiles.CheckGridReference(incident, incidentPath, gridPath);
         var graph = new Core.Topology.NetworkGraph(grid);
         var priors = HistoryDatabase.PriorsFor(dbPath, graph);
         if (!FaultRanking.TryRank(grid, incident, out var result, out var problem, priors: priors))
@@ -48,13 +49,30 @@ internal static class RankCommand
 
     private static void Write(TextWriter output, RankingDocument d)
     {
+        if (d.Transient)
+        {
+            output.WriteLine("TRANSIENT: a reclosure held. The ranking shows where the fault probably was, for the patrol; nothing needs isolating.");
+        }
+
         if (!d.Consistent)
         {
-            output.WriteLine("WARNING: no single explanation fits the evidence. Check these indications and the switch states:");
-            foreach (var c in d.Disagreeing)
+            if (d.Disagreeing.Count > 0)
             {
-                output.WriteLine($"  {c.Indicator}: recorded {c.Observed}, expected {c.Expected} ({c.Verdict})");
+                output.WriteLine("WARNING: no single explanation fits the evidence. Check these indications and the switch states:");
+                foreach (var c in d.Disagreeing)
+                {
+                    output.WriteLine($"  {c.Indicator}: recorded {c.Observed}, expected {c.Expected} ({c.Verdict})");
+                }
             }
+            else
+            {
+                output.WriteLine("WARNING: no single explanation fits the evidence. The indications fit; check the substation records (the measurements below), the tripped device and the switch states.");
+            }
+        }
+
+        if (d.Expired.Count > 0)
+        {
+            output.WriteLine($"without weight (read more than the reset time after the fault): {string.Join(", ", d.Expired)}");
         }
 
         var sections = TableOutput.Table("rank", "section", "probability", "segments");
@@ -80,7 +98,7 @@ internal static class RankCommand
 
             foreach (var m in suspect.Measurements)
             {
-                output.WriteLine($"  = {m.Device} {m.Quantity}: {m.Measured:F1} recorded, {m.Predicted:F1} predicted ({m.DeviationSigma:+0.0;-0.0} σ)");
+                output.WriteLine($"  = {m.Device} {m.Quantity}: {m.Measured:F1} recorded, {m.Predicted:F1} predicted ({DeviationText.Sigma(m.DeviationSigma)} σ)");
             }
         }
 

@@ -33,6 +33,34 @@ public static class InputFiles
         return Checked(result, error);
     }
 
+    /// <summary>
+    /// Refuses an incident whose own <c>grid</c> (relative to the incident file) names another grid than
+    /// the one given on the command line: a file of the same path, or of the same content, is the same grid;
+    /// a named file that does not exist (an incident copied elsewhere) cannot be checked and is let pass.
+    /// </summary>
+    public static void CheckGridReference(Incident incident, string incidentPath, string gridPath)
+    {
+        ArgumentNullException.ThrowIfNull(incident);
+        if (incident.GridReference is not { } reference)
+        {
+            return;
+        }
+
+        var named = Path.GetFullPath(Path.Combine(Path.GetDirectoryName(Path.GetFullPath(incidentPath)) ?? ".", reference));
+        var given = Path.GetFullPath(gridPath);
+        if (string.Equals(named, given, StringComparison.Ordinal))
+        {
+            return;
+        }
+
+        if (!File.Exists(named) || File.ReadAllText(named) == ReadText(gridPath, "grid"))
+        {
+            return;
+        }
+
+        throw new BadInputException($"error: incident file: grid names \"{reference}\" ({named}), not the grid given ({given}); give the grid the incident was recorded on, or correct its grid field");
+    }
+
     private static T Checked<T>(LoadResult<T> result, TextWriter error)
         where T : class
     {

@@ -18,12 +18,14 @@ public static class NeutralAdmittance
     /// <summary>
     /// YN, the neutral's admittance in the zero-sequence circuit, S: 0 (isolated),
     /// −j(1 + v)·ω·C0total (resonant, v the detuning), 1/(Z0T + 3·(RN + j·XN)) (impedance), 1/Z0T (solid).
+    /// Z0T is corrected by KT where the supply is given as upstream network and transformer (IEC 60909-0
+    /// §6.3.3); 3·ZN is never corrected.
     /// </summary>
     public static Complex OfNeutral(Substation substation, double totalCapacitanceF, double angularFrequencyRadPerS)
     {
         ArgumentNullException.ThrowIfNull(substation);
         var g = substation.Grounding;
-        var z0T = substation.TransformerZ0Ohm is { } z ? new Complex(z.ResistanceOhm, z.ReactanceOhm) : Complex.Zero;
+        var z0T = SourceImpedance.TransformerZeroSequenceOhm(substation);
         return g.Scheme switch
         {
             GroundingScheme.Isolated => Complex.Zero,

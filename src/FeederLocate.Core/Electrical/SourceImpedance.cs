@@ -60,6 +60,24 @@ public static class SourceImpedance
         return TransformerCorrectionFactor(transformer) * new Complex(resistanceOhm, reactanceOhm);
     }
 
+    /// <summary>
+    /// The transformer's zero-sequence impedance on the MV side, Ω, as the model uses it: where the supply
+    /// is given as upstream network and transformer, <c>transformerZ0Ohm</c> corrected by the same KT as the
+    /// positive-sequence impedance (Z0TK = KT·Z0T, IEC 60909-0 §6.3.3); where it is given by S"k alone, as
+    /// given. Zero where none is given.
+    /// </summary>
+    public static Complex TransformerZeroSequenceOhm(Substation substation)
+    {
+        ArgumentNullException.ThrowIfNull(substation);
+        if (substation.TransformerZ0Ohm is not { } z)
+        {
+            return Complex.Zero;
+        }
+
+        var given = new Complex(z.ResistanceOhm, z.ReactanceOhm);
+        return substation.Supply is UpstreamViaTransformer u ? TransformerCorrectionFactor(u.Transformer) * given : given;
+    }
+
     /// <summary>KT = 0.95·cmax/(1 + 0.6·xT), IEC 60909-0 eq. (12a), xT the relative reactance.</summary>
     public static double TransformerCorrectionFactor(TransformerData transformer)
     {

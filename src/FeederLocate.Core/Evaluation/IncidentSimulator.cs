@@ -54,8 +54,28 @@ public sealed class IncidentSimulator
         var substation = _grid.Substations[_network.SubstationIndexOf(_network.SuppliedEndOf(segment))];
         var lowCurrent = substation.Grounding.Scheme is GroundingScheme.Isolated or GroundingScheme.Resonant;
         var (type, rf) = DrawFault(random, lowCurrent);
+        if (_settings.HighResistanceShare > 0 && !lowCurrent && type == FaultType.LG && random.NextDouble() < _settings.HighResistanceShare)
+        {
+            rf = 200 * Math.Pow(25, random.NextDouble());
+        }
+
+        return At(_grid.Segments[segment].Id, position, type, rf, random, number);
+    }
+
+    /// <summary>
+    /// The incident of a given fault: indications corrupted at the settings' rates, noisy records and,
+    /// where asked for, the protection context. An earth fault trips nothing on isolated and resonant
+    /// networks, nor through 200 Ω or more on solid and impedance ones (a high-resistance fault).
+    /// </summary>
+    public SimulatedIncident At(SegmentId faulted, double position, FaultType type, double faultResistanceOhm, Random random, int number = 0)
+    {
+        ArgumentNullException.ThrowIfNull(random);
+        var segment = _grid.SegmentIndex(faulted);
+        var rf = faultResistanceOhm;
+        var substation = _grid.Substations[_network.SubstationIndexOf(_network.SuppliedEndOf(segment))];
+        var lowCurrent = substation.Grounding.Scheme is GroundingScheme.Isolated or GroundingScheme.Resonant;
         var fault = _model.Solve(segment, position, type, rf);
-        var trips = !(lowCurrent && type == FaultType.LG);
+        var trips = !(type == FaultType.LG && (lowCurrent || rf >= HighResistanceOhm));
         var reportedAt = Start + (MeanIntervalBetweenFaults * number);
 
         var indications = ImmutableArray.CreateBuilder<Indication>();
@@ -79,8 +99,16 @@ public sealed class IncidentSimulator
             type,
             Records(segment, fault, trips, random),
             indications.ToImmutable());
+        if (_settings.ProtectionContext)
+        {
+            incident = ProtectionContext(incident, segment, position, fault, random);
+        }
+
         return new SimulatedIncident(incident, _grid.Segments[segment].Id, position, type, rf);
     }
+
+    /// <summary>Fault resistance from which an earth fault on a solid or impedance network trips nothing, Ω (common practice).</summary>
+    public const double HighResistanceOhm = 200;
 
     private int DrawSegment(Random random)
     {
@@ -101,6 +129,99 @@ public sealed class IncidentSimulator
             _ => random.NextDouble() * 3,
         };
         return (type, rf);
+    }
+
+    /// <summary>
+    /// What the protection reports: every feeder breaker's earth-fault direction, the fault locator at the
+    /// tripped feeder breaker, the reclosing sequence of the tripping breaker or recloser (locked out: the
+    /// fault is permanent) and the fuses of the faulted feeder found blown (the one that cleared it) or intact.
+    /// </summary>
+    private Incident ProtectionContext(Incident incident, int segment, double position, in FaultSolution fault, Random random)
+    {
+        var earth = fault.Type is FaultType.LG or FaultType.LLG;
+        var sub = fault.Substation;
+        var relays = ImmutableArray.CreateBuilder<RelayResult>();
+        var tripped = incident.TrippedDevice;
+        var head = FeederBreaker(segment);
+        for (var d = 0; d < _grid.Switches.Length; d++)
+        {
+            var device = _grid.Switches[d];
+            if (device.Kind != SwitchKind.Breaker || !_grid.Substations.Any(s => s.BusNode == device.From || s.BusNode == device.To))
+            {
+                continue;
+            }
+
+            var point = _model.SwitchPoint(d);
+            var expected = !earth || point.Substation != sub ? EarthFaultDirection.None
+                : _model.IsFaultBeyond(point, segment) ? EarthFaultDirection.Forward : EarthFaultDirection.Reverse;
+            var direction = random.NextDouble() < _settings.RelayErrorProbability
+                ? (EarthFaultDirection)((int)(expected + 1 + random.Next(2)) % 3)
+                : expected;
+            var lowCurrentEarth = fault.Type == FaultType.LG && _grid.Substations[sub].Grounding.Scheme is GroundingScheme.Isolated or GroundingScheme.Resonant;
+            double? reactance = tripped is not null && device.Id == head && !lowCurrentEarth
+                ? Math.Max(0, LineReactanceOhm(segment, position) * (1 + (_settings.ReactanceNoiseRelative * Normal(random))))
+                : null;
+            relays.Add(new RelayResult(device.Id, direction, reactance));
+        }
+
+        var fuses = ImmutableDictionary.CreateBuilder<SwitchId, FuseCondition>();
+        var feeder = head is { } h ? _model.SwitchPoint(_grid.SwitchIndex(h)) : default;
+        for (var d = 0; d < _grid.Switches.Length; d++)
+        {
+            var device = _grid.Switches[d];
+            if (device.Kind == SwitchKind.Fuse && head is not null && FirstSegmentBeyond(d) is var first and >= 0 && _model.IsFaultBeyond(feeder, first))
+            {
+                fuses[device.Id] = device.Id == tripped ? FuseCondition.Blown : FuseCondition.Intact;
+            }
+        }
+
+        Reclosing? reclosing = tripped is { } t && _grid.Switch(t).Kind is SwitchKind.Breaker or SwitchKind.Recloser
+            ? new Reclosing(t, 2, ReclosingResult.Lockout)
+            : null;
+        return incident with { FaultAt = incident.ReportedAt.AddMinutes(-2), Relays = relays.ToImmutable(), Fuses = fuses.ToImmutable(), Reclosing = reclosing };
+    }
+
+    /// <summary>Σ x1·length from the bus to the fault point, Ω: what a fault locator at the feeder breaker measures.</summary>
+    private double LineReactanceOhm(int segment, double position)
+    {
+        var seg = _grid.Segments[segment];
+        var up = _network.SuppliedEndOf(segment);
+        var fromSupply = _grid.NodeIndex(seg.From) == up ? position : 1 - position;
+        return _network.PositiveSequencePathOhm(up).Imaginary + (fromSupply * seg.LengthKm * _grid.LineTypeOf(seg).X1OhmPerKm);
+    }
+
+    /// <summary>A segment fed through switch <paramref name="device"/>, or −1 where none is (its far side is dead or switch-only).</summary>
+    private int FirstSegmentBeyond(int device)
+    {
+        var point = _model.SwitchPoint(device);
+        if (point.Substation < 0)
+        {
+            return -1;
+        }
+
+        for (var s = 0; s < _grid.Segments.Length; s++)
+        {
+            if (_network.IsSegmentEnergised(s) && _network.SuppliedEndOf(s) == point.FarNode)
+            {
+                return s;
+            }
+        }
+
+        return -1;
+    }
+
+    /// <summary>The breaker at the head of the segment's feeder.</summary>
+    private SwitchId? FeederBreaker(int segment)
+    {
+        foreach (var edge in _network.PathFromSource(_grid.Nodes[_network.SuppliedEndOf(segment)].Id))
+        {
+            if (edge.Kind == EdgeKind.Switch && _grid.Switches[edge.Index].Kind == SwitchKind.Breaker)
+            {
+                return _grid.Switches[edge.Index].Id;
+            }
+        }
+
+        return null;
     }
 
     private IndicatorState Corrupt(IndicatorState expected, Indicator indicator, Random random)
@@ -162,10 +283,10 @@ public sealed class IncidentSimulator
         return records.ToImmutable();
     }
 
-    private double Noisy(double value, Random random)
-    {
-        // Box–Muller: a standard normal draw.
-        var z = Math.Sqrt(-2 * Math.Log(1 - random.NextDouble())) * Math.Cos(2 * Math.PI * random.NextDouble());
-        return Math.Max(0, value * (1 + (_settings.RecordNoiseRelative * z)));
-    }
+    private double Noisy(double value, Random random) =>
+        Math.Max(0, value * (1 + (_settings.RecordNoiseRelative * Normal(random))));
+
+    /// <summary>Box–Muller: a standard normal draw.</summary>
+    private static double Normal(Random random) =>
+        Math.Sqrt(-2 * Math.Log(1 - random.NextDouble())) * Math.Cos(2 * Math.PI * random.NextDouble());
 }

@@ -53,7 +53,7 @@ public static class RankingEvaluation
         return new EvaluationReport(incidents, tallies[0].Rates(), tallies[1].Rates(), tallies[2].Rates(), elapsed.TotalMilliseconds / incidents / 2);
     }
 
-    private sealed class Tally
+    internal sealed class Tally
     {
         private int _count;
         private int _section1;

@@ -16,12 +16,32 @@ public sealed record SimulationSettings(
     double RecordNoiseRelative = 0.02,
     ImmutableDictionary<IndicatorId, double>? FalseProbabilityByIndicator = null)
 {
+    /// <summary>
+    /// Adds the protection context: an earth-fault direction from every feeder breaker (wrong or silent
+    /// with <see cref="RelayErrorProbability"/>), the fault locator's reactance at the tripped feeder
+    /// breaker, the reclosing sequence of a tripped breaker or recloser, and the fuses on the faulted
+    /// feeder found blown or intact.
+    /// </summary>
+    public bool ProtectionContext { get; init; }
+
+    /// <summary>
+    /// Share of the earth faults on solid and impedance networks that go through a high resistance
+    /// (log-uniform 200 Ω to 5 kΩ: a conductor down on dry ground) and trip nothing.
+    /// </summary>
+    public double HighResistanceShare { get; init; }
+
+    /// <summary>P(a relay's earth-fault direction is wrong or silent): 5 % (common practice).</summary>
+    public double RelayErrorProbability { get; init; } = 0.05;
+
+    /// <summary>Relative noise of a fault locator's reactance: 5 % (common practice).</summary>
+    public double ReactanceNoiseRelative { get; init; } = 0.05;
+
     public double FalseProbabilityOf(IndicatorId indicator) =>
         FalseProbabilityByIndicator is { } own && own.TryGetValue(indicator, out var p) ? p : FalseProbability;
 
     public void Validate()
     {
-        foreach (var (name, p) in new[] { ("miss", MissProbability), ("false", FalseProbability), ("unknown", UnknownProbability) })
+        foreach (var (name, p) in new[] { ("miss", MissProbability), ("false", FalseProbability), ("unknown", UnknownProbability), ("high-resistance", HighResistanceShare), ("relay-error", RelayErrorProbability) })
         {
             if (!(p is >= 0 and <= 1))
             {

@@ -63,7 +63,8 @@ public sealed record SubstationMeasurement(
 /// What is known of one incident: switch states deviating from normal, the device that cleared the
 /// fault (null when nothing tripped), the fault type (null when unknown), substation records and
 /// indications. <see cref="ReenergisedAt"/> is the time of the latest trial re-energisation, if any:
-/// indications read before it are stale.
+/// indications read before it are stale. The protection context (<see cref="FaultAt"/>,
+/// <see cref="Reclosing"/>, <see cref="Fuses"/>, <see cref="Relays"/>) is optional.
 /// </summary>
 public sealed record Incident(
     DateTimeOffset ReportedAt,
@@ -75,6 +76,24 @@ public sealed record Incident(
     ImmutableArray<Indication> Indications,
     DateTimeOffset? ReenergisedAt = null)
 {
+    /// <summary>When the fault began (first pickup or trip); readings' ages count from it, else from <see cref="ReportedAt"/>.</summary>
+    public DateTimeOffset? FaultAt { get; init; }
+
+    /// <summary>The auto-reclose sequence of the tripped device, if reported.</summary>
+    public Reclosing? Reclosing { get; init; }
+
+    /// <summary>Fuses found blown or intact.</summary>
+    public ImmutableDictionary<SwitchId, FuseCondition> Fuses { get; init; } = ImmutableDictionary<SwitchId, FuseCondition>.Empty;
+
+    /// <summary>Relay results at feeder breakers and reclosers, one per device.</summary>
+    public ImmutableArray<RelayResult> Relays { get; init; } = [];
+
+    /// <summary>The instant readings' ages count from: <see cref="FaultAt"/>, else <see cref="ReportedAt"/>.</summary>
+    public DateTimeOffset AgeOrigin => FaultAt ?? ReportedAt;
+
+    /// <summary>True where any protection context is given.</summary>
+    public bool HasProtectionContext => FaultAt is not null || Reclosing is not null || !Fuses.IsEmpty || !Relays.IsDefaultOrEmpty;
+
     /// <summary>The indication given for <paramref name="indicator"/>, or null (state unknown).</summary>
     public Indication? IndicationOf(IndicatorId indicator)
     {

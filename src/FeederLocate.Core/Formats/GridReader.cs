@@ -243,14 +243,24 @@ public static class GridReader
         new LineTypeId(r.RequiredString("lineType") ?? string.Empty),
         r.RequiredNumber("lengthKm", NumberRange.Positive) ?? double.NaN);
 
-    private static SwitchingDevice ReadSwitch(ElementReader r) => new(
-        new SwitchId(r.Id),
-        new NodeId(r.RequiredString("from") ?? string.Empty),
-        new NodeId(r.RequiredString("to") ?? string.Empty),
-        GridFormat.Choice(r, "kind", GridFormat.SwitchKinds) ?? SwitchKind.Disconnector,
-        r.RequiredBool("normallyOpen") ?? false,
-        r.RequiredBool("remote") ?? false,
-        r.OptionalNumber("travelMinutes", NumberRange.AtLeast(0)));
+    private static SwitchingDevice ReadSwitch(ElementReader r)
+    {
+        var device = new SwitchingDevice(
+            new SwitchId(r.Id),
+            new NodeId(r.RequiredString("from") ?? string.Empty),
+            new NodeId(r.RequiredString("to") ?? string.Empty),
+            GridFormat.Choice(r, "kind", GridFormat.SwitchKinds) ?? SwitchKind.Disconnector,
+            r.RequiredBool("normallyOpen") ?? false,
+            r.RequiredBool("remote") ?? false,
+            r.OptionalNumber("travelMinutes", NumberRange.AtLeast(0)),
+            r.OptionalNumber("ratedCurrentA", NumberRange.Positive));
+        if (device.RatedCurrentA is not null && device.Kind != SwitchKind.Fuse)
+        {
+            r.Error("ratedCurrentA", $"is given for fuses only; {r.Id} is a {GridFormat.Name(device.Kind)}");
+        }
+
+        return device;
+    }
 
     private static Indicator ReadIndicator(ElementReader r)
     {

@@ -37,6 +37,7 @@ public static class GridWriter
                 w.WriteBoolean("normallyOpen", s.NormallyOpen);
                 w.WriteBoolean("remote", s.Remote);
                 Optional(w, "travelMinutes", s.TravelMinutes);
+                Optional(w, "ratedCurrentA", s.RatedCurrentA);
             });
             Array(w, "indicators", grid.Indicators, (w, i) =>
             {

@@ -41,6 +41,34 @@ public static class IncidentFormat
             ["closed"] = SwitchPosition.Closed,
         };
 
+    public static readonly IReadOnlyDictionary<string, ReclosingResult> ReclosingResults =
+        new Dictionary<string, ReclosingResult>(StringComparer.Ordinal)
+        {
+            ["lockout"] = ReclosingResult.Lockout,
+            ["success"] = ReclosingResult.Success,
+        };
+
+    public static readonly IReadOnlyDictionary<string, FuseCondition> FuseConditions =
+        new Dictionary<string, FuseCondition>(StringComparer.Ordinal)
+        {
+            ["blown"] = FuseCondition.Blown,
+            ["intact"] = FuseCondition.Intact,
+        };
+
+    public static readonly IReadOnlyDictionary<string, EarthFaultDirection> EarthFaultDirections =
+        new Dictionary<string, EarthFaultDirection>(StringComparer.Ordinal)
+        {
+            ["forward"] = EarthFaultDirection.Forward,
+            ["reverse"] = EarthFaultDirection.Reverse,
+            ["none"] = EarthFaultDirection.None,
+        };
+
+    public static string Name(ReclosingResult result) => ReclosingResults.First(p => p.Value == result).Key;
+
+    public static string Name(FuseCondition condition) => FuseConditions.First(p => p.Value == condition).Key;
+
+    public static string Name(EarthFaultDirection direction) => EarthFaultDirections.First(p => p.Value == direction).Key;
+
     public static string Name(FaultType? type) => type?.ToString() ?? "unknown";
 
     public static string Name(IndicatorState state) => States.First(p => p.Value == state).Key;

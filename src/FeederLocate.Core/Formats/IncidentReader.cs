@@ -60,17 +60,33 @@ public static class IncidentReader
         }
 
         var reenergisedAt = Time(root, "reenergisedAt", required: false);
+        var faultAt = Time(root, "faultAt", required: false);
         var measurements = Measurements(root, grid, log);
-        var indications = Indications(root, grid, log);
+        var indications = Indications(root, grid, log, faultAt);
+        var protection = ProtectionReader.Read(root, grid, log);
+        if (faultAt is { } began && reportedAt is { } reported && reported < began)
+        {
+            root.Error("faultAt", $"{Text(began)} is later than reportedAt {Text(reported)}: a fault is reported after it began");
+        }
+
         root.WarnUnknownFields();
         if (log.HasErrors)
         {
             return new LoadResult<Incident>(null, log.Issues);
         }
 
-        var incident = new Incident(reportedAt!.Value, gridReference, switchStates, tripped, faultType, measurements, indications, reenergisedAt);
+        var incident = new Incident(reportedAt!.Value, gridReference, switchStates, tripped, faultType, measurements, indications, reenergisedAt)
+        {
+            FaultAt = faultAt,
+            Reclosing = protection.Reclosing,
+            Fuses = protection.Fuses,
+            Relays = protection.Relays,
+        };
         return new LoadResult<Incident>(incident, log.Issues);
     }
+
+    internal static string Text(DateTimeOffset time) =>
+        time.ToUniversalTime().ToString("yyyy-MM-dd'T'HH:mm:ss'Z'", CultureInfo.InvariantCulture);
 
     private static DateTimeOffset? Time(ElementReader reader, string field, bool required)
     {
@@ -187,7 +203,7 @@ public static class IncidentReader
         return measurements.ToImmutable();
     }
 
-    private static ImmutableArray<Indication> Indications(ElementReader root, Grid? grid, IssueLog log)
+    private static ImmutableArray<Indication> Indications(ElementReader root, Grid? grid, IssueLog log, DateTimeOffset? faultAt)
     {
         var indications = ImmutableArray.CreateBuilder<Indication>();
         if (root.Array("indications", required: true) is not { } array)
@@ -211,6 +227,10 @@ public static class IncidentReader
             var state = GridFormat.Choice(reader, "state", IncidentFormat.States);
             var source = GridFormat.Choice(reader, "source", IncidentFormat.Sources);
             var readAt = Time(reader, "readAt", required: false);
+            if (readAt is { } read && faultAt is { } began && read < began)
+            {
+                reader.Error("readAt", $"{Text(read)} is before faultAt {Text(began)}: a reading taken before the fault says nothing of it");
+            }
             var suspect = reader.OptionalBool("suspect") ?? false;
             reader.WarnUnknownFields();
             if (indicator is null)

@@ -44,6 +44,50 @@ public static class IncidentWriter
                 w.WriteString("reenergisedAt", Time(reenergisedAt));
             }
 
+            if (incident.FaultAt is { } faultAt)
+            {
+                w.WriteString("faultAt", Time(faultAt));
+            }
+
+            if (incident.Reclosing is { } reclosing)
+            {
+                w.WriteStartObject("reclosing");
+                w.WriteString("device", reclosing.Device.Value);
+                w.WriteNumber("attempts", reclosing.Attempts);
+                w.WriteString("result", IncidentFormat.Name(reclosing.Result));
+                w.WriteEndObject();
+            }
+
+            if (!incident.Fuses.IsEmpty)
+            {
+                w.WriteStartObject("fuses");
+                foreach (var (id, condition) in incident.Fuses.OrderBy(p => p.Key.Value, StringComparer.Ordinal))
+                {
+                    w.WriteString(id.Value, IncidentFormat.Name(condition));
+                }
+
+                w.WriteEndObject();
+            }
+
+            if (!incident.Relays.IsDefaultOrEmpty)
+            {
+                w.WriteStartArray("relays");
+                foreach (var relay in incident.Relays)
+                {
+                    w.WriteStartObject();
+                    w.WriteString("device", relay.Device.Value);
+                    if (relay.EarthFaultDirection is { } direction)
+                    {
+                        w.WriteString("earthFaultDirection", IncidentFormat.Name(direction));
+                    }
+
+                    Optional(w, "faultReactanceOhm", relay.FaultReactanceOhm);
+                    w.WriteEndObject();
+                }
+
+                w.WriteEndArray();
+            }
+
             w.WriteStartArray("measurements");
             foreach (var m in incident.Measurements)
             {

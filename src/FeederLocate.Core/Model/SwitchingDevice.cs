@@ -13,6 +13,7 @@ public enum SwitchKind
 /// <param name="NormallyOpen">True marks a tie point, open in the normal state.</param>
 /// <param name="Remote">Operable from the control room.</param>
 /// <param name="TravelMinutes">Time for a crew to reach it, for manual devices.</param>
+/// <param name="RatedCurrentA">Fuses only: rated current of the fuse link, A; null where not given.</param>
 public sealed record SwitchingDevice(
     SwitchId Id,
     NodeId From,
@@ -20,7 +21,8 @@ public sealed record SwitchingDevice(
     SwitchKind Kind,
     bool NormallyOpen,
     bool Remote,
-    double? TravelMinutes = null)
+    double? TravelMinutes = null,
+    double? RatedCurrentA = null)
 {
     /// <summary>True where the device is open in the normal state.</summary>
     public bool IsTie => NormallyOpen;

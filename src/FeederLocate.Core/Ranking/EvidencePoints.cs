@@ -26,7 +26,7 @@ internal sealed record MeasuredRecord(SubstationMeasurement Measurement, Measuri
 
 internal static class EvidencePoints
 {
-    public static List<ObservedIndication> Indications(Grid grid, Incident incident, FaultResponseModel model, RankingOptions options, RankingPriors priors, List<IndicatorId> leftOut)
+    public static List<ObservedIndication> Indications(Grid grid, Incident incident, FaultResponseModel model, RankingOptions options, RankingPriors priors, List<IndicatorId> leftOut, List<IndicatorId> expired)
     {
         var observed = new List<ObservedIndication>();
         foreach (var indication in incident.Indications)
@@ -44,6 +44,13 @@ internal static class EvidencePoints
 
             var index = grid.IndicatorIndex(indication.Indicator);
             var indicator = grid.Indicators[index];
+            if (IsExpired(indicator, indication, incident))
+            {
+                // The flag may have reset before it was read: the reading carries no weight at all, as if absent.
+                expired.Add(indication.Indicator);
+                continue;
+            }
+
             var rates = RatesOf(indicator, indication, options, priors);
             var stale = IsStale(indicator, indication, incident);
             var weight = stale ? options.StaleWeight : 1.0;
@@ -62,20 +69,17 @@ internal static class EvidencePoints
     public static List<MeasuredRecord> Measurements(Grid grid, Incident incident, FaultResponseModel model) =>
         [.. incident.Measurements.Select(m => new MeasuredRecord(m, model.SwitchPoint(grid.SwitchIndex(m.Device))))];
 
-    /// <summary>
-    /// Read after the flag may have reset, or before a trial re-energisation changed what it shows.
-    /// </summary>
-    public static bool IsStale(Indicator indicator, Indication indication, Incident incident)
-    {
-        if (indication.ReadAt is not { } readAt)
-        {
-            return false;
-        }
+    /// <summary>Read before a trial re-energisation changed what the indicator shows.</summary>
+    public static bool IsStale(Indicator indicator, Indication indication, Incident incident) =>
+        indication.ReadAt is { } readAt && incident.ReenergisedAt is { } reenergised && readAt < reenergised;
 
-        var afterReset = indicator.ResetMinutes is { } reset && readAt - incident.ReportedAt > TimeSpan.FromMinutes(reset);
-        var beforeReenergising = incident.ReenergisedAt is { } reenergised && readAt < reenergised;
-        return afterReset || beforeReenergising;
-    }
+    /// <summary>
+    /// Read more than the indicator's reset time after the fault (<see cref="Incident.FaultAt"/>, else
+    /// <see cref="Incident.ReportedAt"/>): the flag may have reset, so the reading says nothing.
+    /// </summary>
+    public static bool IsExpired(Indicator indicator, Indication indication, Incident incident) =>
+        indication.ReadAt is { } readAt && indicator.ResetMinutes is { } reset
+        && readAt - incident.AgeOrigin > TimeSpan.FromMinutes(reset);
 
     private static IndicatorErrorRates RatesOf(Indicator indicator, Indication indication, RankingOptions options, RankingPriors priors)
     {

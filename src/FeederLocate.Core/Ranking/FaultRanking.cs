@@ -116,7 +116,11 @@ public static class FaultRanking
             crossCountry,
             [.. computation.LeftOut],
             FaultTypeProbabilities(scores),
-            Assumptions(computation));
+            Assumptions(computation))
+        {
+            Transient = computation.Incident.Reclosing is { Transient: true },
+            Expired = [.. computation.Expired],
+        };
     }
 
     private static (ImmutableArray<IndicationCheck> Checks, bool Consistent) Judge(RankingComputation computation, SegmentScore best, DistanceCalculator distances, bool refined)
@@ -144,8 +148,8 @@ public static class FaultRanking
         var list = new List<string>
         {
             $"indicator error rates: remote miss {Pct(o.RemoteRates.MissProbability)}, false {Pct(o.RemoteRates.FalseReportProbability)}; field-read miss {Pct(o.FieldRates.MissProbability)}, false {Pct(o.FieldRates.FalseReportProbability)}, misread {Pct(o.FieldRates.MisreadProbability)} (learned rates replace them where history exists)",
-            $"stale indications (read after the indicator's reset time or before a trial re-energisation) weigh {Pct(o.StaleWeight)}",
-            $"fault resistance marginalised over: earth faults on isolated and resonant networks {Ohms(o.HighResistanceEarthFaultOhms)}; on solid and impedance networks {Ohms(o.LowResistanceEarthFaultOhms)}; short circuits {Ohms(o.ShortCircuitOhms)}",
+            $"indications read more than the indicator's reset time after the fault (counted from {(computation.Incident.FaultAt is null ? "reportedAt; faultAt not given" : "faultAt")}) carry no weight; read before a trial re-energisation they weigh {Pct(o.StaleWeight)}",
+            $"fault resistance marginalised over: earth faults on isolated and resonant networks {Ohms(o.HighResistanceEarthFaultOhms)}; on solid and impedance networks {Ohms(o.LowResistanceEarthFaultOhms)}, joined by the higher values of the first range up to {o.HighResistanceEarthFaultOhms.Max().ToString(CultureInfo.InvariantCulture)} Ω (half the prior where nothing tripped, {Pct(o.HighResistanceTripShare)} where a device tripped: a sensitive earth-fault trip); short circuits {Ohms(o.ShortCircuitOhms)}",
             $"measurement tolerance: phase current {Pct(o.PhaseCurrentTolerance.Relative)} + {o.PhaseCurrentTolerance.Absolute.ToString(CultureInfo.InvariantCulture)} A, residual current {Pct(o.ResidualCurrentTolerance.Relative)} + {o.ResidualCurrentTolerance.Absolute.ToString(CultureInfo.InvariantCulture)} A, neutral voltage {Pct(o.NeutralVoltageTolerance.Relative)} + {o.NeutralVoltageTolerance.Absolute.ToString(CultureInfo.InvariantCulture)} V",
             "indications are compared with a fault at each segment's midpoint; substation records at several positions along it",
             "load current is ignored in the fault currents (reference model); Z2 = Z1",
@@ -153,6 +157,29 @@ public static class FaultRanking
         if (computation.Incident.TrippedDevice is { } tripped)
         {
             list.Add($"the fault lies where {tripped} would have seen it; elsewhere a factor {o.OutsideTrippedZoneFactor.ToString(CultureInfo.InvariantCulture)} (maloperation or a wrong switch state)");
+        }
+
+        var incident = computation.Incident;
+        if (!incident.Fuses.IsEmpty)
+        {
+            list.Add($"fuses: a blown fuse puts the fault beyond it; an intact one puts it elsewhere where the fault current would have blown it (above its rating; without one, any short circuit and a tripping earth fault on solid and impedance networks); error probability {Pct(o.FuseErrorProbability)}");
+        }
+
+        if (!incident.Relays.IsDefaultOrEmpty)
+        {
+            list.Add($"relays: an earth-fault direction forward puts the fault beyond the device, reverse or none elsewhere on its network (short circuits: none everywhere); a fault locator's reactance is compared with the lines' x1 from the device ({Pct(o.FaultReactanceTolerance.Relative)} + {o.FaultReactanceTolerance.Absolute.ToString(CultureInfo.InvariantCulture)} Ω, averaged along each segment; not for earth faults on isolated and resonant networks); error probability {Pct(o.RelayErrorProbability)}");
+        }
+
+        if (incident.Reclosing is { } reclosing)
+        {
+            list.Add(reclosing.Transient
+                ? $"{reclosing.Device} reclosed successfully after {reclosing.Attempts} attempt(s): a transient fault, ranked for the patrol; nothing needs isolating"
+                : $"{reclosing.Device} locked out after {reclosing.Attempts} reclosure(s): a permanent fault beyond it");
+        }
+
+        if (computation.Expired.Count > 0)
+        {
+            list.Add($"read after their reset time, without weight: {string.Join(", ", computation.Expired)}");
         }
 
         if (computation.LeftOut.Count > 0)

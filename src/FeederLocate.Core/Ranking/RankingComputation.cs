@@ -32,6 +32,8 @@ internal sealed class RankingComputation
     private readonly IndicationSums _sums;
     private readonly RecordSums _records;
     private readonly List<int> _recordsBeyond = [];
+    private readonly ProtectionEvidence _protection;
+    private readonly double _maximumTrippingEarthFaultOhm;
 
     public RankingComputation(NetworkGraph graph, Incident incident, RankingOptions options, RankingPriors priors)
     {
@@ -47,7 +49,7 @@ internal sealed class RankingComputation
 
         Network = network!;
         _model = new FaultResponseModel(Network);
-        _observed = EvidencePoints.Indications(_grid, incident, _model, options, priors, _leftOut);
+        _observed = EvidencePoints.Indications(_grid, incident, _model, options, priors, _leftOut, Expired);
         _measured = EvidencePoints.Measurements(_grid, incident, _model);
         _trip = incident.TrippedDevice is { } tripped ? _model.SwitchPoint(_grid.SwitchIndex(tripped)) : null;
         _plans = [.. _grid.Substations.Select(s => HypothesisPlan.For(s.Grounding.Scheme, incident, options))];
@@ -56,6 +58,8 @@ internal sealed class RankingComputation
         _sums = new IndicationSums(_model, _observed);
         _lowCurrentEarthFault = [.. _grid.Substations.Select(s => s.Grounding.Scheme is GroundingScheme.Isolated or GroundingScheme.Resonant)];
         _records = new RecordSums(this, _measured, _model);
+        _protection = new ProtectionEvidence(_model, incident, options);
+        _maximumTrippingEarthFaultOhm = options.LowResistanceEarthFaultOhms.IsDefaultOrEmpty ? 0 : options.LowResistanceEarthFaultOhms.Max();
     }
 
     public EnergisedNetwork Network { get; }
@@ -67,6 +71,9 @@ internal sealed class RankingComputation
     internal IReadOnlyList<MeasuredRecord> Measured => _measured;
 
     internal IReadOnlyList<IndicatorId> LeftOut => _leftOut;
+
+    /// <summary>Indicators whose reading is older than their reset time after the fault: they carry no weight.</summary>
+    internal List<IndicatorId> Expired { get; } = [];
 
     internal Incident Incident => _incident;
 
@@ -108,13 +115,15 @@ internal sealed class RankingComputation
             .Where(m => _measured[m].Point.Substation == sub && _model.IsFaultBeyond(_measured[m].Point, segment)).ToList();
         foreach (var plan in _plans[sub])
         {
+            var protection = _protection.TypeLog(segment, plan.Type, sub);
             foreach (var rf in FineResistances(plan.ResistancesOhm))
             {
                 foreach (var position in RefinedPositions)
                 {
                     // The shortcut sums, equal to the plain ones (see the tests), at every point of the finer grid.
                     var fault = _model.Solve(segment, position, plan.Type, rf);
-                    var log = _sums.LogLikelihood(segment, fault) + _records.LogLikelihood(fault, beyond) + trip;
+                    var log = _sums.LogLikelihood(segment, fault) + _records.LogLikelihood(fault, beyond) + trip
+                        + protection + (_protection.HasResistanceTerms ? _protection.FaultLog(segment, fault, rf) : 0);
                     if (log > best.LogLikelihood)
                     {
                         best = new BestHypothesis(plan.Type, rf, position, log);
@@ -239,15 +248,18 @@ internal sealed class RankingComputation
         var byType = new Dictionary<FaultType, double>();
         foreach (var plan in _plans[sub])
         {
-            var logWeight = plan.LogWeight - Math.Log(plan.ResistancesOhm.Length);
+            var protection = _protection.TypeLog(segment, plan.Type, sub);
             var typeMarginal = double.NegativeInfinity;
-            foreach (var rf in plan.ResistancesOhm)
+            for (var k = 0; k < plan.ResistancesOhm.Length; k++)
             {
+                var rf = plan.ResistancesOhm[k];
+                var logWeight = plan.LogWeight + plan.ResistanceLogWeights[k];
                 var mid = _model.Solve(segment, 0.5, plan.Type, rf);
                 var indications = _sums.LogLikelihood(segment, mid);
 
                 var (records, position) = RecordsLikelihood(segment, plan.Type, rf, mid);
-                var likelihood = indications + records;
+                var likelihood = indications + records + protection
+                    + (_protection.HasResistanceTerms ? _protection.FaultLog(segment, mid, rf) : 0);
                 typeMarginal = LogMath.Add(typeMarginal, logWeight + likelihood);
                 if (likelihood + tripLog > best.LogLikelihood)
                 {
@@ -275,7 +287,10 @@ internal sealed class RankingComputation
         var best = (Log: double.NegativeInfinity, Position: 0.5);
         // Where the earthing keeps an earth fault's current low, the records hardly change along a segment:
         // the midpoint stands for it (the finer check of the best explanation still uses every position).
-        var positions = _lowCurrentEarthFault[mid.Substation] && type is FaultType.LG or FaultType.LLG ? MidpointOnly : _options.Positions;
+        // So do high-resistance earth faults on solid and impedance networks: the fault resistance, not the line, sets their current.
+        var positions = type is FaultType.LG or FaultType.LLG && (_lowCurrentEarthFault[mid.Substation] || rf > _maximumTrippingEarthFaultOhm)
+            ? MidpointOnly
+            : _options.Positions;
         foreach (var position in positions)
         {
             var fault = position == 0.5 ? mid : _model.Solve(segment, position, type, rf);

@@ -35,7 +35,7 @@ public sealed record RankingOptions
     /// <summary>Field-read indicators: as remote plus 3 % misreading (common practice, from memory).</summary>
     public IndicatorErrorRates FieldRates { get; init; } = new(0.05, 0.02, 0.03);
 
-    /// <summary>Weight (0..1) of an indication read after its indicator's reset time or before a trial re-energisation.</summary>
+    /// <summary>Weight (0..1) of an indication read before a trial re-energisation. One read after its indicator's reset time (counted from the fault) carries no weight at all.</summary>
     public double StaleWeight { get; init; } = 0.3;
 
     /// <summary>Faulted-phase current at the feeder breaker: 5 % + 20 A (CT and recorder class, common practice).</summary>
@@ -52,6 +52,23 @@ public sealed record RankingOptions
 
     /// <summary>Fault resistances for earth faults that trip on solid and impedance networks, Ω (mostly under 20 Ω, common practice).</summary>
     public ImmutableArray<double> LowResistanceEarthFaultOhms { get; init; } = [0, 0.5, 1, 1.5, 2, 3, 4, 6, 8, 10, 13, 16, 20];
+
+    /// <summary>
+    /// Prior share of high-resistance earth faults (the <see cref="HighResistanceEarthFaultOhms"/> range) among
+    /// earth faults that tripped a device on solid and impedance networks: a sensitive earth-fault element
+    /// trips on a few amperes (common practice). Where nothing tripped on such a network, the whole range from
+    /// 0 Ω to several kΩ is considered with the tripping range.
+    /// </summary>
+    public double HighResistanceTripShare { get; init; } = 0.1;
+
+    /// <summary>P(a fuse reported blown with the fault not beyond it, or intact where the fault current would have blown it): 2 % (common practice).</summary>
+    public double FuseErrorProbability { get; init; } = 0.02;
+
+    /// <summary>P(a directional or wattmetric earth-fault element points the wrong way or stays silent), and of a fault locator's reading being wrong: 5 % (common practice).</summary>
+    public double RelayErrorProbability { get; init; } = 0.05;
+
+    /// <summary>Fault locator reactance: 10 % + 0.3 Ω (fault resistance, load and line data; common practice).</summary>
+    public MeasurementTolerance FaultReactanceTolerance { get; init; } = new(0.10, 0.3);
 
     /// <summary>Fault resistances of short circuits, Ω (a few ohms at most, common practice).</summary>
     public ImmutableArray<double> ShortCircuitOhms { get; init; } = [0, 0.5, 1.5, 3];
@@ -86,6 +103,14 @@ public sealed record RankingOptions
         if (!(StaleWeight is >= 0 and <= 1))
         {
             throw new ArgumentOutOfRangeException(nameof(StaleWeight), StaleWeight, "stale weight must be within 0 to 1");
+        }
+
+        foreach (var (name, p) in new[] { (nameof(HighResistanceTripShare), HighResistanceTripShare), (nameof(FuseErrorProbability), FuseErrorProbability), (nameof(RelayErrorProbability), RelayErrorProbability) })
+        {
+            if (!(p is > 0 and < 0.5))
+            {
+                throw new ArgumentOutOfRangeException(name, p, $"{name} must lie strictly between 0 and 0.5");
+            }
         }
 
         if (Positions.IsDefaultOrEmpty || Positions.Any(p => !(p is >= 0 and <= 1)))

@@ -62,7 +62,17 @@ public sealed record RankingResult(
     ImmutableArray<CrossCountrySuspect> CrossCountry,
     ImmutableArray<IndicatorId> LeftOut,
     ImmutableDictionary<FaultType, double> FaultTypeProbabilities,
-    ImmutableArray<string> Assumptions);
+    ImmutableArray<string> Assumptions)
+{
+    /// <summary>
+    /// A reclosure held (<c>reclosing.result = "success"</c>): the fault was transient. The ranking says
+    /// where it probably was, for the patrol; nothing needs isolating.
+    /// </summary>
+    public bool Transient { get; init; }
+
+    /// <summary>Indicators read more than their reset time after the fault: their readings carry no weight.</summary>
+    public ImmutableArray<IndicatorId> Expired { get; init; } = [];
+}
 
 /// <summary>Thrown where an incident cannot be ranked (its switch states give no radial network, nothing is energised).</summary>
 public sealed class RankingException(string message) : Exception(message);

@@ -22,6 +22,7 @@ internal static class EventPayload
     public const string OutcomeLoggedKind = "outcomeLogged";
     public const string IncidentClosedKind = "incidentClosed";
     public const string SubstationRecordAmendedKind = "substationRecordAmended";
+    public const string ProtectionRecordedKind = "protectionRecorded";
 
     // Required constructor parameters and nullable annotations are enforced, so a payload missing a
     // non-optional field fails to read instead of yielding nulls; optional fields have defaults.
@@ -43,6 +44,7 @@ internal static class EventPayload
         OutcomeLogged => OutcomeLoggedKind,
         IncidentClosed => IncidentClosedKind,
         SubstationRecordAmended => SubstationRecordAmendedKind,
+        ProtectionRecorded => ProtectionRecordedKind,
         _ => throw new ArgumentException($"unknown event type {e.GetType().Name}", nameof(e)),
     };
 
@@ -62,6 +64,7 @@ internal static class EventPayload
             OutcomeLogged o => new OutcomePayload(o.ConfirmedSegment.Value, IncidentFormat.Name(o.FaultType), o.Cause, o.Notes),
             IncidentClosed c => new ClosedPayload(c.Note),
             SubstationRecordAmended a => new AmendedPayload(IncidentFormat.Name(a.FaultType), a.TrippedDevice?.Value),
+            ProtectionRecorded p => new ProtectionPayload(ProtectionText(p)),
             _ => throw new ArgumentException($"unknown event type {e.GetType().Name}", nameof(e)),
         };
         return JsonSerializer.Serialize(payload, payload.GetType(), Options);
@@ -82,6 +85,7 @@ internal static class EventPayload
                 OutcomeLoggedKind => Read<OutcomePayload>(json).ToEvent(id),
                 IncidentClosedKind => new IncidentClosed(Read<ClosedPayload>(json).Note),
                 SubstationRecordAmendedKind => Read<AmendedPayload>(json).ToEvent(id),
+                ProtectionRecordedKind => Protection(id, Read<ProtectionPayload>(json)),
                 _ => throw new CorruptEventException(id, $"has unknown kind \"{kind}\""),
             };
         }
@@ -127,6 +131,29 @@ internal static class EventPayload
         names.TryGetValue(text, out var value)
             ? value
             : throw new CorruptEventException(id, $"has {field} \"{text}\"; expected one of {string.Join(", ", names.Keys)}");
+
+    /// <summary>The protection fields in the incident format's own shape, inside a minimal incident document.</summary>
+    private static string ProtectionText(ProtectionRecorded p) =>
+        IncidentWriter.Write(new Incident(p.FaultAt ?? DateTimeOffset.UnixEpoch, null, System.Collections.Immutable.ImmutableDictionary<SwitchId, SwitchPosition>.Empty, null, null, [], [])
+        {
+            FaultAt = p.FaultAt,
+            Reclosing = p.Reclosing,
+            Fuses = p.Fuses,
+            Relays = p.Relays,
+        });
+
+    private static ProtectionRecorded Protection(EventId id, ProtectionPayload payload)
+    {
+        var read = IncidentReader.Parse(payload.Protection, grid: null);
+        if (read.Value is not { } incident)
+        {
+            throw new CorruptEventException(id, "holds a protection context that does not read back: " + string.Join("; ", read.Errors));
+        }
+
+        return ProtectionRecorded.Of(incident);
+    }
+
+    private sealed record ProtectionPayload(string Protection);
 
     private sealed record OpenedPayload(string GridName, string Incident, string ReportedAt);
 

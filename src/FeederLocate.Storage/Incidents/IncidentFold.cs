@@ -98,6 +98,9 @@ internal static class IncidentFold
                 case SubstationRecordAmended amended:
                     incident = incident with { TrippedDevice = amended.TrippedDevice, FaultType = amended.FaultType };
                     break;
+                case ProtectionRecorded protection:
+                    incident = protection.ApplyTo(incident);
+                    break;
                 case IncidentOpened:
                     throw new CorruptEventException(stored.Id, $"opens incident {stored.Incident} a second time");
                 default:

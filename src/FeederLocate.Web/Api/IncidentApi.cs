@@ -37,6 +37,8 @@ public static class IncidentApi
             PostEvidence(id, user, request, board, grids, "indications")).RequireAuthorization(AccessPolicies.ApiWrite);
         api.MapPost("/incidents/{id:long}/measurements", (long id, ClaimsPrincipal user, HttpRequest request, IncidentBoard board, GridCatalog grids) =>
             PostEvidence(id, user, request, board, grids, "measurements")).RequireAuthorization(AccessPolicies.ApiWrite);
+        api.MapPost("/incidents/{id:long}/protection", (long id, ClaimsPrincipal user, HttpRequest request, IncidentBoard board, GridCatalog grids, TimeProvider clock) =>
+            ProtectionApi.Post(id, user, request, board, grids, clock)).RequireAuthorization(AccessPolicies.ApiWrite);
         api.MapGet("/incidents/{id:long}/ranking", (long id, ClaimsPrincipal user, IncidentBoard board, GridCatalog grids, IncidentAnalysis analysis) =>
             WithIncident(board, user, id, state => grids.Find(state.GridName) is not { } grid
                 ? GridNotLoaded(id, state)
@@ -53,7 +55,7 @@ public static class IncidentApi
         return app;
     }
 
-    private static async Task<IResult> OpenIncident(HttpRequest request, ClaimsPrincipal user, string? grid, IncidentBoard board, GridCatalog grids)
+    private static async Task<IResult> OpenIncident(HttpRequest request, ClaimsPrincipal user, string? grid, IncidentBoard board, GridCatalog grids, TimeProvider clock)
     {
         if (grids.Find(grid ?? string.Empty) is not { } loaded || !AccountClaims.MaySee(user, loaded.Name))
         {
@@ -70,6 +72,11 @@ public static class IncidentApi
         if (result.Value is not { } incident)
         {
             return Results.BadRequest(ApiError.From("the incident has errors", result.Issues));
+        }
+
+        if (incident.FaultAt is { } faultAt && faultAt > clock.GetUtcNow())
+        {
+            return Results.BadRequest(ApiError.Single("in the future", "incident", "file", "faultAt", "is later than now"));
         }
 
         var id = board.Open(loaded, incident, AccountClaims.ActorOf(user));
@@ -106,8 +113,12 @@ public static class IncidentApi
             // incident reader, gives the reader's own messages (a lone surrogate, a duplicate key, ...).
             var items = kind == JsonValueKind.Array ? text : $"[{text}]";
             var reportedAt = state.ReportedAt.UtcDateTime.ToString("yyyy-MM-dd'T'HH:mm:ss'Z'", System.Globalization.CultureInfo.InvariantCulture);
+            // With the fault time known, readings dated before it are refused by the reader itself.
+            var faultAt = state.Incident.FaultAt is { } began
+                ? $"\"faultAt\": \"{began.UtcDateTime.ToString("yyyy-MM-dd'T'HH:mm:ss.FFFFFFF'Z'", System.Globalization.CultureInfo.InvariantCulture)}\", "
+                : string.Empty;
             var wrapper = field == "indications"
-                ? $$"""{ "format": "{{IncidentFormat.FormatTag}}", "reportedAt": "{{reportedAt}}", "faultType": "unknown", "indications": {{items}} }"""
+                ? $$"""{ "format": "{{IncidentFormat.FormatTag}}", "reportedAt": "{{reportedAt}}", {{faultAt}}"faultType": "unknown", "indications": {{items}} }"""
                 : $$"""{ "format": "{{IncidentFormat.FormatTag}}", "reportedAt": "{{reportedAt}}", "faultType": "unknown", "indications": [], "measurements": {{items}} }""";
 
             var read = IncidentReader.Parse(wrapper, grid.Grid);
@@ -123,6 +134,14 @@ public static class IncidentApi
             return Results.Accepted($"/api/incidents/{id}", new { accepted = events.Count });
         });
     }
+
+    internal static async Task<string?> Body(HttpRequest request) => await ReadBody(request);
+
+    internal static IResult BodyTooLarge() => TooLarge();
+
+    internal static IResult InIncident(IncidentBoard board, ClaimsPrincipal user, long id, Func<IncidentState, IResult> action) => WithIncident(board, user, id, action);
+
+    internal static IResult NoGrid(long id, IncidentState state) => GridNotLoaded(id, state);
 
     private static async Task<IResult> PostOutcome(long id, ClaimsPrincipal user, HttpRequest request, IncidentBoard board, GridCatalog grids)
     {

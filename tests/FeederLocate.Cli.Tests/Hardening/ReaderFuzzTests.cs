@@ -16,7 +16,7 @@ public sealed class ReaderFuzzTests(ITestOutputHelper output)
 
     private static readonly string[] GridKinds = ["grid", "lineType", "substation", "node", "segment", "switch", "indicator"];
 
-    private static readonly string[] IncidentKinds = ["incident", "measurement", "indication"];
+    private static readonly string[] IncidentKinds = ["incident", "measurement", "indication", "reclosing", "relay"];
 
     [Fact]
     public void Grid_reader_never_throws_and_accepts_a_mutant_cleanly_or_names_the_element_at_fault()

@@ -149,8 +149,26 @@ public class Iec60909SourceTests
 
         var lg = FaultCurrents.At(grid, new FaultCase(new SegmentId("S1"), 0, FaultType.LG));
 
-        // Derived from IEC 60909-0 (CHECK-VALUES.md): I"k1 ≈ 1087 A with Z0T = ZTK; ±0.6 A.
+        // Derived from IEC 60909-0 (CHECK-VALUES.md): I"k1 ≈ 1087 A with Z0TK = KT·Z0T = ZTK (§6.3.3); ±0.6 A.
         Assert.Equal(Iec60909Substation20kV.SinglePhaseCurrentA, lg.FaultCurrentA, Iec60909Substation20kV.SinglePhaseToleranceA);
+    }
+
+    [Fact]
+    public void The_transformer_zero_sequence_impedance_is_corrected_by_KT_only_where_the_transformer_is_given()
+    {
+        // IEC 60909-0 §6.3.3: Z0TK = KT·Z0T with the same KT (0.97485, CHECK-VALUES.md) as the positive sequence;
+        // a substation given by S"k alone keeps transformerZ0Ohm as given.
+        var given = new ImpedanceOhm(0.0441, 1.322265);
+        var viaTransformer = Iec60909Substation20kV.Substation(new Grounding(GroundingScheme.Solid), given);
+        var busbarOnly = viaTransformer with { Supply = new BusbarShortCircuit(300, 0.1) };
+
+        var corrected = SourceImpedance.TransformerZeroSequenceOhm(viaTransformer);
+
+        Assert.Equal(0.97485, SourceImpedance.TransformerCorrectionFactor(Iec60909Substation20kV.Transformer), 5);
+        // ±2e-5 Ω: the values are transcribed to six decimals.
+        Assert.Equal(Iec60909Substation20kV.CorrectedTransformerOhm.Real, corrected.Real, 2e-5);
+        Assert.Equal(Iec60909Substation20kV.CorrectedTransformerOhm.Imaginary, corrected.Imaginary, 2e-5);
+        Assert.Equal(new System.Numerics.Complex(0.0441, 1.322265), SourceImpedance.TransformerZeroSequenceOhm(busbarOnly));
     }
 
     [Fact]

@@ -50,6 +50,33 @@ public class IncidentLoaderErrorTests
             "indication FI1: indicator is listed more than once; give one indication per indicator"
         },
         {
+            "reclosing-at-load-break-switch", "reclosing", "file", "device",
+            "reclosing file: device must be a breaker or recloser; LB2 is a loadBreakSwitch"
+        },
+        {
+            "reclosing-attempts-out-of-range", "reclosing", "file", "attempts",
+            "reclosing file: attempts must be a whole number from 0 to 4, got 5"
+        },
+        { "fuse-that-is-a-breaker", "incident", "file", "fuses.CB1", "incident file: fuses.CB1 must name a fuse; CB1 is a breaker" },
+        { "fuse-unknown", "incident", "file", "fuses.FU9", "incident file: fuses.FU9 refers to unknown switch \"FU9\"" },
+        {
+            "relay-at-load-break-switch", "relay", "LB2", "device",
+            "relay LB2: device must be a breaker or recloser; LB2 is a loadBreakSwitch"
+        },
+        {
+            "relay-bad-direction", "relay", "CB1", "earthFaultDirection",
+            "relay CB1: earthFaultDirection must be one of \"forward\", \"reverse\", \"none\", got \"backward\""
+        },
+        { "relay-negative-reactance", "relay", "CB1", "faultReactanceOhm", "relay CB1: faultReactanceOhm must be >= 0, got -1.5" },
+        {
+            "reading-before-fault-time", "indication", "FI3", "readAt",
+            "indication FI3: readAt 2026-03-14T09:10:00Z is before faultAt 2026-03-14T09:20:00Z: a reading taken before the fault says nothing of it"
+        },
+        {
+            "fault-after-report", "incident", "file", "faultAt",
+            "incident file: faultAt 2026-03-14T09:40:00Z is later than reportedAt 2026-03-14T09:30:00Z: a fault is reported after it began"
+        },
+        {
             "wrong-format-tag", "incident", "file", "format",
             "incident file: format must be \"feederlocate-incident/1\", got \"feederlocate-grid/1\""
         },

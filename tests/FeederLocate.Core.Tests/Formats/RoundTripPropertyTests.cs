@@ -124,6 +124,38 @@ public class RoundTripPropertyTests
         var indication = Gen.Select(Gen.Bool, Gen.Int[0, 3], Gen.Bool, time.Nullable(), Gen.Bool);
         FaultType?[] types = [FaultType.LG, FaultType.LL, FaultType.LLG, FaultType.LLL, null];
 
+        return Gen.Select(Bare(grid, time, trippable, measurement, indication, types), Protection(grid), (incident, protection) => protection(incident));
+    }
+
+    /// <summary>Random protection context: fault time before every reading, reclosing, fuses and relays, each present or not.</summary>
+    private static Gen<Func<Incident, Incident>> Protection(Grid grid)
+    {
+        var reclosers = grid.Switches.Where(s => s.Kind is SwitchKind.Breaker or SwitchKind.Recloser).Select(s => s.Id).ToArray();
+        var fuses = grid.Switches.Where(s => s.Kind == SwitchKind.Fuse).Select(s => s.Id).ToArray();
+        var relay = Gen.Select(Gen.Int[0, 3], Gen.Double[0, 40].Nullable(), (direction, x) => (direction, x));
+        return Gen.Select(
+            Gen.Int[-1, 600],
+            Gen.Select(Gen.Int[-1, reclosers.Length - 1], Gen.Int[0, Reclosing.MaximumAttempts], Gen.Bool, (d, a, ok) => (d, a, ok)),
+            Gen.Int[0, 2].Array[fuses.Length],
+            relay.Array[reclosers.Length],
+            (minutesBefore, reclosing, fuseStates, relays) => (Func<Incident, Incident>)(incident =>
+            {
+                var earliest = incident.Indications.Select(i => i.ReadAt).Where(t => t is not null).Append(incident.ReportedAt).Min()!.Value;
+                return incident with
+                {
+                    FaultAt = minutesBefore < 0 ? null : earliest.AddMinutes(-minutesBefore),
+                    Reclosing = reclosing.d < 0 ? null : new Reclosing(reclosers[reclosing.d], reclosing.a, reclosing.ok ? ReclosingResult.Success : ReclosingResult.Lockout),
+                    Fuses = fuseStates.Select((f, i) => (f, fuses[i])).Where(x => x.f > 0)
+                        .ToImmutableDictionary(x => x.Item2, x => x.f == 1 ? FuseCondition.Blown : FuseCondition.Intact),
+                    Relays = [.. relays.Select((r, i) => (r, reclosers[i]))
+                        .Where(x => x.r.direction < 3 || x.r.x is not null)
+                        .Select(x => new RelayResult(x.Item2, x.r.direction < 3 ? (EarthFaultDirection)x.r.direction : null, x.r.x))],
+                };
+            }));
+    }
+
+    private static Gen<Incident> Bare(Grid grid, Gen<DateTimeOffset> time, SwitchId[] trippable, Gen<SubstationMeasurement> measurement, Gen<(bool, int, bool, DateTimeOffset?, bool)> indication, FaultType?[] types)
+    {
         return Gen.Select(
             time,
             Gen.Bool,

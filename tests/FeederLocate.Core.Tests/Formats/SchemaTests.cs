@@ -39,7 +39,7 @@ public class SchemaTests
     public void Every_sample_grid_and_incident_is_checked()
     {
         Assert.Equal(4 + 4, GridFiles.Count);
-        Assert.Equal(6 + 1, IncidentFiles.Count);
+        Assert.Equal(7 + 1, IncidentFiles.Count);
     }
 
     [Theory]
@@ -67,6 +67,9 @@ public class SchemaTests
     [InlineData("bad-switch-position")]
     [InlineData("unknown-fault-type")]
     [InlineData("wrong-format-tag")]
+    [InlineData("reclosing-attempts-out-of-range")]
+    [InlineData("relay-bad-direction")]
+    [InlineData("relay-negative-reactance")]
     public void Incident_schema_rejects_a_structurally_broken_incident(string name)
     {
         var results = Evaluate(IncidentSchema.Value, RepositoryFiles.Path("tests", "FeederLocate.Core.Tests", "Formats", "BrokenIncidents", $"{name}.incident.json"));

@@ -142,19 +142,20 @@ public class RobustnessTests
     }
 
     [Fact]
-    public void A_flag_read_after_its_reset_time_pulls_the_ranking_less()
+    public void A_flag_read_after_its_reset_time_carries_no_weight_at_all()
     {
         // CB-A1 tripped; the trunk indicators place the fault beyond FPI-A1-11 and not beyond FPI-A1-14, and
         // the field-read FPI-A1-17 (phase element, flag resets after 120 min) on the lateral behind DS-A1-5
-        // shows fault: it pulls toward SEC-S112. Read 30 min after the report the flag is fresh; read after
-        // 180 min it may have reset and been set again by something else, so it weighs less (StaleWeight).
+        // shows fault: it pulls toward SEC-S112. Read 30 min after the fault the flag is fresh; read after
+        // 180 min it may have reset (and been set again by something else): it says nothing, so the ranking
+        // is exactly the one without it (common practice: a reset flag carries no information on the fault).
         var grid = Grids.Sample("solid");
         Assert.Equal(120, grid.Indicator(new IndicatorId("FPI-A1-17")).ResetMinutes);
         var incident = EngineIncidents.WithIndications(new SwitchId("CB-A1"), FaultType.LG,
             ("FPI-A1-01", Forward), ("FPI-A1-04", Fault), ("FPI-A1-11", Forward), ("FPI-A1-14", None));
-        Incident WithLateral(double? readAfterMinutes) => incident with
+        Incident WithLateral(double? readAfterMinutes, IndicatorState state = Fault) => incident with
         {
-            Indications = incident.Indications.Add(new Indication(new IndicatorId("FPI-A1-17"), Fault, IndicationSource.Field,
+            Indications = incident.Indications.Add(new Indication(new IndicatorId("FPI-A1-17"), state, IndicationSource.Field,
                 readAfterMinutes is { } m ? incident.ReportedAt.AddMinutes(m) : null)),
         };
 
@@ -162,15 +163,57 @@ public class RobustnessTests
         var without = Lateral(incident);
         var fresh = Lateral(WithLateral(30));
         var undated = Lateral(WithLateral(null));
-        var stale = Lateral(WithLateral(180));
 
         Assert.True(fresh > without, $"the fresh flag pulls toward SEC-S112: {without:F3} -> {fresh:F3}");
+        Assert.Equal(fresh, undated);
+        foreach (var state in new[] { Fault, None })
+        {
+            var expired = FaultRanking.Rank(grid, WithLateral(180, state));
+            AssertSameRanking(FaultRanking.Rank(grid, incident), expired);
+            Assert.Equal(["FPI-A1-17"], expired.Expired.Select(i => i.Value));
+            Assert.Contains(expired.Assumptions, a => a.Contains("FPI-A1-17", StringComparison.Ordinal));
+        }
+    }
+
+    [Fact]
+    public void A_reading_age_counts_from_the_fault_time_where_it_is_given()
+    {
+        // The same reading 100 min after the report: fresh when the fault began at the report (100 < 120 min),
+        // expired when the fault began 60 min before it (160 > 120 min, FPI-A1-17's resetMinutes).
+        var grid = Grids.Sample("solid");
+        var incident = EngineIncidents.WithIndications(new SwitchId("CB-A1"), FaultType.LG,
+            ("FPI-A1-01", Forward), ("FPI-A1-04", Fault), ("FPI-A1-11", Forward), ("FPI-A1-14", None));
+        var read = incident with
+        {
+            Indications = incident.Indications.Add(new Indication(new IndicatorId("FPI-A1-17"), Fault, IndicationSource.Field, incident.ReportedAt.AddMinutes(100))),
+        };
+
+        Assert.Empty(FaultRanking.Rank(grid, read).Expired);
+        Assert.Empty(FaultRanking.Rank(grid, read with { FaultAt = incident.ReportedAt }).Expired);
+        var early = FaultRanking.Rank(grid, read with { FaultAt = incident.ReportedAt.AddMinutes(-60) });
+        Assert.Equal(["FPI-A1-17"], early.Expired.Select(i => i.Value));
+        AssertSameRanking(FaultRanking.Rank(grid, incident with { FaultAt = incident.ReportedAt.AddMinutes(-60) }), early);
+    }
+
+    [Fact]
+    public void A_flag_read_before_a_trial_reenergisation_weighs_less()
+    {
+        // Read before the latest trial re-energisation, the flag shows the state before it: it still pulls, less (StaleWeight 0.3).
+        var grid = Grids.Sample("solid");
+        var incident = EngineIncidents.WithIndications(new SwitchId("CB-A1"), FaultType.LG,
+            ("FPI-A1-01", Forward), ("FPI-A1-04", Fault), ("FPI-A1-11", Forward), ("FPI-A1-14", None));
+        var lateral = incident with
+        {
+            Indications = incident.Indications.Add(new Indication(new IndicatorId("FPI-A1-17"), Fault, IndicationSource.Field, incident.ReportedAt.AddMinutes(10))),
+        };
+
+        double Lateral(Incident i) => FaultRanking.Rank(grid, i).Sections.Single(s => s.Id.Value == "SEC-S112").Probability;
+        var without = Lateral(incident);
+        var fresh = Lateral(lateral);
+        var stale = Lateral(lateral with { ReenergisedAt = incident.ReportedAt.AddMinutes(20) });
+
         Assert.True(stale < fresh, $"stale {stale:F3} should pull less than fresh {fresh:F3}");
         Assert.True(stale > without, $"stale {stale:F3} still pulls (weight 0.3, not 0) from {without:F3}");
-        Assert.Equal(fresh, undated);
-        var staleCheck = FaultRanking.Rank(grid, WithLateral(180)).Explanations.SelectMany(e => e.Agreeing.Concat(e.Disagreeing))
-            .First(c => c.Indicator.Value == "FPI-A1-17");
-        Assert.True(staleCheck.Stale);
     }
 
     private static void AssertSameRanking(RankingResult expected, RankingResult actual)

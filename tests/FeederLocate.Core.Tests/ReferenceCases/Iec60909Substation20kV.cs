@@ -65,6 +65,12 @@ public static class Iec60909Substation20kV
     /// <summary>ZTK = KT·ZT on the 21 kV side (derived): 0.042991 + j1.289001 Ω; the zero-sequence impedance of the grounded case.</summary>
     public static readonly Complex CorrectedTransformerOhm = new(0.042991, 1.289001);
 
+    /// <summary>
+    /// ZT before correction, IEC 60909-0 eqs. (7)–(9): RT = 160 kW·(21 kV)²/(40 MVA)² = 0.0441 Ω,
+    /// |ZT| = 0.12·(21 kV)²/40 MVA = 1.323 Ω, XT = √(1.323² − 0.0441²) = 1.322265 Ω (derived).
+    /// </summary>
+    public static readonly Complex UncorrectedTransformerOhm = new(0.0441, 1.322265);
+
     public static Substation Substation(Grounding grounding, ImpedanceOhm? transformerZ0Ohm = null) => new(
         new SubstationId("SUB"), new NodeId("BUS"), NominalVoltageKv, new UpstreamViaTransformer(Upstream, Transformer),
         transformerZ0Ohm, null, grounding);
@@ -77,8 +83,10 @@ public static class Iec60909Substation20kV
     public static string GridJson(double cableLengthKm, string grounding = """{ "scheme": "solid" }""")
     {
         var length = cableLengthKm.ToString(CultureInfo.InvariantCulture);
-        var r = CorrectedTransformerOhm.Real.ToString(CultureInfo.InvariantCulture);
-        var x = CorrectedTransformerOhm.Imaginary.ToString(CultureInfo.InvariantCulture);
+        // The transformer's zero-sequence impedance as a grid gives it: uncorrected, equal to ZT (the engine
+        // applies KT to it, IEC 60909-0 §6.3.3).
+        var r = UncorrectedTransformerOhm.Real.ToString(CultureInfo.InvariantCulture);
+        var x = UncorrectedTransformerOhm.Imaginary.ToString(CultureInfo.InvariantCulture);
         return $$"""
             {
               "format": "feederlocate-grid/1",

@@ -32,6 +32,10 @@ public static class ModelAssert
             actual.SwitchStates.OrderBy(p => p.Key.Value, StringComparer.Ordinal));
         Items(expected.Measurements, actual.Measurements, "measurement");
         Items(expected.Indications, actual.Indications, "indication");
+        Assert.Equal(
+            expected.Fuses.OrderBy(p => p.Key.Value, StringComparer.Ordinal),
+            actual.Fuses.OrderBy(p => p.Key.Value, StringComparer.Ordinal));
+        Items(expected.Relays, actual.Relays, "relay");
     }
 
     private static Incident WithoutCollections(Incident incident) => incident with
@@ -39,6 +43,8 @@ public static class ModelAssert
         SwitchStates = ImmutableDictionary<SwitchId, SwitchPosition>.Empty,
         Measurements = [],
         Indications = [],
+        Fuses = ImmutableDictionary<SwitchId, FuseCondition>.Empty,
+        Relays = [],
     };
 
     private static void Items<T>(ImmutableArray<T> expected, ImmutableArray<T> actual, string what)

@@ -3,7 +3,7 @@ using System.Text.Json.Serialization;
 
 namespace FeederLocate.Core.Formats.Documents;
 
-/// <summary>How the result documents (ranking, plan) are written as JSON: camelCase, nulls left out.</summary>
+/// <summary>How the result documents (ranking, plan) are written as JSON: camelCase, nulls left out, numbers to 12 significant digits.</summary>
 public static class DocumentJson
 {
     public static JsonSerializerOptions Options { get; } = new()
@@ -12,5 +12,6 @@ public static class DocumentJson
         WriteIndented = true,
         DefaultIgnoreCondition = JsonIgnoreCondition.WhenWritingNull,
         NumberHandling = JsonNumberHandling.AllowNamedFloatingPointLiterals,
+        Converters = { new RoundedDoubleConverter() },
     };
 }

@@ -15,6 +15,12 @@ public sealed record RankingDocument(
     IReadOnlyDictionary<string, double> FaultTypes,
     IReadOnlyList<string> Assumptions)
 {
+    /// <summary>A reclosure held: the fault was transient (ranked for the patrol; nothing needs isolating).</summary>
+    public bool Transient { get; init; }
+
+    /// <summary>Indicators read more than their reset time after the fault: their readings carried no weight.</summary>
+    public IReadOnlyList<string> Expired { get; init; } = [];
+
     public static RankingDocument From(RankingResult r) => new(
         r.Consistent,
         [.. r.Segments.Select(s => new SegmentEntry(s.Id.Value, s.Section.Value, s.Probability))],
@@ -28,7 +34,11 @@ public sealed record RankingDocument(
         [.. r.CrossCountry.Select(c => new PairEntry([c.First.Value, c.Second.Value], c.Probability))],
         [.. r.LeftOut.Select(i => i.Value)],
         r.FaultTypeProbabilities.ToDictionary(p => p.Key.ToString(), p => p.Value),
-        r.Assumptions);
+        r.Assumptions)
+    {
+        Transient = r.Transient,
+        Expired = [.. r.Expired.Select(i => i.Value)],
+    };
 
     public sealed record SegmentEntry(string Id, string Section, double Probability);
 

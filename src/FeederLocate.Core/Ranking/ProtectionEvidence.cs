@@ -1,0 +1,214 @@
+using FeederLocate.Core.Electrical;
+using FeederLocate.Core.Evidence;
+using FeederLocate.Core.Model;
+
+namespace FeederLocate.Core.Ranking;
+
+/// <summary>
+/// The protection context of an incident as likelihood factors for a fault on a segment: blown fuses
+/// put the fault beyond them; intact fuses that the fault current would have blown put it elsewhere;
+/// a directional or wattmetric earth-fault element's direction selects the feeder; a fault locator's
+/// reactance narrows the distance along the path; the reclosing device, like a tripped one, saw the
+/// fault beyond it. Every factor is 1 where the incident gives no such evidence.
+/// </summary>
+internal sealed class ProtectionEvidence
+{
+    /// <summary>Positions along a segment (fraction from the supplied end) over which a fault locator's reactance is averaged.</summary>
+    private static readonly double[] ReactancePositions = [0.05, 0.15, 0.25, 0.35, 0.45, 0.55, 0.65, 0.75, 0.85, 0.95];
+
+    private readonly FaultResponseModel _model;
+    private readonly RankingOptions _options;
+    private readonly bool[] _lowCurrentEarthing;
+    private readonly List<MeasuringPoint> _blown = [];
+    private readonly List<(MeasuringPoint Point, double? RatedCurrentA)> _intact = [];
+    private readonly List<(MeasuringPoint Point, EarthFaultDirection Direction)> _directions = [];
+    private readonly List<(MeasuringPoint Point, int FarNode, double ReactanceOhm, double UniformDensity)> _reactances = [];
+    private readonly MeasuringPoint? _reclosing;
+    private readonly double _maximumTrippingEarthFaultOhm;
+
+    public ProtectionEvidence(FaultResponseModel model, Incident incident, RankingOptions options)
+    {
+        _model = model;
+        _options = options;
+        var grid = model.Grid;
+        _lowCurrentEarthing = [.. grid.Substations.Select(s => s.Grounding.Scheme is GroundingScheme.Isolated or GroundingScheme.Resonant)];
+        _maximumTrippingEarthFaultOhm = options.LowResistanceEarthFaultOhms.IsDefaultOrEmpty ? 0 : options.LowResistanceEarthFaultOhms.Max();
+        foreach (var (id, condition) in incident.Fuses)
+        {
+            var index = grid.SwitchIndex(id);
+            var point = model.SwitchPoint(index);
+            if (condition == FuseCondition.Blown)
+            {
+                _blown.Add(point);
+            }
+            else
+            {
+                _intact.Add((point, grid.Switches[index].RatedCurrentA));
+            }
+        }
+
+        var network = model.Network;
+        foreach (var relay in incident.Relays.IsDefault ? [] : incident.Relays)
+        {
+            var point = model.SwitchPoint(grid.SwitchIndex(relay.Device));
+            if (relay.EarthFaultDirection is { } direction)
+            {
+                _directions.Add((point, direction));
+            }
+
+            if (relay.FaultReactanceOhm is { } reactance && point.Substation >= 0)
+            {
+                // A reading where the fault is not beyond the device is an error, its value anywhere from
+                // zero to the largest reactance of the network behind the bus.
+                var span = Enumerable.Range(0, grid.Nodes.Length)
+                    .Where(v => network.SubstationIndexOf(v) == point.Substation)
+                    .Max(v => network.PositiveSequencePathOhm(v).Imaginary);
+                _reactances.Add((point, point.FarNode, reactance, 1 / (Math.Max(span, reactance) + 1)));
+            }
+        }
+
+        if (incident.Reclosing is { } reclosing && reclosing.Device != incident.TrippedDevice)
+        {
+            _reclosing = model.SwitchPoint(grid.SwitchIndex(reclosing.Device));
+        }
+
+        HasResistanceTerms = _intact.Count > 0;
+        IsEmpty = _blown.Count == 0 && _intact.Count == 0 && _directions.Count == 0 && _reactances.Count == 0 && _reclosing is null;
+    }
+
+    /// <summary>True where no factor depends on the fault resistance (no intact fuse given).</summary>
+    public bool HasResistanceTerms { get; }
+
+    /// <summary>True where the incident gives no protection evidence the ranking uses.</summary>
+    public bool IsEmpty { get; }
+
+    /// <summary>Log-factor of the evidence that depends on where the fault is and its type, not on its resistance.</summary>
+    public double TypeLog(int segment, FaultType type, int substation)
+    {
+        if (IsEmpty)
+        {
+            return 0;
+        }
+
+        var log = 0.0;
+        foreach (var point in _blown)
+        {
+            log += _model.IsFaultBeyond(point, segment) ? 0 : Math.Log(_options.FuseErrorProbability);
+        }
+
+        if (_reclosing is { } reclosing && !_model.IsFaultBeyond(reclosing, segment))
+        {
+            log += Math.Log(_options.OutsideTrippedZoneFactor);
+        }
+
+        var earth = type is FaultType.LG or FaultType.LLG;
+        foreach (var (point, direction) in _directions)
+        {
+            log += Math.Log(DirectionProbability(direction, Expected(point, segment, earth, substation)));
+        }
+
+        if (_reactances.Count > 0 && !(type == FaultType.LG && _lowCurrentEarthing[substation]))
+        {
+            foreach (var reading in _reactances)
+            {
+                log += ReactanceLog(reading, segment);
+            }
+        }
+
+        return log;
+    }
+
+    /// <summary>Log-factor of the intact fuses for a solved fault: the fault is not beyond one its current would have blown.</summary>
+    public double FaultLog(int segment, in FaultSolution fault, double faultResistanceOhm)
+    {
+        var log = 0.0;
+        foreach (var (point, rating) in _intact)
+        {
+            if (_model.IsFaultBeyond(point, segment) && WouldBlow(rating, fault, faultResistanceOhm))
+            {
+                log += Math.Log(_options.FuseErrorProbability);
+            }
+        }
+
+        return log;
+    }
+
+    /// <summary>
+    /// Above its rating; without one, for any short circuit and for an earth fault on a solid or impedance
+    /// network in the tripping range of fault resistance (common practice). An earth fault on an isolated
+    /// or resonant network, or a high-resistance one that trips nothing, does not blow an unrated fuse.
+    /// </summary>
+    private bool WouldBlow(double? ratedCurrentA, in FaultSolution fault, double faultResistanceOhm)
+    {
+        if (fault.Type == FaultType.LG && _lowCurrentEarthing[fault.Substation])
+        {
+            return false;
+        }
+
+        if (ratedCurrentA is { } rating)
+        {
+            return fault.FaultedPhaseCurrentA > rating;
+        }
+
+        return fault.Type != FaultType.LG || faultResistanceOhm <= _maximumTrippingEarthFaultOhm;
+    }
+
+    private EarthFaultDirection Expected(in MeasuringPoint point, int segment, bool earth, int substation)
+    {
+        if (!earth || point.Substation != substation)
+        {
+            return EarthFaultDirection.None;
+        }
+
+        return _model.IsFaultBeyond(point, segment) ? EarthFaultDirection.Forward : EarthFaultDirection.Reverse;
+    }
+
+    /// <summary>
+    /// P(reported | expected) with error rate e. Where the fault is elsewhere on the same network the
+    /// element may point reverse or stay silent (its feeder's own charging current may lie under its
+    /// setting), so reverse and none share 1 − e.
+    /// </summary>
+    private double DirectionProbability(EarthFaultDirection reported, EarthFaultDirection expected)
+    {
+        var e = _options.RelayErrorProbability;
+        return (expected, reported) switch
+        {
+            (EarthFaultDirection.Forward, EarthFaultDirection.Forward) => 1 - e,
+            (EarthFaultDirection.Forward, _) => e / 2,
+            (EarthFaultDirection.Reverse, EarthFaultDirection.Forward) => e,
+            (EarthFaultDirection.Reverse, _) => (1 - e) / 2,
+            (_, EarthFaultDirection.None) => 1 - e,
+            _ => e / 2,
+        };
+    }
+
+    /// <summary>
+    /// The reading's density averaged over positions along the segment: (1 − e)·robust density around the
+    /// line reactance from the device to the fault, plus e spread evenly over the network's reactance range;
+    /// only the spread term where the fault is not beyond the device.
+    /// </summary>
+    private double ReactanceLog((MeasuringPoint Point, int FarNode, double ReactanceOhm, double UniformDensity) reading, int segment)
+    {
+        var e = _options.RelayErrorProbability;
+        var spread = e * reading.UniformDensity;
+        if (!_model.IsFaultBeyond(reading.Point, segment))
+        {
+            return Math.Log(spread);
+        }
+
+        var network = _model.Network;
+        var grid = network.Grid;
+        var up = network.SuppliedEndOf(segment);
+        var start = network.PositiveSequencePathOhm(reading.FarNode).Imaginary;
+        var x1 = grid.LineTypeOf(grid.Segments[segment]).X1OhmPerKm * grid.Segments[segment].LengthKm;
+        var atUp = network.PositiveSequencePathOhm(up).Imaginary - start;
+        var sum = 0.0;
+        foreach (var position in ReactancePositions)
+        {
+            var predicted = Math.Max(0, atUp + (position * x1));
+            sum += ((1 - e) * Math.Exp(MeasurementLikelihood.Log(_options.FaultReactanceTolerance, reading.ReactanceOhm, predicted))) + spread;
+        }
+
+        return Math.Log(sum / ReactancePositions.Length);
+    }
+}
