@@ -90,7 +90,10 @@ internal static class PlanCommand
     {
         WriteCautions(output, d);
         output.WriteLine();
-        output.WriteLine($"Isolate {string.Join(", ", d.IsolatedSections)} (most likely section, {Percent(d.Ranking.TopProbability)}{(d.Ranking.Consistent ? string.Empty : "; the evidence is not consistent: check it")}).");
+        var consistency = d.Ranking.Consistent ? string.Empty : "; the evidence is not consistent: check it";
+        output.WriteLine(d.IsolatedSections.Count == 0
+            ? $"Transient fault (a reclosure held): nothing is switched or isolated; patrol the suspects, most likely first (top {d.Ranking.TopSection}, {Percent(d.Ranking.TopProbability)}{consistency})."
+            : $"Isolate {string.Join(", ", d.IsolatedSections)} (most likely section, {Percent(d.Ranking.TopProbability)}{consistency}).");
         foreach (var s in d.Sections)
         {
             output.WriteLine($"  {s.Id}: segments {string.Join(" ", s.Segments)}");

@@ -16,7 +16,11 @@ namespace FeederLocate.Core.Switching;
 /// </summary>
 public static class SwitchingPlanner
 {
-    /// <summary>Plans for the ranking's most likely section. Throws <see cref="PlanningException"/> where no plan can be made.</summary>
+    /// <summary>
+    /// Plans for the ranking's most likely section; for a transient fault (a reclosure held, and no fuse
+    /// found blown) the plan switches nothing and is the patrol of the suspects and the field checks.
+    /// Throws <see cref="PlanningException"/> where no plan can be made.
+    /// </summary>
     public static SwitchingPlan Plan(NetworkGraph graph, Incident incident, RankingResult ranking, SwitchingOptions? options = null)
     {
         ArgumentNullException.ThrowIfNull(ranking);
@@ -25,7 +29,15 @@ public static class SwitchingPlanner
             throw new PlanningException("the ranking names no section: nothing to isolate");
         }
 
-        return Plan(graph, incident, ranking.Sections[0].Id, ranking, options);
+        if (incident?.Reclosing is { Transient: true } reclosing && !incident.Fuses.Values.Contains(Evidence.FuseCondition.Blown))
+        {
+            ArgumentNullException.ThrowIfNull(graph);
+            options ??= SwitchingOptions.Default;
+            options.Validate();
+            return TransientFaultPlan.Build(new PlanningContext(graph, incident, ranking.Sections[0].Id, ranking, options), reclosing);
+        }
+
+        return Plan(graph, incident!, ranking.Sections[0].Id, ranking, options);
     }
 
     /// <summary>

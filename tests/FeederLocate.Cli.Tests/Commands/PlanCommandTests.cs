@@ -81,6 +81,21 @@ public class PlanCommandTests
     }
 
     [Fact]
+    public void Transient_fault_plan_isolates_nothing_and_patrols()
+    {
+        var run = CliRun.Of("plan", CliRun.Sample("solid"), Incident("solid-transient-a1.incident.json"), "--json");
+
+        Assert.Equal(0, run.ExitCode);
+        var json = run.Json();
+        Assert.Empty(json.GetProperty("isolatedSections").EnumerateArray());
+        var actions = json.GetProperty("steps").EnumerateArray().Select(s => s.GetProperty("action").GetString()).ToList();
+        Assert.DoesNotContain("open", actions);
+        Assert.DoesNotContain("close", actions);
+        Assert.Contains("patrol", actions);
+        Assert.Equal(0, json.GetProperty("unservedCustomers").GetInt32());
+    }
+
+    [Fact]
     public void Bad_options_are_all_reported_and_exit_2()
     {
         var run = CliRun.Of("plan", CliRun.Sample("solid"), Incident("solid-lg-trip-a1.incident.json"), "--cold-load-factor", "0.5", "--voltage-limit", "1.5");

@@ -54,7 +54,10 @@ public sealed class PlanChecker
         }
 
         var atFault = Walk(closed);
-        if (incident.TrippedDevice is { } tripped)
+
+        // A reclosure that held leaves the tripped device closed: a transient fault.
+        var transient = incident.Reclosing is { Transient: true };
+        if (incident.TrippedDevice is { } tripped && !transient)
         {
             closed[_grid.SwitchIndex(tripped)] = false;
         }
@@ -163,7 +166,12 @@ public sealed class PlanChecker
             problems.Add("the faulted segment is live at the end");
         }
 
-        foreach (var action in new[] { StepAction.ProveDead, StepAction.Earth, StepAction.Permit })
+        if (transient && (!plan.IsolatedSections.IsEmpty || plan.Steps.Any(s => s.ChangesNetwork)))
+        {
+            problems.Add("a transient fault's plan switches: it must isolate nothing and open or close nothing");
+        }
+
+        foreach (var action in transient ? [] : new[] { StepAction.ProveDead, StepAction.Earth, StepAction.Permit })
         {
             if (!plan.Steps.Any(s => s.Action == action))
             {
