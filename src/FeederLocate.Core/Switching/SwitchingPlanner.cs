@@ -65,6 +65,12 @@ public static class SwitchingPlanner
         var limits = new SupplyLimits(options.VoltageLimitPu, factors);
         var suspects = SplitRanking.Suspects(ctx);
         var avoid = suspects.Where(s => s.Zone != ctx.SuspectZone).Select(s => s.Zone).ToHashSet();
+        if (ctx.StandingEarthFault)
+        {
+            // The standing earth fault may lie in another suspect: no tie closes onto one.
+            avoid.UnionWith(SplitRanking.StillSuspect(ctx).Where(z => z != ctx.SuspectZone));
+        }
+
         var restoration = Restoration.Plan(ctx, isolation, dead, limits, avoid, notes);
         var steps = StepAssembly.Build(ctx, isolation, dead, restoration.Chosen, notes);
         var replay = PlanReplay.Run(ctx, steps);
@@ -125,6 +131,7 @@ public static class SwitchingPlanner
         var o = ctx.Options;
         yield return "load flow: backward/forward sweep per phase, constant-power loads (power factor 0.95 lagging where loadKvar is absent), segment impedance (r1 + j·x1)·length, switches ideal, every busbar at 1.0 pu";
         yield return $"cold-load factor {Words.Number(o.ColdLoadFactor)} on the load of every node that was without supply; voltage limit {Words.Number(o.VoltageLimitPu)} pu; ampacityA per line type; transformerRatedMva where given";
+        yield return "field indicators in the part without supply that the incident gives no field reading of are read before the first close, a default travel time after the start";
         yield return $"timeline: one sequence; crews leave at the start; remote operation {Words.Number(o.RemoteOperationTime.TotalMinutes)} min, manual {Words.Number(o.ManualOperationTime.TotalMinutes)} min after arrival, fuse replacement {Words.Number(o.FuseReplacementTime.TotalMinutes)} min";
         var defaulted = steps.Where(s => s.Device is { } d && !ctx.Grid.Switch(d).Remote && ctx.Grid.Switch(d).TravelMinutes is null)
             .Select(s => s.Device!.Value).Distinct().ToList();

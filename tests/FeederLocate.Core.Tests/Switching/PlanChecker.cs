@@ -65,6 +65,7 @@ public sealed class PlanChecker
         var isolated = plan.IsolatedSections.SelectMany(s => plan.Sections.Single(p => p.Id == s).Segments).Select(_grid.SegmentIndex).ToHashSet();
         var faultSegment = _grid.SegmentIndex(trueFault);
         var live = Walk(closed);
+        problems.AddRange(SafetyOrder(incident, plan, atFault, live));
         var everDead = new bool[_grid.Nodes.Length];
         Mark(atFault, live, everDead);
         var last = TimeSpan.Zero;
@@ -305,6 +306,34 @@ public sealed class PlanChecker
             }
 
             current = byEntry[next];
+        }
+    }
+
+    /// <summary>
+    /// Every isolation point is locked, tagged or remote-blocked before the first earth goes on; every field
+    /// indicator in the part without supply that the incident has no field reading of is read before the first close.
+    /// </summary>
+    private IEnumerable<string> SafetyOrder(Incident incident, SwitchingPlan plan, Walked atFault, Walked start)
+    {
+        var firstEarth = plan.Steps.Where(s => s.Action == StepAction.Earth).Select(s => s.Order).DefaultIfEmpty(int.MaxValue).Min();
+        foreach (var point in plan.Steps.Where(s => s.Action == StepAction.ProveDead).Select(s => s.Device).Distinct())
+        {
+            if (!plan.Steps.Any(s => s.Action == StepAction.Lock && s.Device == point && s.Order < firstEarth))
+            {
+                yield return $"isolation point {point} is not locked, tagged or blocked before the first earth";
+            }
+        }
+
+        var firstClose = plan.Steps.Where(s => s.Action == StepAction.Close).Select(s => s.Order).DefaultIfEmpty(int.MaxValue).Min();
+        var read = incident.Indications.Where(i => i.Source == IndicationSource.Field).Select(i => i.Indicator).ToHashSet();
+        foreach (var indicator in _grid.Indicators.Where(i => !i.Remote && !read.Contains(i.Id)))
+        {
+            var v = _grid.NodeIndex(indicator.Node);
+            if (firstClose < int.MaxValue && atFault.Substation[v] >= 0 && start.Substation[v] < 0
+                && !plan.Steps.Any(s => s.Action == StepAction.Verify && s.Node == indicator.Node && s.Segments.Contains(indicator.Segment) && s.Order < firstClose))
+            {
+                yield return $"field indicator {indicator.Id} is not read before the first close";
+            }
         }
     }
 

@@ -24,6 +24,9 @@ internal sealed class Timeline(Grid grid, SwitchingOptions options, TimeSpan sta
         _ => grid.Switches[device].Remote ? options.RemoteOperationTime : options.ManualOperationTime,
     };
 
+    /// <summary>Nothing on the timeline starts before <paramref name="moment"/>.</summary>
+    public void WaitUntil(TimeSpan moment) => Now = Now > moment ? Now : moment;
+
     /// <summary>Places one step on the timeline; returns its completion time.</summary>
     public TimeSpan Place(StepAction action, int device)
     {

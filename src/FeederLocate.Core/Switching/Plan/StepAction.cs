@@ -12,6 +12,9 @@ public enum StepAction
     Patrol,
     Verify,
     Replace,
+
+    /// <summary>Lock, tag or block the remote control of an open isolation point so that it stays open while the crew works.</summary>
+    Lock,
     ProveDead,
     Earth,
     Permit,
