@@ -109,6 +109,21 @@ public static class SwitchingPlanner
             [.. Approximations(ctx, steps, final), .. notes.Distinct()]);
     }
 
+    /// <summary>
+    /// The return to normal after the repair, from the state <paramref name="plan"/> leaves: clearance, then
+    /// every device back to its normal position without paralleling feeders or substations. Throws
+    /// <see cref="PlanningException"/> where no safe order exists.
+    /// </summary>
+    public static ReturnPlan PlanReturn(NetworkGraph graph, Incident incident, SwitchingPlan plan, SwitchingOptions? options = null)
+    {
+        ArgumentNullException.ThrowIfNull(graph);
+        ArgumentNullException.ThrowIfNull(incident);
+        ArgumentNullException.ThrowIfNull(plan);
+        options ??= SwitchingOptions.Default;
+        options.Validate();
+        return ReturnToNormal.Plan(graph, incident, plan, options);
+    }
+
     /// <summary>Plans for the ranking's most likely section, or says why it cannot.</summary>
     public static bool TryPlan(NetworkGraph graph, Incident incident, RankingResult ranking, out SwitchingPlan? plan, out string? problem, SwitchingOptions? options = null)
     {

@@ -66,7 +66,9 @@ public static class GeneratedRestorationCases
                 var incident = new Incident(new DateTimeOffset(2026, 3, 1, 8, 0, 0, TimeSpan.Zero), null,
                     ImmutableDictionary<SwitchId, SwitchPosition>.Empty, breaker, FaultType.LLL, [], []);
                 var plan = SwitchingPlanner.Plan(graph, incident, section.Id);
-                var problems = new PlanChecker(grid).Check(incident, plan, section.Segments[0], standing: false).Problems;
+                var checker = new PlanChecker(grid);
+                var problems = checker.Check(incident, plan, section.Segments[0], standing: false).Problems;
+                problems.AddRange(checker.CheckReturn(incident, plan, SwitchingPlanner.PlanReturn(graph, incident, plan)));
                 var domain = ExhaustiveRestoration.Domain(grid, incident);
                 if (domain > MaxEnumeratedSwitches)
                 {

@@ -337,6 +337,95 @@ public sealed class PlanChecker
         }
     }
 
+    /// <summary>
+    /// Replays the return to normal from the state the plan leaves: clearance first (every earth the plan put
+    /// on removed and every lock taken off before the first switching step), then each open and close by the
+    /// device rules, with no close joining two live parts and no loop or parallel of substations at any step;
+    /// at the end every device is in its normal position.
+    /// </summary>
+    public List<string> CheckReturn(Incident incident, SwitchingPlan plan, ReturnPlan back)
+    {
+        var problems = new List<string>();
+        var transient = incident.Reclosing is { Transient: true } && plan.IsolatedSections.IsEmpty;
+        var closed = transient ? StartStateAtFault(incident) : StartState(incident);
+        foreach (var step in plan.Steps.Where(s => s.ChangesNetwork).OrderBy(s => s.Order))
+        {
+            closed[_grid.SwitchIndex(step.Device!.Value)] = step.Action == StepAction.Close;
+        }
+
+        var firstSwitching = back.Steps.Where(s => s.ChangesNetwork).Select(s => s.Order).DefaultIfEmpty(int.MaxValue).Min();
+        foreach (var earth in plan.Steps.Where(s => s.Action == StepAction.Earth))
+        {
+            if (!back.Steps.Any(s => s.Action == StepAction.RemoveEarth && s.Device == earth.Device && s.Node == earth.Node && s.Order < firstSwitching))
+            {
+                problems.Add($"the earth at {earth.Node} is not removed before the first switching step");
+            }
+        }
+
+        foreach (var locked in plan.Steps.Where(s => s.Action == StepAction.Lock))
+        {
+            if (!back.Steps.Any(s => s.Action == StepAction.Unlock && s.Device == locked.Device && s.Order < firstSwitching))
+            {
+                problems.Add($"the lock on {locked.Device} is not taken off before the first switching step");
+            }
+        }
+
+        foreach (var step in back.Steps.OrderBy(s => s.Order))
+        {
+            if (!step.ChangesNetwork)
+            {
+                continue;
+            }
+
+            var live = Walk(closed);
+            var index = _grid.SwitchIndex(step.Device!.Value);
+            var device = _grid.Switches[index];
+            var anyLive = live.Substation[_grid.NodeIndex(device.From)] >= 0 || live.Substation[_grid.NodeIndex(device.To)] >= 0;
+            var both = live.Substation[_grid.NodeIndex(device.From)] >= 0 && live.Substation[_grid.NodeIndex(device.To)] >= 0;
+            if (closed[index] == (step.Action == StepAction.Close))
+            {
+                problems.Add($"return step {step.Order}: {device.Id} is already {(closed[index] ? "closed" : "open")}");
+            }
+
+            if (anyLive && device.Kind is SwitchKind.Disconnector or SwitchKind.Fuse)
+            {
+                problems.Add($"return step {step.Order}: operates {Kind(device)} {device.Id} live");
+            }
+
+            if (step.Action == StepAction.Close && both)
+            {
+                problems.Add($"return step {step.Order}: {device.Id} joins two live parts");
+            }
+
+            closed[index] = step.Action == StepAction.Close;
+            if (Walk(closed).Loop)
+            {
+                problems.Add($"return step {step.Order}: the network has a loop or parallels two substations");
+            }
+        }
+
+        for (var i = 0; i < closed.Length; i++)
+        {
+            if (closed[i] == _grid.Switches[i].NormallyOpen)
+            {
+                problems.Add($"{_grid.Switches[i].Id} is not in its normal position at the end of the return");
+            }
+        }
+
+        return problems;
+    }
+
+    private bool[] StartStateAtFault(Incident incident)
+    {
+        var closed = _grid.Switches.Select(s => !s.NormallyOpen).ToArray();
+        foreach (var (id, position) in incident.SwitchStates)
+        {
+            closed[_grid.SwitchIndex(id)] = position == SwitchPosition.Closed;
+        }
+
+        return closed;
+    }
+
     private bool[] StartState(Incident incident)
     {
         var closed = _grid.Switches.Select(s => !s.NormallyOpen).ToArray();

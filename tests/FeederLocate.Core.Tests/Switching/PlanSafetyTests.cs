@@ -42,6 +42,8 @@ public class PlanSafetyTests(Xunit.Abstractions.ITestOutputHelper output)
                 var tests = checker.CheckTestOrder(simulated.Incident, plan, simulated.Segment, standing);
                 Assert.True(tests.Problems.Count == 0, $"incident {n}, test order of the plan for {section}: {string.Join("; ", tests.Problems)}");
                 testEntries += tests.Entries;
+                var returnProblems = checker.CheckReturn(simulated.Incident, plan, SwitchingPlanner.PlanReturn(graph, simulated.Incident, plan));
+                Assert.True(returnProblems.Count == 0, $"incident {n}, return to normal after the plan for {section}: {string.Join("; ", returnProblems)}");
                 Assert.False(back && section == truth, $"incident {n}: the plan for the true section re-energised the fault");
                 reenergised += back ? 1 : 0;
                 restoring += plan.RestoredCustomers > 0 ? 1 : 0;

@@ -40,11 +40,7 @@ public sealed record PlanDocument(
         plan.Approximations);
 
     /// <summary>The contract's action names: camelCase of the core's.</summary>
-    public static string ActionName(StepAction action) => action switch
-    {
-        StepAction.ProveDead => "proveDead",
-        _ => action.ToString().ToLowerInvariant(),
-    };
+    public static string ActionName(StepAction action) => char.ToLowerInvariant(action.ToString()[0]) + action.ToString()[1..];
 
     /// <summary>The contract's observation names.</summary>
     public static string ObservationName(TestObservation observation) => observation == TestObservation.Trip ? "trip" : "neutralVoltage";
@@ -52,7 +48,7 @@ public sealed record PlanDocument(
     /// <summary>The contract's result names: camelCase of the core's.</summary>
     public static string ResultName(TestResult result) => char.ToLowerInvariant(result.ToString()[0]) + result.ToString()[1..];
 
-    private static StepEntry Step(SwitchingStep s) => new(
+    internal static StepEntry Step(SwitchingStep s) => new(
         s.Order, ActionName(s.Action), s.Device?.Value, s.Node?.Value,
         s.Segments.IsDefaultOrEmpty ? null : [.. s.Segments.Select(x => x.Value)],
         Math.Round(s.At.TotalMinutes, 2), s.Reason);

@@ -18,4 +18,10 @@ public enum StepAction
     ProveDead,
     Earth,
     Permit,
+
+    /// <summary>Return to normal: take an earth off after the work.</summary>
+    RemoveEarth,
+
+    /// <summary>Return to normal: take a lock, tag or remote-control block off.</summary>
+    Unlock,
 }
