@@ -26,18 +26,22 @@ internal static class PlanCommand
             Description = "Lowest voltage allowed at any live node in the final state, pu (0.5 to 1)",
             DefaultValueFactory = _ => SwitchingOptions.Default.VoltageLimitPu,
         };
+        var back = new Option<bool>("--return")
+        {
+            Description = "Print instead the return to normal after the repair: clearance, then every device back to its normal position without paralleling feeders",
+        };
         var db = CliOptions.Database(required: false);
         var json = CliOptions.Json();
         var command = new Command("plan", "Propose the switching order: isolate the most likely section, restore, and test; advice only")
         {
-            grid, incident, coldLoad, voltage, db, json,
+            grid, incident, coldLoad, voltage, back, db, json,
         };
         command.SetAction(parse => Run(console, parse.GetValue(grid)!, parse.GetValue(incident)!, parse.GetValue(coldLoad), parse.GetValue(voltage),
-            parse.GetValue(db), parse.GetValue(json)));
+            parse.GetValue(back), parse.GetValue(db), parse.GetValue(json)));
         return command;
     }
 
-    private static int Run(CliConsole console, string gridPath, string incidentPath, double coldLoadFactor, double voltageLimitPu, string? dbPath, bool json)
+    private static int Run(CliConsole console, string gridPath, string incidentPath, double coldLoadFactor, double voltageLimitPu, bool returnToNormal, string? dbPath, bool json)
     {
         var errors = new List<string>();
         if (!(coldLoadFactor is >= 1 and <= 10))
@@ -73,6 +77,31 @@ internal static class PlanCommand
         if (!SwitchingPlanner.TryPlan(graph, incident, ranking, out var plan, out var problem, options))
         {
             throw new BadInputException($"error: {problem}");
+        }
+
+        if (returnToNormal)
+        {
+            ReturnPlan back;
+            try
+            {
+                back = SwitchingPlanner.PlanReturn(graph, incident, plan!, options);
+            }
+            catch (PlanningException e)
+            {
+                throw new BadInputException($"error: {e.Message}");
+            }
+
+            var returnDocument = ReturnPlanDocument.From(back);
+            if (json)
+            {
+                JsonOutput.Write(console.Out, returnDocument);
+            }
+            else
+            {
+                WriteReturn(console.Out, returnDocument, plan!);
+            }
+
+            return CliApp.Success;
         }
 
         var document = PlanDocument.From(plan!, ranking);
@@ -150,9 +179,39 @@ internal static class PlanCommand
         WriteCautions(output, d);
     }
 
-    private static void WriteCautions(TextWriter output, PlanDocument d)
+    private static void WriteReturn(TextWriter output, ReturnPlanDocument d, SwitchingPlan plan)
     {
-        foreach (var c in d.Cautions)
+        WriteCautions(output, d.Cautions);
+        output.WriteLine();
+        output.WriteLine(plan.IsolatedSections.IsEmpty
+            ? "Return to normal: the plan isolated nothing."
+            : $"Return to normal after the repair of {string.Join(", ", plan.IsolatedSections)} (minutes count from the moment the repair is reported complete):");
+        var steps = TableOutput.Table("order", "at min", "action", "device", "reason");
+        foreach (var s in d.Steps)
+        {
+            steps.AddRow(s.Order.ToString(CultureInfo.InvariantCulture), s.AtMinutes.ToString("0", CultureInfo.InvariantCulture), s.Action, s.Device ?? string.Empty, s.Reason);
+        }
+
+        TableOutput.Write(output, steps);
+        var summary = TableOutput.Table("estimate", "value");
+        summary.AddRow("most customers without supply at once", d.MostCustomersInterrupted.ToString(CultureInfo.InvariantCulture));
+        summary.AddRow("customer minutes interrupted (IEEE 1366 CMI)", d.CustomerMinutesInterrupted.ToString("0", CultureInfo.InvariantCulture));
+        TableOutput.Write(output, summary);
+        output.WriteLine("Approximations:");
+        foreach (var a in d.Approximations)
+        {
+            output.WriteLine($"  - {a}");
+        }
+
+        output.WriteLine();
+        WriteCautions(output, d.Cautions);
+    }
+
+    private static void WriteCautions(TextWriter output, PlanDocument d) => WriteCautions(output, d.Cautions);
+
+    private static void WriteCautions(TextWriter output, IReadOnlyList<string> cautions)
+    {
+        foreach (var c in cautions)
         {
             output.WriteLine($"CAUTION: {c}");
         }

@@ -51,6 +51,12 @@ public static class IncidentApi
                 : analysis.Plan(grid, state) is { Plan: { } plan } && analysis.Rank(grid, state).Result is { } ranking
                     ? Results.Json(PlanDocument.From(plan, ranking), DocumentJson.Options)
                     : Results.UnprocessableEntity(ApiError.Single("cannot plan", "incident", Text(id), "plan", analysis.Plan(grid, state).Problem ?? "no plan"))));
+        api.MapGet("/incidents/{id:long}/plan/return", (long id, ClaimsPrincipal user, IncidentBoard board, GridCatalog grids, IncidentAnalysis analysis) =>
+            WithIncident(board, user, id, state => grids.Find(state.GridName) is not { } grid
+                ? GridNotLoaded(id, state)
+                : analysis.Return(grid, state) is { Plan: { } back }
+                    ? Results.Json(ReturnPlanDocument.From(back), DocumentJson.Options)
+                    : Results.UnprocessableEntity(ApiError.Single("cannot plan the return", "incident", Text(id), "plan", analysis.Return(grid, state).Problem ?? "no plan"))));
         api.MapPost("/incidents/{id:long}/outcome", PostOutcome).RequireAuthorization(AccessPolicies.ApiWrite);
         return app;
     }

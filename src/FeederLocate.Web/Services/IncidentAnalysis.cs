@@ -44,6 +44,25 @@ public sealed class IncidentAnalysis(IncidentBoard board)
                 : new PlanOutcome(null, problem));
     }
 
+    /// <summary>The return to normal after the repair, from the state the incident's plan leaves.</summary>
+    public ReturnOutcome Return(LoadedGrid grid, IncidentState state)
+    {
+        var outcome = Plan(grid, state);
+        if (outcome.Plan is not { } plan)
+        {
+            return new ReturnOutcome(null, outcome.Problem);
+        }
+
+        try
+        {
+            return new ReturnOutcome(FeederLocate.Core.Switching.SwitchingPlanner.PlanReturn(grid.Graph, state.Incident, plan), null);
+        }
+        catch (FeederLocate.Core.Switching.PlanningException e)
+        {
+            return new ReturnOutcome(null, e.Message);
+        }
+    }
+
     public RankingOutcome Rank(LoadedGrid grid, IncidentState state)
     {
         ArgumentNullException.ThrowIfNull(grid);
@@ -70,6 +89,9 @@ public sealed class IncidentAnalysis(IncidentBoard board)
 
 /// <summary>A ranking, or why there is none.</summary>
 public sealed record RankingOutcome(RankingResult? Result, string? Problem);
+
+/// <summary>A return to normal, or why there is none.</summary>
+public sealed record ReturnOutcome(FeederLocate.Core.Switching.ReturnPlan? Plan, string? Problem);
 
 /// <summary>A switching order, or why there is none.</summary>
 public sealed record PlanOutcome(FeederLocate.Core.Switching.SwitchingPlan? Plan, string? Problem);

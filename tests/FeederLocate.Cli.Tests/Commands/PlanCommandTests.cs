@@ -32,6 +32,41 @@ public class PlanCommandTests
     }
 
     [Fact]
+    public void Plan_lists_lock_steps_and_field_reads_before_the_earths_and_closes()
+    {
+        var run = CliRun.Of("plan", CliRun.Sample("solid"), Incident("solid-lg-trip-a1.incident.json"), "--json");
+
+        var actions = run.Json().GetProperty("steps").EnumerateArray().Select(s => s.GetProperty("action").GetString()).ToList();
+        Assert.Contains("lock", actions);
+        Assert.True(actions.LastIndexOf("lock") < actions.IndexOf("earth"));
+    }
+
+    [Fact]
+    public void Plan_return_gives_the_return_to_normal_with_clearance_first_and_the_cautions()
+    {
+        var run = CliRun.Of("plan", CliRun.Sample("solid"), Incident("solid-lg-trip-a1.incident.json"), "--return", "--json");
+
+        Assert.Equal(0, run.ExitCode);
+        Assert.Equal(string.Empty, run.Error);
+        var json = run.Json();
+        var steps = json.GetProperty("steps").EnumerateArray().ToList();
+        var actions = steps.Select(s => s.GetProperty("action").GetString()).ToList();
+        Assert.Contains("removeEarth", actions);
+        Assert.Contains("unlock", actions);
+        Assert.True(actions.LastIndexOf("removeEarth") < actions.IndexOf("close"));
+
+        // The ties the plan closed open again (normally open points restored).
+        Assert.Contains(steps, s => s.GetProperty("action").GetString() == "open" && s.GetProperty("device").GetString() == "NO-A1-B1");
+        Assert.True(json.GetProperty("customerMinutesInterrupted").GetDouble() >= 0);
+        Assert.Contains(json.GetProperty("cautions").EnumerateArray(), c => c.GetString()!.Contains("Advice only", StringComparison.Ordinal));
+
+        var table = CliRun.Of("plan", CliRun.Sample("solid"), Incident("solid-lg-trip-a1.incident.json"), "--return");
+        Assert.Equal(0, table.ExitCode);
+        Assert.Contains("Return to normal after the repair of SEC-S108", table.Out, StringComparison.Ordinal);
+        Assert.Contains("CAUTION: Advice only", table.Out, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void Plan_table_prints_the_cautions_and_the_steps()
     {
         var run = CliRun.Of("plan", CliRun.Sample("solid"), Incident("solid-lg-trip-a1.incident.json"));

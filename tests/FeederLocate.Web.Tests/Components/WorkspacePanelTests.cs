@@ -152,6 +152,24 @@ public class RecordAndPlanPanelTests : ComponentTest
         Assert.Contains("done by ana (operator) at 08:05:00", cut.Find($"[data-testid='done-{first.Order}']").TextContent, StringComparison.Ordinal);
     }
 
+    [Fact]
+    public void Return_steps_offer_a_button_then_show_the_return_order_with_its_cautions()
+    {
+        var ranking = FaultRanking.Rank(_grid.Graph, Incidents.Trip());
+        var plan = FeederLocate.Core.Switching.SwitchingPlanner.Plan(_grid.Graph, Incidents.Trip(), ranking);
+        var back = FeederLocate.Core.Switching.SwitchingPlanner.PlanReturn(_grid.Graph, Incidents.Trip(), plan);
+        var asked = false;
+
+        var before = Render<ReturnSteps>(p => p.Add(c => c.OnAsk, () => asked = true));
+        before.Find("[data-testid='show-return']").Click();
+        Assert.True(asked);
+
+        var after = Render<ReturnSteps>(p => p.Add(c => c.Outcome, new FeederLocate.Web.Services.ReturnOutcome(back, null)));
+        Assert.Equal(back.Steps.Length, after.FindAll("ol.steps > li").Count);
+        Assert.Contains("removeEarth", after.Markup, StringComparison.Ordinal);
+        Assert.Contains("Advice only", after.Find("[data-testid='return-steps']").TextContent, StringComparison.Ordinal);
+    }
+
     private static class Incidents
     {
         /// <summary>CB-A1 tripped on an earth fault; the indicators on A1 saw it up to FPI-A1-11, not beyond.</summary>
