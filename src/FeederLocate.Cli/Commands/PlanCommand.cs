@@ -3,6 +3,7 @@ using System.Globalization;
 using FeederLocate.Cli.Input;
 using FeederLocate.Cli.Output;
 using FeederLocate.Core.Formats.Documents;
+using FeederLocate.Core.Model;
 using FeederLocate.Core.Ranking;
 using FeederLocate.Core.Switching;
 using FeederLocate.Core.Topology;
@@ -30,18 +31,22 @@ internal static class PlanCommand
         {
             Description = "Print instead the return to normal after the repair: clearance, then every device back to its normal position without paralleling feeders",
         };
+        var section = new Option<string?>("--section")
+        {
+            Description = "Plan for this section instead of the most likely one (the section an earth-fault search or a test order located)",
+        };
         var db = CliOptions.Database(required: false);
         var json = CliOptions.Json();
         var command = new Command("plan", "Propose the switching order: isolate the most likely section, restore, and test; advice only")
         {
-            grid, incident, coldLoad, voltage, back, db, json,
+            grid, incident, coldLoad, voltage, back, section, db, json,
         };
         command.SetAction(parse => Run(console, parse.GetValue(grid)!, parse.GetValue(incident)!, parse.GetValue(coldLoad), parse.GetValue(voltage),
-            parse.GetValue(back), parse.GetValue(db), parse.GetValue(json)));
+            parse.GetValue(back), parse.GetValue(section), parse.GetValue(db), parse.GetValue(json)));
         return command;
     }
 
-    private static int Run(CliConsole console, string gridPath, string incidentPath, double coldLoadFactor, double voltageLimitPu, bool returnToNormal, string? dbPath, bool json)
+    private static int Run(CliConsole console, string gridPath, string incidentPath, double coldLoadFactor, double voltageLimitPu, bool returnToNormal, string? section, string? dbPath, bool json)
     {
         var errors = new List<string>();
         if (!(coldLoadFactor is >= 1 and <= 10))
@@ -74,7 +79,31 @@ internal static class PlanCommand
         }
 
         var options = SwitchingOptions.Default with { ColdLoadFactor = coldLoadFactor, VoltageLimitPu = voltageLimitPu };
-        if (!SwitchingPlanner.TryPlan(graph, incident, ranking, out var plan, out var problem, options))
+        SwitchingPlan? plan;
+        string? problem;
+        if (section is null)
+        {
+            SwitchingPlanner.TryPlan(graph, incident, ranking, out plan, out problem, options);
+        }
+        else if (!graph.Sections.Contains(new SectionId(section)))
+        {
+            throw new BadInputException($"error: --section {section} is not a section of grid '{grid.Name}'");
+        }
+        else
+        {
+            try
+            {
+                plan = SwitchingPlanner.Plan(graph, incident, new SectionId(section), ranking, options);
+                problem = null;
+            }
+            catch (PlanningException e)
+            {
+                plan = null;
+                problem = e.Message;
+            }
+        }
+
+        if (plan is null)
         {
             throw new BadInputException($"error: {problem}");
         }
@@ -122,7 +151,9 @@ internal static class PlanCommand
         var consistency = d.Ranking.Consistent ? string.Empty : "; the evidence is not consistent: check it";
         output.WriteLine(d.IsolatedSections.Count == 0
             ? $"Transient fault (a reclosure held): nothing is switched or isolated; patrol the suspects, most likely first (top {d.Ranking.TopSection}, {Percent(d.Ranking.TopProbability)}{consistency})."
-            : $"Isolate {string.Join(", ", d.IsolatedSections)} (most likely section, {Percent(d.Ranking.TopProbability)}{consistency}).");
+            : d.IsolatedSections[0] == d.Ranking.TopSection
+                ? $"Isolate {string.Join(", ", d.IsolatedSections)} (most likely section, {Percent(d.Ranking.TopProbability)}{consistency})."
+                : $"Isolate {string.Join(", ", d.IsolatedSections)} (the section asked for; the most likely is {d.Ranking.TopSection}, {Percent(d.Ranking.TopProbability)}{consistency}).");
         foreach (var s in d.Sections)
         {
             output.WriteLine($"  {s.Id}: segments {string.Join(" ", s.Segments)}");
@@ -143,16 +174,30 @@ internal static class PlanCommand
         summary.AddRow("lowest voltage, final state", $"{d.FinalState.MinimumVoltagePu:F3} pu at {d.FinalState.MinimumVoltageNode} (limit {d.VoltageLimitPu:F2} pu)");
         summary.AddRow("highest loading, final state", $"{d.FinalState.MaximumLoadingPercent:F0} % on {d.FinalState.MaximumLoadingSegment}");
         summary.AddRow("cold-load factor", d.ColdLoadFactor.ToString(CultureInfo.InvariantCulture));
+        if (d.ExpectedCustomerInterruptions is { } ci)
+        {
+            summary.AddRow("expected customer interruptions (earth-fault search)", ci.ToString("0.0", CultureInfo.InvariantCulture));
+        }
+
         if (d.ExpectedReenergisationsOntoFault is { } e)
         {
             summary.AddRow("expected re-energisations onto the fault (test order)", e.ToString("0.00", CultureInfo.InvariantCulture));
         }
 
         TableOutput.Write(output, summary);
-        if (d.TestOrder.Count > 0)
+        if (d.TestOrder.Count > 0 && d.SearchFirst)
+        {
+            output.WriteLine("Earth-fault search FIRST (the ranking is split and the network may run with the earth fault): carry it out before the steps above,");
+            output.WriteLine("which apply only if it ends at their section. Start from the incident's start state; after each entry follow the branch of its result:");
+        }
+        else if (d.TestOrder.Count > 0)
         {
             output.WriteLine("Test order: the alternative to the steps above, for testing before isolating. Start from the incident's start state;");
             output.WriteLine("after each entry follow the branch of its result (each entry's steps follow those of the entry that led to it):");
+        }
+
+        if (d.TestOrder.Count > 0)
+        {
             var tests = TableOutput.Table("entry", "steps", "watch", "p", "branches");
             foreach (var t in d.TestOrder)
             {

@@ -42,6 +42,9 @@ public sealed record SwitchingOptions
     /// <summary>At most this many entries in the standing earth-fault search.</summary>
     public int MaxSearchEntries { get; init; } = 24;
 
+    /// <summary>How the standing earth-fault search picks its next device.</summary>
+    public EarthFaultSearchOrder EarthFaultSearchOrder { get; init; } = EarthFaultSearchOrder.FewestCustomerInterruptions;
+
     public static SwitchingOptions Default { get; } = new();
 
     /// <summary>Throws <see cref="ArgumentOutOfRangeException"/> naming the setting and its valid range.</summary>
@@ -79,4 +82,14 @@ public sealed record SwitchingOptions
         ArgumentOutOfRangeException.ThrowIfLessThan(MaxSelectionBranches, 1);
         ArgumentOutOfRangeException.ThrowIfLessThan(MaxSearchEntries, 1);
     }
+}
+
+/// <summary>The criterion of the standing earth-fault search.</summary>
+public enum EarthFaultSearchOrder
+{
+    /// <summary>Most probability cut off per customer interrupted first: least expected customer interruptions.</summary>
+    FewestCustomerInterruptions,
+
+    /// <summary>About half of the remaining probability each time: fewest entries.</summary>
+    Bisection,
 }

@@ -80,7 +80,17 @@ public static class SwitchingPlanner
         }
 
         var final = limits.Check(replay.Final);
-        var testOrder = TestOrders.For(ctx, suspects, notes, out var expectedReenergisations);
+        var testOrder = TestOrders.For(ctx, suspects, notes, out var expectedReenergisations, out var expectedInterruptions);
+        var searchFirst = ctx.StandingEarthFault && !testOrder.IsEmpty && ranking is not null
+            && ctx.ProbabilityOfZone[ctx.SuspectZone] < options.SplitTopShare;
+        if (searchFirst)
+        {
+            // A network that may run with an earth fault is searched before anyone is cut off for a section that is only perhaps faulted.
+            var first = new SwitchingStep(1, StepAction.Verify, null, null, [], TimeSpan.Zero,
+                $"search first: the ranking is split ({isolate} only {Words.Probability(ctx.ProbabilityOfZone[ctx.SuspectZone])} likely) and the network may run with the earth fault, so carry out the earth-fault search of the test order, watching U0; the steps below isolate {isolate} and apply only if the search ends there (for another section, plan for the section found); their minutes count from the end of the search");
+            steps = [first, .. steps.Select(s => s with { Order = s.Order + 1 })];
+        }
+
         var testViolations = TestOrderReplay.Violations(ctx, testOrder);
         if (testViolations.Count > 0)
         {
@@ -106,7 +116,11 @@ public static class SwitchingPlanner
             testOrder,
             expectedReenergisations,
             Cautions.All,
-            [.. Approximations(ctx, steps, final), .. notes.Distinct()]);
+            [.. Approximations(ctx, steps, final), .. notes.Distinct()])
+        {
+            SearchFirst = searchFirst,
+            ExpectedCustomerInterruptions = expectedInterruptions,
+        };
     }
 
     /// <summary>

@@ -45,12 +45,14 @@ public static class IncidentApi
                 : analysis.Rank(grid, state) is { Result: { } ranking }
                     ? Results.Json(RankingDocument.From(ranking), DocumentJson.Options)
                     : Results.UnprocessableEntity(ApiError.Single("cannot rank", "incident", Text(id), "switchStates", analysis.Rank(grid, state).Problem ?? "no ranking"))));
-        api.MapGet("/incidents/{id:long}/plan", (long id, ClaimsPrincipal user, IncidentBoard board, GridCatalog grids, IncidentAnalysis analysis) =>
+        api.MapGet("/incidents/{id:long}/plan", (long id, string? section, ClaimsPrincipal user, IncidentBoard board, GridCatalog grids, IncidentAnalysis analysis) =>
             WithIncident(board, user, id, state => grids.Find(state.GridName) is not { } grid
                 ? GridNotLoaded(id, state)
-                : analysis.Plan(grid, state) is { Plan: { } plan } && analysis.Rank(grid, state).Result is { } ranking
-                    ? Results.Json(PlanDocument.From(plan, ranking), DocumentJson.Options)
-                    : Results.UnprocessableEntity(ApiError.Single("cannot plan", "incident", Text(id), "plan", analysis.Plan(grid, state).Problem ?? "no plan"))));
+                : section is not null && !grid.Graph.Sections.Contains(new SectionId(section))
+                    ? Results.BadRequest(ApiError.Single("unknown section", "request", "query", "section", $"must name a section of grid \"{grid.Name}\", got \"{section}\""))
+                    : analysis.Plan(grid, state, section) is { Plan: { } plan } && analysis.Rank(grid, state).Result is { } ranking
+                        ? Results.Json(PlanDocument.From(plan, ranking), DocumentJson.Options)
+                        : Results.UnprocessableEntity(ApiError.Single("cannot plan", "incident", Text(id), "plan", analysis.Plan(grid, state, section).Problem ?? "no plan"))));
         api.MapGet("/incidents/{id:long}/plan/return", (long id, ClaimsPrincipal user, IncidentBoard board, GridCatalog grids, IncidentAnalysis analysis) =>
             WithIncident(board, user, id, state => grids.Find(state.GridName) is not { } grid
                 ? GridNotLoaded(id, state)

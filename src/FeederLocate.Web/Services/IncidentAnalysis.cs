@@ -44,6 +44,30 @@ public sealed class IncidentAnalysis(IncidentBoard board)
                 : new PlanOutcome(null, problem));
     }
 
+    /// <summary>The switching order assuming the fault lies in <paramref name="section"/> (the most likely one when null).</summary>
+    public PlanOutcome Plan(LoadedGrid grid, IncidentState state, string? section)
+    {
+        if (section is null)
+        {
+            return Plan(grid, state);
+        }
+
+        var ranking = Rank(grid, state);
+        if (ranking.Result is not { } result)
+        {
+            return new PlanOutcome(null, ranking.Problem);
+        }
+
+        try
+        {
+            return new PlanOutcome(FeederLocate.Core.Switching.SwitchingPlanner.Plan(grid.Graph, state.Incident, new FeederLocate.Core.Model.SectionId(section), result), null);
+        }
+        catch (FeederLocate.Core.Switching.PlanningException e)
+        {
+            return new PlanOutcome(null, e.Message);
+        }
+    }
+
     /// <summary>The return to normal after the repair, from the state the incident's plan leaves.</summary>
     public ReturnOutcome Return(LoadedGrid grid, IncidentState state)
     {

@@ -67,6 +67,27 @@ public class PlanCommandTests
     }
 
     [Fact]
+    public void Standing_earth_fault_with_a_split_ranking_is_searched_first_and_the_found_section_is_planned_with_section()
+    {
+        var run = CliRun.Of("plan", CliRun.Sample("resonant"), Incident("resonant-standing-earth-fault-b1.incident.json"), "--json");
+
+        Assert.Equal(0, run.ExitCode);
+        var json = run.Json();
+        Assert.True(json.GetProperty("searchFirst").GetBoolean());
+        Assert.True(json.GetProperty("expectedCustomerInterruptions").GetDouble() > 0);
+        Assert.Contains("search first", json.GetProperty("steps")[0].GetProperty("reason").GetString(), StringComparison.Ordinal);
+
+        // The sample's fault is on S310 (sample-grid/README.md): once the search ends there, the plan for its section.
+        var found = CliRun.Of("plan", CliRun.Sample("resonant"), Incident("resonant-standing-earth-fault-b1.incident.json"), "--section", "SEC-S310", "--json");
+        Assert.Equal(0, found.ExitCode);
+        Assert.Equal("SEC-S310", found.Json().GetProperty("isolatedSections")[0].GetString());
+
+        var unknown = CliRun.Of("plan", CliRun.Sample("resonant"), Incident("resonant-standing-earth-fault-b1.incident.json"), "--section", "SEC-NOPE");
+        Assert.Equal(2, unknown.ExitCode);
+        Assert.Contains("SEC-NOPE", unknown.Error, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void Plan_table_prints_the_cautions_and_the_steps()
     {
         var run = CliRun.Of("plan", CliRun.Sample("solid"), Incident("solid-lg-trip-a1.incident.json"));

@@ -69,6 +69,19 @@ public sealed class IncidentApiTests(ApiFixture app) : IClassFixture<ApiFixture>
     }
 
     [Fact]
+    public async Task The_plan_for_a_chosen_section_is_given_and_an_unknown_section_is_a_400()
+    {
+        var id = await OpenSolidTrip();
+
+        var plan = await app.Client.GetFromJsonAsync<JsonElement>($"/api/incidents/{id}/plan?section=SEC-S108");
+        var unknown = await app.Client.GetAsync($"/api/incidents/{id}/plan?section=SEC-NOPE");
+
+        Assert.Equal("SEC-S108", plan.GetProperty("isolatedSections")[0].GetString());
+        Assert.Equal(HttpStatusCode.BadRequest, unknown.StatusCode);
+        Assert.Contains("SEC-NOPE", await unknown.Content.ReadAsStringAsync(), StringComparison.Ordinal);
+    }
+
+    [Fact]
     public async Task A_bad_indication_is_a_400_naming_the_element_and_field_and_nothing_is_kept()
     {
         var id = await OpenSolidTrip();

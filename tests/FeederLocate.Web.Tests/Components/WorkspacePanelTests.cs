@@ -170,6 +170,21 @@ public class RecordAndPlanPanelTests : ComponentTest
         Assert.Contains("Advice only", after.Find("[data-testid='return-steps']").TextContent, StringComparison.Ordinal);
     }
 
+    [Fact]
+    public void A_standing_earth_fault_with_a_split_ranking_shows_the_search_first()
+    {
+        var resonant = TestGrids.Sample("resonant");
+        var incident = FeederLocate.Core.Formats.IncidentReader.Parse(
+            File.ReadAllText(Path.Combine(TestGrids.Root, "sample-grid", "incidents", "resonant-standing-earth-fault-b1.incident.json")), resonant.Grid).ValueOrThrow();
+        var plan = FeederLocate.Core.Switching.SwitchingPlanner.Plan(resonant.Graph, incident, FaultRanking.Rank(resonant.Graph, incident));
+        Assert.True(plan.SearchFirst);
+
+        var cut = Render<PlanSteps>(p => p.Add(c => c.Plan, plan));
+
+        Assert.Contains("Search first", cut.Find("[data-testid='search-first']").TextContent, StringComparison.Ordinal);
+        Assert.Contains("Earth-fault search (first)", cut.Markup, StringComparison.Ordinal);
+    }
+
     private static class Incidents
     {
         /// <summary>CB-A1 tripped on an earth fault; the indicators on A1 saw it up to FPI-A1-11, not beyond.</summary>

@@ -18,7 +18,9 @@ public sealed record PlanDocument(
     PlanDocument.FinalStateEntry FinalState,
     PlanDocument.RankingEntry Ranking,
     IReadOnlyList<string> Cautions,
-    IReadOnlyList<string> Approximations)
+    IReadOnlyList<string> Approximations,
+    bool SearchFirst,
+    double? ExpectedCustomerInterruptions)
 {
     public static PlanDocument From(SwitchingPlan plan, RankingResult ranking) => new(
         [.. plan.Steps.Select(Step)],
@@ -37,7 +39,9 @@ public sealed record PlanDocument(
         new RankingEntry(ranking.Consistent, ranking.Sections.IsDefaultOrEmpty ? null : ranking.Sections[0].Id.Value,
             ranking.Sections.IsDefaultOrEmpty ? 0 : ranking.Sections[0].Probability),
         plan.Cautions,
-        plan.Approximations);
+        plan.Approximations,
+        plan.SearchFirst,
+        plan.ExpectedCustomerInterruptions is { } e ? Math.Round(e, 2) : null);
 
     /// <summary>The contract's action names: camelCase of the core's.</summary>
     public static string ActionName(StepAction action) => char.ToLowerInvariant(action.ToString()[0]) + action.ToString()[1..];

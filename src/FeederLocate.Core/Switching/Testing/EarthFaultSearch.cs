@@ -5,8 +5,10 @@ namespace FeederLocate.Core.Switching;
 
 /// <summary>
 /// The sectioning search for a standing earth fault on an isolated or resonant network, watching the
-/// neutral voltage U0: bisection by probability mass over the feeder tree. Each entry opens the device
-/// that cuts off about half of the remaining probability (breakers, reclosers and load-break switches may
+/// neutral voltage U0. Each entry opens the device that cuts off the most probability per customer it
+/// interrupts (the order of least expected customer interruptions for a sequence of tests each ending
+/// the search with its probability: the ratio rule of sequential search), or with
+/// <see cref="EarthFaultSearchOrder.Bisection"/> the one that cuts off about half of it (breakers, reclosers and load-break switches may
 /// break the earth-fault current, IEC 62271-103); U0 staying means the fault is not beyond it, so it closes
 /// again onto a healthy part; U0 collapsing means it is. A load-break switch never closes onto the faulted
 /// part, so there the search ends; a breaker or recloser may reclose onto it after a dead split, and the
@@ -14,8 +16,12 @@ namespace FeederLocate.Core.Switching;
 /// </summary>
 internal static class EarthFaultSearch
 {
-    public static ImmutableArray<TestEntry> Build(PlanningContext ctx, ICollection<string> notes)
+    public static ImmutableArray<TestEntry> Build(PlanningContext ctx, ICollection<string> notes) => Build(ctx, notes, out _);
+
+    /// <param name="expectedInterruptions">Σ over entries of the probability of reaching it times the customers it interrupts.</param>
+    public static ImmutableArray<TestEntry> Build(PlanningContext ctx, ICollection<string> notes, out double expectedInterruptions)
     {
+        expectedInterruptions = 0;
         if (ctx.SuspectSubstation < 0)
         {
             return [];
@@ -33,6 +39,7 @@ internal static class EarthFaultSearch
 
         var search = new Search(ctx, tree);
         search.Live([.. tree.Zones], depth: 0, [], TimeSpan.Zero);
+        expectedInterruptions = search.ExpectedInterruptions / Math.Max(1e-300, tree.Zones.Sum(z => ctx.ProbabilityOfZone[z]));
         return [.. search.Entries.OrderBy(e => e.Entry)];
     }
 
@@ -47,6 +54,9 @@ internal static class EarthFaultSearch
         private int _next = 1;
 
         public List<TestEntry> Entries { get; } = [];
+
+        /// <summary>Σ probability mass of reaching an entry × customers it interrupts (divided by the total mass by the caller).</summary>
+        public double ExpectedInterruptions { get; private set; }
 
         private Grid Grid => ctx.Grid;
 
@@ -65,6 +75,7 @@ internal static class EarthFaultSearch
             var order = _next++;
             var beyond = Beyond(region, cut);
             var rest = region.Except(beyond).ToHashSet();
+            ExpectedInterruptions += Mass(region) * Customers(beyond);
             var index = tree.ParentSwitch(cut);
             var device = Grid.Switches[index];
             var steps = new EntrySteps(ctx, start).AddRange(prefix)
@@ -95,6 +106,9 @@ internal static class EarthFaultSearch
             var order = _next++;
             var beyond = Beyond(region, cut);
             var energised = region.Except(beyond).ToHashSet();
+
+            // U0 returning means the closer opens again: what it energised is interrupted a second time.
+            ExpectedInterruptions += Mass(energised) * Customers(energised);
             var closerIndex = tree.ParentSwitch(gate);
             var splitIndex = tree.ParentSwitch(cut);
             var closer = Grid.Switches[closerIndex];
@@ -135,7 +149,10 @@ internal static class EarthFaultSearch
                 }
 
                 var manual = Grid.Switches[parent].Remote ? 0 : ManualPenalty;
-                var key = (Math.Abs((m / total) - 0.5) + manual, manual, Customers(Beyond(region, z)));
+                var customers = Customers(Beyond(region, z));
+                var key = ctx.Options.EarthFaultSearchOrder == EarthFaultSearchOrder.Bisection
+                    ? (Math.Abs((m / total) - 0.5) + manual, manual, customers)
+                    : ((customers + 1.0) / m * total, manual, customers);
                 if (key.CompareTo(bestKey) < 0)
                 {
                     bestKey = key;
