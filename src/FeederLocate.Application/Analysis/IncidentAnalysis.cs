@@ -1,3 +1,4 @@
+using FeederLocate.Core.Model;
 using BitFaster.Caching;
 using BitFaster.Caching.Lru;
 using FeederLocate.Application.History;
@@ -18,8 +19,8 @@ public sealed class IncidentAnalysis
 {
     private readonly GridLearning _learning;
     private readonly IFaultRanker _ranker;
-    private readonly IAsyncCache<AnalysisKey, RankingOutcome> _rankings;
-    private readonly IAsyncCache<AnalysisKey, PlanOutcome> _plans;
+    private readonly IAsyncCache<AnalysisKey, RankingAttempt> _rankings;
+    private readonly IAsyncCache<AnalysisKey, PlanAttempt> _plans;
 
     public IncidentAnalysis(GridLearning learning, IFaultRanker ranker, int capacity = 256)
     {
@@ -28,22 +29,48 @@ public sealed class IncidentAnalysis
         ArgumentOutOfRangeException.ThrowIfLessThan(capacity, 3);
         _learning = learning;
         _ranker = ranker;
-        _rankings = new ConcurrentLruBuilder<AnalysisKey, RankingOutcome>().WithCapacity(capacity).AsAsyncCache().WithAtomicGetOrAdd().Build();
-        _plans = new ConcurrentLruBuilder<AnalysisKey, PlanOutcome>().WithCapacity(capacity).AsAsyncCache().WithAtomicGetOrAdd().Build();
+        _rankings = new ConcurrentLruBuilder<AnalysisKey, RankingAttempt>().WithCapacity(capacity).AsAsyncCache().WithAtomicGetOrAdd().Build();
+        _plans = new ConcurrentLruBuilder<AnalysisKey, PlanAttempt>().WithCapacity(capacity).AsAsyncCache().WithAtomicGetOrAdd().Build();
     }
 
     /// <summary>The ranking of a logged incident as it stands in <paramref name="state"/>.</summary>
-    public Task<RankingOutcome> RankAsync(NetworkGraph graph, IncidentState state)
+    public Task<RankingAttempt> RankAsync(NetworkGraph graph, IncidentState state)
     {
         var (key, outcomes) = KeyOf(graph, state);
         return RankAsync(key, graph, state, outcomes);
     }
 
     /// <summary>The switching order for the ranking's most likely section of a logged incident.</summary>
-    public Task<PlanOutcome> PlanAsync(NetworkGraph graph, IncidentState state)
+    public Task<PlanAttempt> PlanAsync(NetworkGraph graph, IncidentState state)
     {
         var (key, outcomes) = KeyOf(graph, state);
         return PlanAsync(key, graph, state, outcomes);
+    }
+
+    /// <summary>
+    /// The switching order assuming the fault lies in <paramref name="section"/>; the ranking's most likely
+    /// section (and the cached plan) when null.
+    /// </summary>
+    public async Task<PlanAttempt> PlanForAsync(NetworkGraph graph, IncidentState state, SectionId? section)
+    {
+        if (section is not { } chosen)
+        {
+            return await PlanAsync(graph, state).ConfigureAwait(false);
+        }
+
+        var ranking = await RankAsync(graph, state).ConfigureAwait(false);
+        return ranking.Result is { } result
+            ? await Task.Run(() => EvidenceAnalysis.PlanFor(graph, state.Incident, result, chosen)).ConfigureAwait(false)
+            : new PlanAttempt(null, ranking.Problem);
+    }
+
+    /// <summary>The return to normal after the repair, from the state the incident's plan leaves.</summary>
+    public async Task<ReturnAttempt> ReturnAsync(NetworkGraph graph, IncidentState state)
+    {
+        var plan = await PlanAsync(graph, state).ConfigureAwait(false);
+        return plan.Plan is { } found
+            ? await Task.Run(() => EvidenceAnalysis.Return(graph, state.Incident, found)).ConfigureAwait(false)
+            : new ReturnAttempt(null, plan.Problem);
     }
 
     /// <summary>The ranking and the plan of a logged incident together.</summary>
@@ -63,16 +90,16 @@ public sealed class IncidentAnalysis
         return (new AnalysisKey(graph, state.Id, Math.Max(state.LastEvent.Value, outcomes.Through)), outcomes);
     }
 
-    private async Task<RankingOutcome> RankAsync(AnalysisKey key, NetworkGraph graph, IncidentState state, GridOutcomes outcomes) =>
+    private async Task<RankingAttempt> RankAsync(AnalysisKey key, NetworkGraph graph, IncidentState state, GridOutcomes outcomes) =>
         await _rankings.GetOrAddAsync(key, _ => Task.Run(() => EvidenceAnalysis.Rank(graph, state.Incident, _learning.Priors(graph, outcomes, state.Id), _ranker))).ConfigureAwait(false);
 
-    private async Task<PlanOutcome> PlanAsync(AnalysisKey key, NetworkGraph graph, IncidentState state, GridOutcomes outcomes) =>
+    private async Task<PlanAttempt> PlanAsync(AnalysisKey key, NetworkGraph graph, IncidentState state, GridOutcomes outcomes) =>
         await _plans.GetOrAddAsync(key, async _ =>
         {
             var ranking = await RankAsync(key, graph, state, outcomes).ConfigureAwait(false);
             return ranking.Result is { } result
                 ? await Task.Run(() => EvidenceAnalysis.Plan(graph, state.Incident, result)).ConfigureAwait(false)
-                : new PlanOutcome(null, ranking.Problem);
+                : new PlanAttempt(null, ranking.Problem);
         }).ConfigureAwait(false);
 
     /// <summary>The grid (as loaded: a reloaded grid is a new key), the incident, and the last event among the inputs.</summary>

@@ -32,18 +32,29 @@ internal static class BenchPlan
         var incidents = Enumerable.Range(0, rounds + 1).Select(n => simulator.Next(random, n)).ToList();
         var rankings = incidents.Select(i => FaultRanking.Rank(graph, i.Incident)).ToList();
         var times = new List<double>();
+        var cpuTimes = new List<double>();
         long steps = 0, restored = 0, tests = 0;
+        var repeated = true;
         var clock = new Stopwatch();
+        var process = Process.GetCurrentProcess();
         ProgressDisplay.Run(console, "bench plan", progress =>
         {
             for (var n = 0; n < incidents.Count; n++)
             {
+                process.Refresh();
+                var cpuBefore = process.TotalProcessorTime;
                 clock.Restart();
                 var plan = SwitchingPlanner.Plan(graph, incidents[n].Incident, rankings[n]);
                 var ms = clock.Elapsed.TotalMilliseconds;
+                process.Refresh();
+                var cpuMs = (process.TotalProcessorTime - cpuBefore).TotalMilliseconds;
+
+                // No clock or thread enters the planner: planning again gives the same plan.
+                repeated &= Same(plan, SwitchingPlanner.Plan(graph, incidents[n].Incident, rankings[n]));
                 if (n > 0)
                 {
                     times.Add(ms);
+                    cpuTimes.Add(cpuMs);
                     steps += plan.Steps.Length;
                     restored += plan.RestoredCustomers;
                     tests += plan.TestOrder.Length;
@@ -56,7 +67,9 @@ internal static class BenchPlan
         });
 
         times.Sort();
+        cpuTimes.Sort();
         var document = new Document(grid.Segments.Length, grid.Switches.Length, times.Count, times[0], times[times.Count / 2], times[^1],
+            cpuTimes[cpuTimes.Count / 2], cpuTimes[^1], repeated,
             steps / (double)times.Count, restored / (double)times.Count, tests / (double)times.Count);
         if (json)
         {
@@ -70,11 +83,32 @@ internal static class BenchPlan
         table.AddRow("plan time, fastest", $"{document.FastestMs:F1} ms");
         table.AddRow("plan time, median", $"{document.MedianMs:F1} ms");
         table.AddRow("plan time, slowest", $"{document.SlowestMs:F1} ms");
+        table.AddRow("processor time, median", $"{document.MedianCpuMs:F1} ms (all threads of the process, garbage collection included)");
+        table.AddRow("processor time, slowest", $"{document.SlowestCpuMs:F1} ms");
+        table.AddRow("same plan when planned again", document.Repeatable ? "yes, every incident" : "NO");
+        table.AddRow("machine load (1-minute average)", LoadAverage());
         table.AddRow("steps per plan (mean)", document.MeanSteps.ToString("F1", CultureInfo.InvariantCulture));
         table.AddRow("customers restored per plan (mean)", document.MeanRestoredCustomers.ToString("F0", CultureInfo.InvariantCulture));
         table.AddRow("test-order entries per plan (mean)", document.MeanTestEntries.ToString("F1", CultureInfo.InvariantCulture));
         TableOutput.Write(console.Out, table);
         return CliApp.Success;
+    }
+
+    private static bool Same(SwitchingPlan a, SwitchingPlan b) =>
+        a.RestoredCustomers == b.RestoredCustomers && a.UnservedCustomers == b.UnservedCustomers && a.CustomerMinutesInterrupted.Equals(b.CustomerMinutesInterrupted)
+        && a.Steps.Select(s => (s.Order, s.Action, s.Device, s.At, s.Reason)).SequenceEqual(b.Steps.Select(s => (s.Order, s.Action, s.Device, s.At, s.Reason)));
+
+    /// <summary>The 1-minute load average where the system gives it (Linux), so that figures taken on a busy machine say so.</summary>
+    private static string LoadAverage()
+    {
+        try
+        {
+            return File.Exists("/proc/loadavg") ? File.ReadAllText("/proc/loadavg").Split(' ')[0] + $" on {Environment.ProcessorCount} processors" : "not known";
+        }
+        catch (IOException)
+        {
+            return "not known";
+        }
     }
 
     private static Grid Scaled(Grid grid, double factor) => Grid.Create(
@@ -83,5 +117,5 @@ internal static class BenchPlan
         grid.Segments, grid.Switches, grid.Indicators);
 
     internal sealed record Document(int Segments, int Switches, int Incidents, double FastestMs, double MedianMs, double SlowestMs,
-        double MeanSteps, double MeanRestoredCustomers, double MeanTestEntries);
+        double MedianCpuMs, double SlowestCpuMs, bool Repeatable, double MeanSteps, double MeanRestoredCustomers, double MeanTestEntries);
 }

@@ -4,6 +4,7 @@ using FeederLocate.Cli.Input;
 using FeederLocate.Cli.Output;
 using FeederLocate.Core.Formats.Documents;
 using FeederLocate.Application.Analysis;
+using FeederLocate.Core.Model;
 using FeederLocate.Core.Ranking;
 using FeederLocate.Core.Switching;
 using FeederLocate.Core.Topology;
@@ -27,18 +28,26 @@ internal static class PlanCommand
             Description = "Lowest voltage allowed at any live node in the final state, pu (0.5 to 1)",
             DefaultValueFactory = _ => SwitchingOptions.Default.VoltageLimitPu,
         };
+        var back = new Option<bool>("--return")
+        {
+            Description = "Print instead the return to normal after the repair: clearance, then every device back to its normal position without paralleling feeders",
+        };
+        var section = new Option<string?>("--section")
+        {
+            Description = "Plan for this section instead of the most likely one (the section an earth-fault search or a test order located)",
+        };
         var db = CliOptions.Database(required: false);
         var json = CliOptions.Json();
         var command = new Command("plan", "Propose the switching order: isolate the most likely section, restore, and test; advice only")
         {
-            grid, incident, coldLoad, voltage, db, json,
+            grid, incident, coldLoad, voltage, back, section, db, json,
         };
         command.SetAction(parse => Run(console, parse.GetValue(grid)!, parse.GetValue(incident)!, parse.GetValue(coldLoad), parse.GetValue(voltage),
-            parse.GetValue(db), parse.GetValue(json)));
+            parse.GetValue(back), parse.GetValue(section), parse.GetValue(db), parse.GetValue(json)));
         return command;
     }
 
-    private static int Run(CliConsole console, string gridPath, string incidentPath, double coldLoadFactor, double voltageLimitPu, string? dbPath, bool json)
+    private static int Run(CliConsole console, string gridPath, string incidentPath, double coldLoadFactor, double voltageLimitPu, bool returnToNormal, string? section, string? dbPath, bool json)
     {
         var errors = new List<string>();
         if (!(coldLoadFactor is >= 1 and <= 10))
@@ -67,10 +76,38 @@ internal static class PlanCommand
         }
 
         var options = SwitchingOptions.Default with { ColdLoadFactor = coldLoadFactor, VoltageLimitPu = voltageLimitPu };
-        var planned = EvidenceAnalysis.Plan(graph, incident, ranking, options);
+        if (section is not null && !graph.Sections.Contains(new SectionId(section)))
+        {
+            throw new BadInputException($"error: --section {section} is not a section of grid '{grid.Name}'");
+        }
+
+        var planned = section is null
+            ? EvidenceAnalysis.Plan(graph, incident, ranking, options)
+            : EvidenceAnalysis.PlanFor(graph, incident, ranking, new SectionId(section), options);
         if (planned.Plan is not { } plan)
         {
             throw new BadInputException($"error: {planned.Problem}");
+        }
+
+        if (returnToNormal)
+        {
+            var attempt = EvidenceAnalysis.Return(graph, incident, plan, options);
+            if (attempt.Plan is not { } back)
+            {
+                throw new BadInputException($"error: {attempt.Problem}");
+            }
+
+            var returnDocument = ReturnPlanDocument.From(back);
+            if (json)
+            {
+                JsonOutput.Write(console.Out, returnDocument);
+            }
+            else
+            {
+                WriteReturn(console.Out, returnDocument, plan);
+            }
+
+            return CliApp.Success;
         }
 
         var document = PlanDocument.From(plan, ranking);
@@ -88,7 +125,12 @@ internal static class PlanCommand
     {
         WriteCautions(output, d);
         output.WriteLine();
-        output.WriteLine($"Isolate {string.Join(", ", d.IsolatedSections)} (most likely section, {Percent(d.Ranking.TopProbability)}{(d.Ranking.Consistent ? string.Empty : "; the evidence is not consistent: check it")}).");
+        var consistency = d.Ranking.Consistent ? string.Empty : "; the evidence is not consistent: check it";
+        output.WriteLine(d.IsolatedSections.Count == 0
+            ? $"Transient fault (a reclosure held): nothing is switched or isolated; patrol the suspects, most likely first (top {d.Ranking.TopSection}, {Percent(d.Ranking.TopProbability)}{consistency})."
+            : d.IsolatedSections[0] == d.Ranking.TopSection
+                ? $"Isolate {string.Join(", ", d.IsolatedSections)} (most likely section, {Percent(d.Ranking.TopProbability)}{consistency})."
+                : $"Isolate {string.Join(", ", d.IsolatedSections)} (the section asked for; the most likely is {d.Ranking.TopSection}, {Percent(d.Ranking.TopProbability)}{consistency}).");
         foreach (var s in d.Sections)
         {
             output.WriteLine($"  {s.Id}: segments {string.Join(" ", s.Segments)}");
@@ -109,27 +151,39 @@ internal static class PlanCommand
         summary.AddRow("lowest voltage, final state", $"{d.FinalState.MinimumVoltagePu:F3} pu at {d.FinalState.MinimumVoltageNode} (limit {d.VoltageLimitPu:F2} pu)");
         summary.AddRow("highest loading, final state", $"{d.FinalState.MaximumLoadingPercent:F0} % on {d.FinalState.MaximumLoadingSegment}");
         summary.AddRow("cold-load factor", d.ColdLoadFactor.ToString(CultureInfo.InvariantCulture));
+        if (d.ExpectedCustomerInterruptions is { } ci)
+        {
+            summary.AddRow("expected customer interruptions (earth-fault search)", ci.ToString("0.0", CultureInfo.InvariantCulture));
+        }
+
         if (d.ExpectedReenergisationsOntoFault is { } e)
         {
             summary.AddRow("expected re-energisations onto the fault (test order)", e.ToString("0.00", CultureInfo.InvariantCulture));
         }
 
         TableOutput.Write(output, summary);
+        if (d.TestOrder.Count > 0 && d.SearchFirst)
+        {
+            output.WriteLine("Earth-fault search FIRST (the ranking is split and the network may run with the earth fault): carry it out before the steps above,");
+            output.WriteLine("which apply only if it ends at their section. Start from the incident's start state; after each entry follow the branch of its result:");
+        }
+        else if (d.TestOrder.Count > 0)
+        {
+            output.WriteLine("Test order: the alternative to the steps above, for testing before isolating. Start from the incident's start state;");
+            output.WriteLine("after each entry follow the branch of its result (each entry's steps follow those of the entry that led to it):");
+        }
+
         if (d.TestOrder.Count > 0)
         {
-            output.WriteLine("Test order (before the steps above; follow the branch after each result):");
-            var tests = TableOutput.Table("order", "first", "action", "device", "sections", "p", "branches");
+            var tests = TableOutput.Table("entry", "steps", "watch", "p", "branches");
             foreach (var t in d.TestOrder)
             {
-                var branches = new[] { t.IfHolds, t.IfTrips, t.IfU0Stays, t.IfU0Collapses, t.IfU0Returns, t.IfU0StaysAbsent }
-                    .OfType<PlanDocument.BranchEntry>()
-                    .Select(b => $"{b.Result}: {b.Then}");
+                var entrySteps = t.Steps.Select(s => $"{s.Order}. {s.Action} {s.Device} (about {s.AtMinutes.ToString("0", CultureInfo.InvariantCulture)} min): {s.Reason}");
+                var branches = t.Branches.Select(b => $"{b.Result}: {b.Then}");
                 tests.AddRow(
-                    t.Order.ToString(CultureInfo.InvariantCulture),
-                    string.Join("; ", t.Before),
-                    t.Action,
-                    t.Device,
-                    string.Join(" ", t.Energises ?? t.CutsOff ?? []),
+                    t.Entry.ToString(CultureInfo.InvariantCulture),
+                    string.Join(Environment.NewLine, entrySteps),
+                    t.Observe == "trip" ? "breaker holds or trips" : "U0",
                     Percent(t.FaultProbability),
                     string.Join(Environment.NewLine, branches));
             }
@@ -147,9 +201,39 @@ internal static class PlanCommand
         WriteCautions(output, d);
     }
 
-    private static void WriteCautions(TextWriter output, PlanDocument d)
+    private static void WriteReturn(TextWriter output, ReturnPlanDocument d, SwitchingPlan plan)
     {
-        foreach (var c in d.Cautions)
+        WriteCautions(output, d.Cautions);
+        output.WriteLine();
+        output.WriteLine(plan.IsolatedSections.IsEmpty
+            ? "Return to normal: the plan isolated nothing."
+            : $"Return to normal after the repair of {string.Join(", ", plan.IsolatedSections)} (minutes count from the moment the repair is reported complete):");
+        var steps = TableOutput.Table("order", "at min", "action", "device", "reason");
+        foreach (var s in d.Steps)
+        {
+            steps.AddRow(s.Order.ToString(CultureInfo.InvariantCulture), s.AtMinutes.ToString("0", CultureInfo.InvariantCulture), s.Action, s.Device ?? string.Empty, s.Reason);
+        }
+
+        TableOutput.Write(output, steps);
+        var summary = TableOutput.Table("estimate", "value");
+        summary.AddRow("most customers without supply at once", d.MostCustomersInterrupted.ToString(CultureInfo.InvariantCulture));
+        summary.AddRow("customer minutes interrupted (IEEE 1366 CMI)", d.CustomerMinutesInterrupted.ToString("0", CultureInfo.InvariantCulture));
+        TableOutput.Write(output, summary);
+        output.WriteLine("Approximations:");
+        foreach (var a in d.Approximations)
+        {
+            output.WriteLine($"  - {a}");
+        }
+
+        output.WriteLine();
+        WriteCautions(output, d.Cautions);
+    }
+
+    private static void WriteCautions(TextWriter output, PlanDocument d) => WriteCautions(output, d.Cautions);
+
+    private static void WriteCautions(TextWriter output, IReadOnlyList<string> cautions)
+    {
+        foreach (var c in cautions)
         {
             output.WriteLine($"CAUTION: {c}");
         }

@@ -31,7 +31,31 @@ public static class TableOutput
     }
 
     public static void AddRow(this Table table, params string[] cells) =>
-        table.AddRow(cells.Select(c => (IRenderable)new Text(c)).ToArray());
+        table.AddRow(cells.Select(c => (IRenderable)new Text(Printable(c))).ToArray());
+
+    /// <summary>
+    /// The text with control characters and Unicode noncharacters written as <c>\uXXXX</c>: an id may hold any
+    /// character the JSON allows, but the table's width measure fails on some of them (U+FFFF).
+    /// </summary>
+    public static string Printable(string text)
+    {
+        ArgumentNullException.ThrowIfNull(text);
+        if (!text.Any(NeedsEscape))
+        {
+            return text;
+        }
+
+        var builder = new System.Text.StringBuilder(text.Length + 8);
+        foreach (var c in text)
+        {
+            builder.Append(NeedsEscape(c) ? $"\\u{(int)c:X4}" : c.ToString());
+        }
+
+        return builder.ToString();
+    }
+
+    private static bool NeedsEscape(char c) =>
+        char.IsControl(c) || c is '\uFFFE' or '\uFFFF' || c is >= '\uFDD0' and <= '\uFDEF';
 
     public static void Write(TextWriter writer, IRenderable renderable) => ConsoleFor(writer).Write(renderable);
 }

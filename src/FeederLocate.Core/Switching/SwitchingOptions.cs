@@ -33,14 +33,17 @@ public sealed record SwitchingOptions
     /// <summary>At most this many suspects enter a test order of trial closures.</summary>
     public int MaxTrialSuspects { get; init; } = 6;
 
-    /// <summary>At most this many connected groups of zones are checked per restoring switch; beyond it a sample is taken (and said).</summary>
-    public int MaxCandidatesPerSource { get; init; } = 48;
+    /// <summary>At most this many groups of zones are checked by load flow per restoring switch, the largest first; beyond it the plan says so.</summary>
+    public int MaxCandidatesPerSource { get; init; } = 256;
 
-    /// <summary>Time limit of the CP-SAT selection of restoring switches.</summary>
-    public TimeSpan SolverTimeLimit { get; init; } = TimeSpan.FromSeconds(5);
+    /// <summary>At most this many branches of the exact selection of restoring switches (a deterministic limit, never a clock); beyond it the plan says so.</summary>
+    public long MaxSelectionBranches { get; init; } = 1_000_000;
 
     /// <summary>At most this many entries in the standing earth-fault search.</summary>
     public int MaxSearchEntries { get; init; } = 24;
+
+    /// <summary>How the standing earth-fault search picks its next device.</summary>
+    public EarthFaultSearchOrder EarthFaultSearchOrder { get; init; } = EarthFaultSearchOrder.FewestCustomerInterruptions;
 
     public static SwitchingOptions Default { get; } = new();
 
@@ -76,6 +79,17 @@ public sealed record SwitchingOptions
 
         ArgumentOutOfRangeException.ThrowIfLessThan(MaxTrialSuspects, 2);
         ArgumentOutOfRangeException.ThrowIfLessThan(MaxCandidatesPerSource, 2);
+        ArgumentOutOfRangeException.ThrowIfLessThan(MaxSelectionBranches, 1);
         ArgumentOutOfRangeException.ThrowIfLessThan(MaxSearchEntries, 1);
     }
+}
+
+/// <summary>The criterion of the standing earth-fault search.</summary>
+public enum EarthFaultSearchOrder
+{
+    /// <summary>Most probability cut off per customer interrupted first: least expected customer interruptions.</summary>
+    FewestCustomerInterruptions,
+
+    /// <summary>About half of the remaining probability each time: fewest entries.</summary>
+    Bisection,
 }

@@ -17,7 +17,11 @@ namespace FeederLocate.Core.Switching;
 /// </summary>
 public static class SwitchingPlanner
 {
-    /// <summary>Plans for the ranking's most likely section. Throws <see cref="PlanningException"/> where no plan can be made.</summary>
+    /// <summary>
+    /// Plans for the ranking's most likely section; for a transient fault (a reclosure held, and no fuse
+    /// found blown) the plan switches nothing and is the patrol of the suspects and the field checks.
+    /// Throws <see cref="PlanningException"/> where no plan can be made.
+    /// </summary>
     public static SwitchingPlan Plan(NetworkGraph graph, Incident incident, RankingResult ranking, SwitchingOptions? options = null)
     {
         ArgumentNullException.ThrowIfNull(ranking);
@@ -26,7 +30,15 @@ public static class SwitchingPlanner
             throw new PlanningException("the ranking names no section: nothing to isolate");
         }
 
-        return Plan(graph, incident, ranking.Sections[0].Id, ranking, options);
+        if (incident?.Reclosing is { Transient: true } reclosing && !incident.Fuses.Values.Contains(Evidence.FuseCondition.Blown))
+        {
+            ArgumentNullException.ThrowIfNull(graph);
+            options ??= SwitchingOptions.Default;
+            options.Validate();
+            return TransientFaultPlan.Build(new PlanningContext(graph, incident, ranking.Sections[0].Id, ranking, options), reclosing);
+        }
+
+        return Plan(graph, incident!, ranking.Sections[0].Id, ranking, options);
     }
 
     /// <summary>
@@ -54,6 +66,12 @@ public static class SwitchingPlanner
         var limits = new SupplyLimits(options.VoltageLimitPu, factors);
         var suspects = SplitRanking.Suspects(ctx);
         var avoid = suspects.Where(s => s.Zone != ctx.SuspectZone).Select(s => s.Zone).ToHashSet();
+        if (ctx.StandingEarthFault)
+        {
+            // The standing earth fault may lie in another suspect: no tie closes onto one.
+            avoid.UnionWith(SplitRanking.StillSuspect(ctx).Where(z => z != ctx.SuspectZone));
+        }
+
         var restoration = Restoration.Plan(ctx, isolation, dead, limits, avoid, notes);
         var steps = StepAssembly.Build(ctx, isolation, dead, restoration.Chosen, notes);
         var replay = PlanReplay.Run(ctx, steps);
@@ -63,9 +81,25 @@ public static class SwitchingPlanner
         }
 
         var final = limits.Check(replay.Final);
-        var testOrder = TestOrders.For(ctx, suspects, notes, out var expectedReenergisations);
+        var testOrder = TestOrders.For(ctx, suspects, notes, out var expectedReenergisations, out var expectedInterruptions);
+        var searchFirst = ctx.StandingEarthFault && !testOrder.IsEmpty && ranking is not null
+            && ctx.ProbabilityOfZone[ctx.SuspectZone] < options.SplitTopShare;
+        if (searchFirst)
+        {
+            // A network that may run with an earth fault is searched before anyone is cut off for a section that is only perhaps faulted.
+            var first = new SwitchingStep(1, StepAction.Verify, null, null, [], TimeSpan.Zero,
+                $"search first: the ranking is split ({isolate} only {Words.Probability(ctx.ProbabilityOfZone[ctx.SuspectZone])} likely) and the network may run with the earth fault, so carry out the earth-fault search of the test order, watching U0; the steps below isolate {isolate} and apply only if the search ends there (for another section, plan for the section found); their minutes count from the end of the search");
+            steps = [first, .. steps.Select(s => s with { Order = s.Order + 1 })];
+        }
+
+        var testViolations = TestOrderReplay.Violations(ctx, testOrder);
+        if (testViolations.Count > 0)
+        {
+            throw new InvalidOperationException($"the planner made an unsafe test order: {string.Join("; ", testViolations)}");
+        }
+
         var named = new List<SectionId> { isolate };
-        named.AddRange(testOrder.SelectMany(t => t.Sections.Concat(t.First.FaultIn).Concat(t.Second.FaultIn)));
+        named.AddRange(testOrder.SelectMany(t => t.ReenergisesSections.Concat(t.CutsOffSections).Concat(t.Branches.SelectMany(b => b.FaultIn))));
         return new SwitchingPlan(
             [.. steps],
             [isolate],
@@ -83,7 +117,26 @@ public static class SwitchingPlanner
             testOrder,
             expectedReenergisations,
             Cautions.All,
-            [.. Approximations(ctx, steps, final), .. notes.Distinct()]);
+            [.. Approximations(ctx, steps, final), .. notes.Distinct()])
+        {
+            SearchFirst = searchFirst,
+            ExpectedCustomerInterruptions = expectedInterruptions,
+        };
+    }
+
+    /// <summary>
+    /// The return to normal after the repair, from the state <paramref name="plan"/> leaves: clearance, then
+    /// every device back to its normal position without paralleling feeders or substations. Throws
+    /// <see cref="PlanningException"/> where no safe order exists.
+    /// </summary>
+    public static ReturnPlan PlanReturn(NetworkGraph graph, Incident incident, SwitchingPlan plan, SwitchingOptions? options = null)
+    {
+        ArgumentNullException.ThrowIfNull(graph);
+        ArgumentNullException.ThrowIfNull(incident);
+        ArgumentNullException.ThrowIfNull(plan);
+        options ??= SwitchingOptions.Default;
+        options.Validate();
+        return ReturnToNormal.Plan(graph, incident, plan, options);
     }
 
     /// <summary>Plans for the ranking's most likely section, or says why it cannot.</summary>
@@ -108,6 +161,7 @@ public static class SwitchingPlanner
         var o = ctx.Options;
         yield return "load flow: backward/forward sweep per phase, constant-power loads (power factor 0.95 lagging where loadKvar is absent), segment impedance (r1 + j·x1)·length, switches ideal, every busbar at 1.0 pu";
         yield return $"cold-load factor {Words.Number(o.ColdLoadFactor)} on the load of every node that was without supply; voltage limit {Words.Number(o.VoltageLimitPu)} pu; ampacityA per line type; transformerRatedMva where given";
+        yield return "field indicators in the part without supply that the incident gives no field reading of are read before the first close, a default travel time after the start";
         yield return $"timeline: one sequence; crews leave at the start; remote operation {Words.Number(o.RemoteOperationTime.TotalMinutes)} min, manual {Words.Number(o.ManualOperationTime.TotalMinutes)} min after arrival, fuse replacement {Words.Number(o.FuseReplacementTime.TotalMinutes)} min";
         var defaulted = steps.Where(s => s.Device is { } d && !ctx.Grid.Switch(d).Remote && ctx.Grid.Switch(d).TravelTime is null)
             .Select(s => s.Device!.Value).Distinct().ToList();

@@ -49,14 +49,14 @@ public static class SyntheticGrid
             for (var k = 0; k < quota; k++)
             {
                 // Mostly extend the newest part (a trunk), sometimes branch from anywhere (laterals).
-                var attach = random.NextDouble() < 0.7
+                var attach = random.NextDouble() < 1 - options.LateralShare
                     ? feederNodes[Math.Max(0, feederNodes.Count - 1 - random.Next(3))]
                     : feederNodes[random.Next(feederNodes.Count)];
                 if (k > 0 && random.Next(options.SegmentsPerSwitch) == 0)
                 {
                     var beyond = new NodeId($"F{f + 1}-{feederNodes.Count}");
                     nodes.Add(new Node(beyond));
-                    var kind = random.Next(6) switch { 0 => SwitchKind.Disconnector, 1 => SwitchKind.Fuse, _ => SwitchKind.LoadBreakSwitch };
+                    var kind = Kind(random, options);
                     var remote = kind == SwitchKind.LoadBreakSwitch && random.Next(2) == 0;
                     switches.Add(new SwitchingDevice(new SwitchId($"SW-F{f + 1}-{switches.Count}"), attach, beyond, kind, false, remote,
                         remote ? null : TimeSpan.FromMinutes(10 + random.Next(50))));
@@ -66,7 +66,7 @@ public static class SyntheticGrid
 
                 var to = new NodeId($"F{f + 1}-{feederNodes.Count}");
                 var load = 20 + random.Next(380);
-                nodes.Add(new Node(to, load, Customers: 1 + (load / 8)));
+                nodes.Add(new Node(to, load * options.LoadScale, Customers: 1 + (load / 8)));
                 var cable = k < quota / 3 || random.Next(3) == 0;
                 var id = new SegmentId($"S{++segmentNumber}");
                 segments.Add(new Segment(id, attach, to, cable ? Cable.Id : Overhead.Id, Math.Round(0.2 + (random.NextDouble() * (cable ? 1.2 : 3.0)), 3)));
@@ -88,7 +88,47 @@ public static class SyntheticGrid
             switches.Add(new SwitchingDevice(new SwitchId($"NO-F{f + 1}-F{f + 2}"), a, b, SwitchKind.LoadBreakSwitch, true, true));
         }
 
+        AddExtraTies(random, options, feeders, switches);
         return Grid.Create($"Synthetic {options.Segments} segments (seed {options.Seed})", 50, [Cable, Overhead], substations, nodes, segments, switches, indicators);
+    }
+
+    /// <summary>Disconnector, fuse or load-break switch by the options' shares (the default shares draw as one in six each).</summary>
+    private static SwitchKind Kind(Random random, SyntheticGridOptions options)
+    {
+        if (options.DisconnectorShare == SyntheticGridOptions.DefaultKindShare && options.FuseShare == SyntheticGridOptions.DefaultKindShare)
+        {
+            return random.Next(6) switch { 0 => SwitchKind.Disconnector, 1 => SwitchKind.Fuse, _ => SwitchKind.LoadBreakSwitch };
+        }
+
+        var roll = random.NextDouble();
+        return roll < options.DisconnectorShare ? SwitchKind.Disconnector
+            : roll < options.DisconnectorShare + options.FuseShare ? SwitchKind.Fuse
+            : SwitchKind.LoadBreakSwitch;
+    }
+
+    /// <summary>Normally-open load-break ties from a node of each feeder (not its head) to a node of another feeder.</summary>
+    private static void AddExtraTies(Random random, SyntheticGridOptions options, List<List<NodeId>> feeders, List<SwitchingDevice> switches)
+    {
+        for (var f = 0; f < feeders.Count; f++)
+        {
+            var others = Enumerable.Range(0, feeders.Count)
+                .Where(g => g != f && (!options.ExtraTiesBetweenSubstations || g % options.Substations != f % options.Substations))
+                .ToList();
+            for (var t = 0; t < options.ExtraTiesPerFeeder && others.Count > 0 && feeders[f].Count > 1; t++)
+            {
+                var g = others[random.Next(others.Count)];
+                if (feeders[g].Count < 2)
+                {
+                    continue;
+                }
+
+                var a = feeders[f][1 + random.Next(feeders[f].Count - 1)];
+                var b = feeders[g][1 + random.Next(feeders[g].Count - 1)];
+                var remote = random.Next(2) == 0;
+                switches.Add(new SwitchingDevice(new SwitchId($"NO-F{f + 1}-{t + 1}"), a, b, SwitchKind.LoadBreakSwitch, true, remote,
+                    remote ? null : TimeSpan.FromMinutes(10 + random.Next(50))));
+            }
+        }
     }
 
     private static Grounding Grounding(GroundingScheme scheme) => scheme switch

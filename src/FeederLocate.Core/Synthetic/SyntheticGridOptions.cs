@@ -21,15 +21,57 @@ public sealed record SyntheticGridOptions(
     int SegmentsPerSwitch = 4,
     int Substations = 2)
 {
+    /// <summary>Default share of sectionalising devices that are disconnectors, and of those that are fuses (one in six each).</summary>
+    public const double DefaultKindShare = 1.0 / 6;
+
+    /// <summary>Share of new segments that branch off anywhere on the feeder (laterals) instead of extending its newest part, 0 to 1.</summary>
+    public double LateralShare { get; init; } = 0.3;
+
+    /// <summary>Normally-open ties per feeder besides the one joining the ends of neighbouring feeders, each from a node of the feeder to a node of another feeder, ≥ 0.</summary>
+    public int ExtraTiesPerFeeder { get; init; }
+
+    /// <summary>The extra ties join only feeders of different substations (needs at least two).</summary>
+    public bool ExtraTiesBetweenSubstations { get; init; }
+
+    /// <summary>Share of sectionalising devices that are disconnectors, 0 to 1.</summary>
+    public double DisconnectorShare { get; init; } = DefaultKindShare;
+
+    /// <summary>Share of sectionalising devices that are fuses, 0 to 1 (with <see cref="DisconnectorShare"/> at most 1).</summary>
+    public double FuseShare { get; init; } = DefaultKindShare;
+
+    /// <summary>Multiplier on every node's load, &gt; 0 (customers stay as drawn).</summary>
+    public double LoadScale { get; init; } = 1.0;
+
     public void Validate()
     {
         ArgumentOutOfRangeException.ThrowIfLessThan(Segments, 1);
         ArgumentOutOfRangeException.ThrowIfLessThan(SegmentsPerFeeder, 1);
         ArgumentOutOfRangeException.ThrowIfLessThan(SegmentsPerSwitch, 1);
         ArgumentOutOfRangeException.ThrowIfLessThan(Substations, 1);
+        ArgumentOutOfRangeException.ThrowIfNegative(ExtraTiesPerFeeder);
         if (!(IndicatorsPerSegment is >= 0 and <= 1))
         {
             throw new ArgumentOutOfRangeException(nameof(IndicatorsPerSegment), IndicatorsPerSegment, "share of segments with an indicator: 0 to 1");
+        }
+
+        if (!(LateralShare is >= 0 and <= 1))
+        {
+            throw new ArgumentOutOfRangeException(nameof(LateralShare), LateralShare, "share of segments that branch off: 0 to 1");
+        }
+
+        if (!(DisconnectorShare is >= 0 and <= 1) || !(FuseShare is >= 0 and <= 1) || DisconnectorShare + FuseShare > 1)
+        {
+            throw new ArgumentOutOfRangeException(nameof(DisconnectorShare), $"shares of disconnectors ({DisconnectorShare}) and fuses ({FuseShare}): each 0 to 1, together at most 1");
+        }
+
+        if (!(LoadScale is > 0 and <= 100))
+        {
+            throw new ArgumentOutOfRangeException(nameof(LoadScale), LoadScale, "load scale: above 0, at most 100");
+        }
+
+        if (ExtraTiesBetweenSubstations && Substations < 2)
+        {
+            throw new ArgumentOutOfRangeException(nameof(ExtraTiesBetweenSubstations), "ties between substations need at least two substations");
         }
     }
 }

@@ -59,7 +59,7 @@ public static class IncidentApi
                     ? Results.Json(RankingDocument.From(result), DocumentJson.Options)
                     : Results.UnprocessableEntity(ApiError.Single("cannot rank", "incident", Text(id), "switchStates", ranking.Problem ?? "no ranking"));
             }));
-        api.MapGet("/incidents/{id:long}/plan", (long id, ClaimsPrincipal user, IncidentBoard board, GridCatalog grids, IncidentAnalysis analysis) =>
+        api.MapGet("/incidents/{id:long}/plan", (long id, string? section, ClaimsPrincipal user, IncidentBoard board, GridCatalog grids, IncidentAnalysis analysis) =>
             WithIncidentAsync(board, user, id, async state =>
             {
                 if (grids.Find(state.GridName) is not { } grid)
@@ -67,10 +67,29 @@ public static class IncidentApi
                     return GridNotLoaded(id, state);
                 }
 
-                var (ranking, plan) = await analysis.AnalyseAsync(grid.Graph, state);
+                if (section is not null && !grid.Graph.Sections.Contains(new SectionId(section)))
+                {
+                    return Results.BadRequest(ApiError.Single("unknown section", "request", "query", "section", $"must name a section of grid \"{grid.Name}\", got \"{section}\""));
+                }
+
+                var ranking = await analysis.RankAsync(grid.Graph, state);
+                var plan = await analysis.PlanForAsync(grid.Graph, state, section is null ? null : new SectionId(section));
                 return plan.Plan is { } found && ranking.Result is { } result
                     ? Results.Json(PlanDocument.From(found, result), DocumentJson.Options)
                     : Results.UnprocessableEntity(ApiError.Single("cannot plan", "incident", Text(id), "plan", plan.Problem ?? "no plan"));
+            }));
+        api.MapGet("/incidents/{id:long}/plan/return", (long id, ClaimsPrincipal user, IncidentBoard board, GridCatalog grids, IncidentAnalysis analysis) =>
+            WithIncidentAsync(board, user, id, async state =>
+            {
+                if (grids.Find(state.GridName) is not { } grid)
+                {
+                    return GridNotLoaded(id, state);
+                }
+
+                var back = await analysis.ReturnAsync(grid.Graph, state);
+                return back.Plan is { } found
+                    ? Results.Json(ReturnPlanDocument.From(found), DocumentJson.Options)
+                    : Results.UnprocessableEntity(ApiError.Single("cannot plan the return", "incident", Text(id), "plan", back.Problem ?? "no plan"));
             }));
         api.MapPost("/incidents/{id:long}/outcome", PostOutcome).RequireAuthorization(AccessPolicies.ApiWrite);
         return app;

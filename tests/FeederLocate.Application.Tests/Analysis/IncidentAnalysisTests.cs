@@ -85,7 +85,7 @@ public sealed class IncidentAnalysisTests : IDisposable
         log.Append(id, new IndicationEntered(new Indication(new IndicatorId("FPI-A1-14"), IndicatorState.Fault, IndicationSource.Field, null)), Samples.Operator);
 
         _ranker.Hold();
-        var requests = new Task<RankingOutcome>[20];
+        var requests = new Task<RankingAttempt>[20];
         Parallel.For(0, requests.Length, i => requests[i] = analysis.RankAsync(graph, log.State(id)));
         var allWaiting = requests.All(r => !r.IsCompleted);
         _ranker.Release();

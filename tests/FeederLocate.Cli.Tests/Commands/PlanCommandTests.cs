@@ -32,6 +32,62 @@ public class PlanCommandTests
     }
 
     [Fact]
+    public void Plan_lists_lock_steps_and_field_reads_before_the_earths_and_closes()
+    {
+        var run = CliRun.Of("plan", SampleGrids.Path("solid"), Incident("solid-lg-trip-a1.incident.json"), "--json");
+
+        var actions = run.Json().GetProperty("steps").EnumerateArray().Select(s => s.GetProperty("action").GetString()).ToList();
+        Assert.Contains("lock", actions);
+        Assert.True(actions.LastIndexOf("lock") < actions.IndexOf("earth"));
+    }
+
+    [Fact]
+    public void Plan_return_gives_the_return_to_normal_with_clearance_first_and_the_cautions()
+    {
+        var run = CliRun.Of("plan", SampleGrids.Path("solid"), Incident("solid-lg-trip-a1.incident.json"), "--return", "--json");
+
+        Assert.Equal(0, run.ExitCode);
+        Assert.Equal(string.Empty, run.Error);
+        var json = run.Json();
+        var steps = json.GetProperty("steps").EnumerateArray().ToList();
+        var actions = steps.Select(s => s.GetProperty("action").GetString()).ToList();
+        Assert.Contains("removeEarth", actions);
+        Assert.Contains("unlock", actions);
+        Assert.True(actions.LastIndexOf("removeEarth") < actions.IndexOf("close"));
+
+        // The ties the plan closed open again (normally open points restored).
+        Assert.Contains(steps, s => s.GetProperty("action").GetString() == "open" && s.GetProperty("device").GetString() == "NO-A1-B1");
+        Assert.True(json.GetProperty("customerMinutesInterrupted").GetDouble() >= 0);
+        Assert.Contains(json.GetProperty("cautions").EnumerateArray(), c => c.GetString()!.Contains("Advice only", StringComparison.Ordinal));
+
+        var table = CliRun.Of("plan", SampleGrids.Path("solid"), Incident("solid-lg-trip-a1.incident.json"), "--return");
+        Assert.Equal(0, table.ExitCode);
+        Assert.Contains("Return to normal after the repair of SEC-S108", table.Out, StringComparison.Ordinal);
+        Assert.Contains("CAUTION: Advice only", table.Out, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Standing_earth_fault_with_a_split_ranking_is_searched_first_and_the_found_section_is_planned_with_section()
+    {
+        var run = CliRun.Of("plan", SampleGrids.Path("resonant"), Incident("resonant-standing-earth-fault-b1.incident.json"), "--json");
+
+        Assert.Equal(0, run.ExitCode);
+        var json = run.Json();
+        Assert.True(json.GetProperty("searchFirst").GetBoolean());
+        Assert.True(json.GetProperty("expectedCustomerInterruptions").GetDouble() > 0);
+        Assert.Contains("search first", json.GetProperty("steps")[0].GetProperty("reason").GetString(), StringComparison.Ordinal);
+
+        // The sample's fault is on S310 (sample-grid/README.md): once the search ends there, the plan for its section.
+        var found = CliRun.Of("plan", SampleGrids.Path("resonant"), Incident("resonant-standing-earth-fault-b1.incident.json"), "--section", "SEC-S310", "--json");
+        Assert.Equal(0, found.ExitCode);
+        Assert.Equal("SEC-S310", found.Json().GetProperty("isolatedSections")[0].GetString());
+
+        var unknown = CliRun.Of("plan", SampleGrids.Path("resonant"), Incident("resonant-standing-earth-fault-b1.incident.json"), "--section", "SEC-NOPE");
+        Assert.Equal(2, unknown.ExitCode);
+        Assert.Contains("SEC-NOPE", unknown.Error, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void Plan_table_prints_the_cautions_and_the_steps()
     {
         var run = CliRun.Of("plan", SampleGrids.Path("solid"), Incident("solid-lg-trip-a1.incident.json"));
@@ -52,9 +108,10 @@ public class PlanCommandTests
         Assert.Equal(0, run.ExitCode);
         var tests = run.Json().GetProperty("testOrder").EnumerateArray().ToList();
         Assert.NotEmpty(tests);
-        Assert.Equal("openWatchingU0", tests[0].GetProperty("action").GetString());
-        Assert.True(tests[0].TryGetProperty("ifU0Stays", out _));
-        Assert.True(tests[0].TryGetProperty("ifU0Collapses", out _));
+        Assert.Equal("neutralVoltage", tests[0].GetProperty("observe").GetString());
+        Assert.Equal("open", tests[0].GetProperty("steps")[0].GetProperty("action").GetString());
+        var results = tests[0].GetProperty("branches").EnumerateArray().Select(b => b.GetProperty("result").GetString()).ToList();
+        Assert.Equal(["u0Stays", "u0Collapses"], results);
     }
 
     [Fact]
@@ -65,12 +122,33 @@ public class PlanCommandTests
         Assert.Equal(0, run.ExitCode);
         var json = run.Json();
         var first = json.GetProperty("testOrder")[0];
-        Assert.Equal("trialClose", first.GetProperty("action").GetString());
-        Assert.Equal("CB-A2", first.GetProperty("device").GetString());
-        Assert.True(first.TryGetProperty("energises", out _));
-        Assert.True(first.TryGetProperty("ifHolds", out _));
-        Assert.True(first.TryGetProperty("ifTrips", out _));
+        Assert.Equal(1, first.GetProperty("entry").GetInt32());
+        Assert.Equal("trip", first.GetProperty("observe").GetString());
+        var steps = first.GetProperty("steps").EnumerateArray().ToList();
+        Assert.Equal("close", steps[^1].GetProperty("action").GetString());
+        Assert.Equal("CB-A2", steps[^1].GetProperty("device").GetString());
+        Assert.True(first.TryGetProperty("reenergisesSections", out _));
+        Assert.InRange(first.GetProperty("faultProbability").GetDouble(), 0, 1);
+        var branches = first.GetProperty("branches").EnumerateArray().ToList();
+        Assert.Equal(["holds", "trips"], branches.Select(b => b.GetProperty("result").GetString()));
+        Assert.True(branches[0].TryGetProperty("faultIn", out _));
+        Assert.True(branches[0].TryGetProperty("next", out _));
         Assert.InRange(json.GetProperty("expectedReenergisationsOntoFault").GetDouble(), 0, 1);
+    }
+
+    [Fact]
+    public void Transient_fault_plan_isolates_nothing_and_patrols()
+    {
+        var run = CliRun.Of("plan", SampleGrids.Path("solid"), Incident("solid-transient-a1.incident.json"), "--json");
+
+        Assert.Equal(0, run.ExitCode);
+        var json = run.Json();
+        Assert.Empty(json.GetProperty("isolatedSections").EnumerateArray());
+        var actions = json.GetProperty("steps").EnumerateArray().Select(s => s.GetProperty("action").GetString()).ToList();
+        Assert.DoesNotContain("open", actions);
+        Assert.DoesNotContain("close", actions);
+        Assert.Contains("patrol", actions);
+        Assert.Equal(0, json.GetProperty("unservedCustomers").GetInt32());
     }
 
     [Fact]

@@ -169,6 +169,26 @@ public sealed class FuzzFindingTests
         }
     }
 
+    [Fact]
+    public void Fault_prints_a_table_for_an_indicator_named_by_a_noncharacter()
+    {
+        // An id of U+FFFF (valid JSON, valid grid) made the table's width measure throw: exit 1, "internal error".
+        var text = File.ReadAllText(SampleGrids.Path("solid")).Replace("\"id\": \"FPI-A1-04\"", "\"id\": \"\\uFFFF\"", StringComparison.Ordinal);
+        Assert.Contains("\\uFFFF", text, StringComparison.Ordinal);
+        var path = TempFile("grid", text);
+        try
+        {
+            var run = CliRun.Of("fault", path, "--segment", "S101", "--type", "LG");
+
+            Assert.Equal(0, run.ExitCode);
+            Assert.Contains("\\uFFFF", run.Out, StringComparison.Ordinal);
+        }
+        finally
+        {
+            File.Delete(path);
+        }
+    }
+
     private static string TempFile(string kind, string text)
     {
         var path = Path.Combine(Path.GetTempPath(), $"feederlocate-finding-{Guid.NewGuid():N}.{kind}.json");

@@ -13,17 +13,15 @@ namespace FeederLocate.Core.Tests.Switching;
 /// </summary>
 public static class ExhaustiveRestoration
 {
-    public static (int Customers, IReadOnlyList<SwitchId> Closed) Best(Grid grid, Incident incident, SectionId isolated, double coldLoadFactor, double voltageLimitPu)
+    /// <summary>How many switches the search would try: those touching a node the trip left dead.</summary>
+    public static int Domain(Grid grid, Incident incident) => DomainOf(grid, incident, out _).Count;
+
+    public static (int Customers, IReadOnlyList<SwitchId> Closed) Best(Grid grid, Incident incident, SectionId isolated, double coldLoadFactor, double voltageLimitPu, int maxSwitches = 12)
     {
         var graph = new NetworkGraph(grid);
         var start = SwitchStates.AfterTrip(grid, incident);
-        var before = graph.Energise(SwitchStates.AtFaultTime(grid, incident));
-        var after = graph.Energise(start);
-        var deadAtStart = Enumerable.Range(0, grid.Nodes.Length).Where(v => before.IsEnergised(v) && !after.IsEnergised(v)).ToHashSet();
-        var domain = Enumerable.Range(0, grid.Switches.Length)
-            .Where(i => deadAtStart.Contains(grid.NodeIndex(grid.Switches[i].From)) || deadAtStart.Contains(grid.NodeIndex(grid.Switches[i].To)))
-            .ToList();
-        if (domain.Count > 12)
+        var domain = DomainOf(grid, incident, out var deadAtStart);
+        if (domain.Count > maxSwitches)
         {
             throw new ArgumentException($"{domain.Count} switches: too many for an exhaustive search", nameof(grid));
         }
@@ -54,7 +52,19 @@ public static class ExhaustiveRestoration
         return best;
     }
 
-    private static bool WithinLimits(Grid grid, EnergisedNetwork network, double[] factors, double voltageLimitPu)
+    private static List<int> DomainOf(Grid grid, Incident incident, out HashSet<int> deadAtStart)
+    {
+        var graph = new NetworkGraph(grid);
+        var before = graph.Energise(SwitchStates.AtFaultTime(grid, incident));
+        var after = graph.Energise(SwitchStates.AfterTrip(grid, incident));
+        var dead = Enumerable.Range(0, grid.Nodes.Length).Where(v => before.IsEnergised(v) && !after.IsEnergised(v)).ToHashSet();
+        deadAtStart = dead;
+        return [.. Enumerable.Range(0, grid.Switches.Length)
+            .Where(i => dead.Contains(grid.NodeIndex(grid.Switches[i].From)) || dead.Contains(grid.NodeIndex(grid.Switches[i].To)))];
+    }
+
+    /// <summary>Every live segment within its ampacity, every live node at or above the limit, every transformer within its rating.</summary>
+    public static bool WithinLimits(Grid grid, EnergisedNetwork network, double[] factors, double voltageLimitPu)
     {
         var flow = RadialLoadFlow.Solve(network, factors);
         if (!flow.Converged)

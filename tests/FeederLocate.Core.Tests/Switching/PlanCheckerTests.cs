@@ -75,4 +75,51 @@ public class PlanCheckerTests
         var plan = good with { Steps = [.. good.Steps.Where(s => s.Action != StepAction.Earth)] };
         Assert.Contains(Problems(grid, plan), p => p.Contains("no Earth step", StringComparison.Ordinal));
     }
+
+    [Fact]
+    public void An_isolation_point_left_unlocked_before_the_earths_is_caught()
+    {
+        var grid = SwitchingGrids.Fenwick();
+        var good = Good(grid);
+        Assert.Contains(good.Steps, s => s.Action == StepAction.Lock);
+        var plan = good with { Steps = [.. good.Steps.Where(s => s.Action != StepAction.Lock)] };
+        Assert.Contains(Problems(grid, plan), p => p.Contains("not locked, tagged or blocked before the first earth", StringComparison.Ordinal));
+    }
+
+    [Fact]
+    public void A_field_indicator_read_only_after_a_close_is_caught()
+    {
+        // The solid sample's trip without its field readings: FPI-A1-07 and FPI-A1-17 lie in the tripped feeder, unread.
+        var (graph, sample) = PlanSafetyTests.Load("solid-lg-trip-a1.incident.json", "solid");
+        var incident = sample with { Indications = [.. sample.Indications.Where(i => i.Source != IndicationSource.Field)] };
+        var plan = SwitchingPlanner.Plan(graph, incident, new SectionId("SEC-S108"));
+        var checker = new PlanChecker(graph.Grid);
+        var reads = plan.Steps.Where(s => s.Action == StepAction.Verify && s.Device is null).ToList();
+        Assert.NotEmpty(reads);
+        var firstClose = plan.Steps.First(s => s.Action == StepAction.Close);
+        Assert.All(reads, r => Assert.True(r.Order < firstClose.Order));
+        Assert.Empty(checker.Check(incident, plan, new SegmentId("S109"), standing: false).Problems);
+
+        // The same reads moved after every other step.
+        var rest = plan.Steps.Where(s => !reads.Contains(s)).ToList();
+        var moved = plan with { Steps = [.. rest.Concat(reads).Select((s, k) => s with { Order = k + 1, At = s.At > rest[^1].At ? s.At : rest[^1].At })] };
+        Assert.Contains(checker.Check(incident, moved, new SegmentId("S109"), standing: false).Problems,
+            p => p.Contains("is not read before the first close", StringComparison.Ordinal));
+    }
+
+    [Fact]
+    public void A_load_break_switch_closing_onto_a_suspect_in_the_test_order_is_caught()
+    {
+        // The impedance sample's split ranking: entry 1 leaves LB-A2-3, the entrance of suspect SEC-S209, open.
+        var (graph, incident) = PlanSafetyTests.Load("impedance-lg-trip-a2.incident.json", "impedance");
+        var plan = SwitchingPlanner.Plan(graph, incident, Core.Ranking.FaultRanking.Rank(graph, incident));
+        var checker = new PlanChecker(graph.Grid);
+        Assert.Empty(checker.CheckTestOrder(incident, plan, new SegmentId("S209"), standing: false).Problems);
+
+        var first = plan.TestOrder[0];
+        var extra = new SwitchingStep(first.Steps.Length + 1, StepAction.Close, new SwitchId("LB-A2-3"), null, [], first.Steps[^1].At, "test");
+        var bad = plan with { TestOrder = [first with { Steps = [.. first.Steps, extra] }, .. plan.TestOrder.Skip(1)] };
+        Assert.Contains(checker.CheckTestOrder(incident, bad, new SegmentId("S209"), standing: false).Problems,
+            p => p.Contains("LB-A2-3 closes onto a section that may hold the fault", StringComparison.Ordinal));
+    }
 }

@@ -7,7 +7,7 @@ using FeederLocate.Core.Topology;
 
 namespace FeederLocate.Core.Tests.Switching;
 
-public class PlanSafetyTests
+public class PlanSafetyTests(Xunit.Abstractions.ITestOutputHelper output)
 {
     private const int IncidentsPerGrid = 16;
 
@@ -26,6 +26,7 @@ public class PlanSafetyTests
         var restoring = 0;
         var wrongTop = 0;
         var reenergised = 0;
+        var testEntries = 0;
         for (var n = 0; n < IncidentsPerGrid; n++)
         {
             var simulated = simulator.Next(random, n);
@@ -38,6 +39,11 @@ public class PlanSafetyTests
                 var plan = SwitchingPlanner.Plan(graph, simulated.Incident, section, ranking);
                 var (problems, back) = checker.Check(simulated.Incident, plan, simulated.Segment, standing);
                 Assert.True(problems.Count == 0, $"incident {n} ({simulated.Type} on {simulated.Segment}), plan for {section}: {string.Join("; ", problems)}");
+                var tests = checker.CheckTestOrder(simulated.Incident, plan, simulated.Segment, standing);
+                Assert.True(tests.Problems.Count == 0, $"incident {n}, test order of the plan for {section}: {string.Join("; ", tests.Problems)}");
+                testEntries += tests.Entries;
+                var returnProblems = checker.CheckReturn(simulated.Incident, plan, SwitchingPlanner.PlanReturn(graph, simulated.Incident, plan));
+                Assert.True(returnProblems.Count == 0, $"incident {n}, return to normal after the plan for {section}: {string.Join("; ", returnProblems)}");
                 Assert.False(back && section == truth, $"incident {n}: the plan for the true section re-energised the fault");
                 reenergised += back ? 1 : 0;
                 restoring += plan.RestoredCustomers > 0 ? 1 : 0;
@@ -47,6 +53,7 @@ public class PlanSafetyTests
         // Only a plan made for the wrong section can put the fault back on.
         Assert.InRange(reenergised, 0, wrongTop);
         Assert.True(restoring >= IncidentsPerGrid / 2, $"only {restoring} plans restored anyone: the check would be vacuous");
+        output.WriteLine($"{scheme}: {testEntries} test entries replayed");
     }
 
     [Fact]

@@ -9,35 +9,12 @@ namespace FeederLocate.Core.Tests.Switching;
 
 public class TestOrderTests
 {
-    /// <summary>Follows a test order's branches with the fault at <paramref name="truth"/>; returns where it ends and how many entries it ran.</summary>
-    private static (IReadOnlyList<SectionId> FaultIn, int Entries, int Trips) Follow(SwitchingPlan plan, SectionId truth)
+    /// <summary>Replays the test order with the fault on <paramref name="truth"/> through the plan checker; returns where it ends, how many entries it ran, and the trips.</summary>
+    private static (IReadOnlyList<SectionId> FaultIn, int Entries, int Trips) Follow(Grid grid, Evidence.Incident incident, SwitchingPlan plan, SegmentId truth, bool standing)
     {
-        var entries = plan.TestOrder.ToDictionary(e => e.Order);
-        var current = plan.TestOrder[0];
-        var count = 0;
-        var trips = 0;
-        while (true)
-        {
-            count++;
-            Assert.True(count <= entries.Count, "the test order loops");
-            var inPart = current.Sections.Contains(truth);
-
-            // Trial close trips, and reclosing onto a standing fault brings U0 back, when the fault is in what they energise;
-            // opening collapses U0 when the fault is in what it cuts off.
-            var branch = inPart ? current.Second : current.First;
-            if (current.Action == TestAction.CloseWatchingU0)
-            {
-                branch = inPart ? current.First : current.Second;
-            }
-
-            trips += current.Action == TestAction.TrialClose && inPart ? 1 : 0;
-            if (branch.Next is not { } next)
-            {
-                return (branch.FaultIn, count, trips);
-            }
-
-            current = entries[next];
-        }
+        var (problems, faultIn, entries, trips) = new PlanChecker(grid).CheckTestOrder(incident, plan, truth, standing);
+        Assert.True(problems.Count == 0, string.Join("; ", problems));
+        return (faultIn, entries, trips);
     }
 
     [Fact]
@@ -50,10 +27,25 @@ public class TestOrderTests
         var plan = SwitchingPlanner.Plan(graph, incident, ranking);
 
         Assert.NotEmpty(plan.TestOrder);
-        Assert.All(plan.TestOrder, e => Assert.Equal(TestAction.TrialClose, e.Action));
-        Assert.All(plan.TestOrder, e => Assert.True(graph.Grid.Switch(e.Device).Kind is SwitchKind.Breaker or SwitchKind.Recloser));
+        Assert.All(plan.TestOrder, e => Assert.Equal(TestObservation.Trip, e.Observe));
+
+        // Every close that may re-energise a suspect is the tripped breaker's.
+        Assert.All(plan.TestOrder, e => Assert.Equal(incident.TrippedDevice, e.Steps[^1].Device));
+        Assert.All(plan.TestOrder, e => Assert.True(graph.Grid.Switch(e.Steps[^1].Device!.Value).Kind is SwitchKind.Breaker or SwitchKind.Recloser));
         Assert.Equal(plan.TestOrder.Sum(e => e.FaultProbability), plan.ExpectedReenergisationsOntoFault!.Value, 9);
         Assert.InRange(plan.ExpectedReenergisationsOntoFault!.Value, 0, 1);
+
+        // Each entry's own probability is the ranking's mass of what it re-energises, and its reason quotes that figure.
+        foreach (var e in plan.TestOrder)
+        {
+            var mass = ranking.Sections.Where(s => e.ReenergisesSections.Contains(s.Id)).Sum(s => s.Probability);
+            Assert.Equal(mass, e.FaultProbability, 9);
+            Assert.Contains($"probability {(e.FaultProbability * 100).ToString("0.#", System.Globalization.CultureInfo.InvariantCulture)} %", e.Reason, StringComparison.Ordinal);
+        }
+
+        // The most likely suspect is inferred, never re-energised, when nothing else lies beyond it.
+        Assert.DoesNotContain(plan.TestOrder, e => e.ReenergisesSections.Contains(ranking.Sections[0].Id));
+        Assert.Empty(new PlanChecker(graph.Grid).CheckTestOrder(incident, plan, graph.Sections[ranking.Sections[0].Id].Segments[0], standing: false).Problems);
 
         // The main steps never close a load-break switch onto the second suspect.
         var second = ranking.Sections[1].Id;
@@ -78,13 +70,13 @@ public class TestOrderTests
             var ranking = FaultRanking.Rank(graph, simulated.Incident);
             var plan = SwitchingPlanner.Plan(graph, simulated.Incident, ranking);
             var truth = graph.Sections.OfSegment(grid.SegmentIndex(simulated.Segment)).Id;
-            if (plan.TestOrder.IsDefaultOrEmpty || !plan.TestOrder.Any(e => e.Sections.Contains(truth) || e.First.FaultIn.Contains(truth) || e.Second.FaultIn.Contains(truth)))
+            if (plan.TestOrder.IsDefaultOrEmpty || !plan.TestOrder.Any(e => e.ReenergisesSections.Contains(truth) || e.Branches.Any(b => b.FaultIn.Contains(truth))))
             {
                 continue;
             }
 
             followed++;
-            var (faultIn, _, trips) = Follow(plan, truth);
+            var (faultIn, _, trips) = Follow(grid, simulated.Incident, plan, simulated.Segment, standing: false);
             Assert.Contains(truth, faultIn);
             Assert.InRange(trips, 0, 1);
         }
@@ -103,23 +95,24 @@ public class TestOrderTests
         Assert.Null(plan.ExpectedReenergisationsOntoFault);
         foreach (var e in plan.TestOrder)
         {
-            var kind = graph.Grid.Switch(e.Device).Kind;
-            if (e.Action == TestAction.OpenWatchingU0)
+            Assert.Equal(TestObservation.NeutralVoltage, e.Observe);
+            var last = e.Steps[^1];
+            var kind = graph.Grid.Switch(last.Device!.Value).Kind;
+            if (last.Action == StepAction.Open)
             {
                 // IEC 62271-103 earth-fault breaking duty: load-break switches may; disconnectors and fuses never open live.
-                Assert.True(kind is SwitchKind.Breaker or SwitchKind.Recloser or SwitchKind.LoadBreakSwitch, $"{e.Device} is a {kind}");
-                Assert.Equal("U0 stays", e.First.Result);
-                Assert.Equal("U0 collapses", e.Second.Result);
+                Assert.True(kind is SwitchKind.Breaker or SwitchKind.Recloser or SwitchKind.LoadBreakSwitch, $"{last.Device} is a {kind}");
+                Assert.Equal([TestResult.U0Stays, TestResult.U0Collapses], e.Branches.Select(b => b.Result));
             }
             else
             {
-                Assert.Equal(TestAction.CloseWatchingU0, e.Action);
-                Assert.True(kind is SwitchKind.Breaker or SwitchKind.Recloser, $"{e.Device} recloses onto the fault but is a {kind}");
+                Assert.Equal([TestResult.U0Returns, TestResult.U0StaysAbsent], e.Branches.Select(b => b.Result));
+                Assert.True(kind is SwitchKind.Breaker or SwitchKind.Recloser, $"{last.Device} recloses onto the fault but is a {kind}");
             }
         }
 
         var truth = graph.Sections.OfSegment(graph.Grid.SegmentIndex(new SegmentId("S310"))).Id;
-        var (faultIn, entries, _) = Follow(plan, truth);
+        var (faultIn, entries, _) = Follow(graph.Grid, incident, plan, new SegmentId("S310"), standing: true);
         Assert.Contains(truth, faultIn);
         Assert.InRange(entries, 1, 4);
     }
@@ -152,7 +145,7 @@ public class TestOrderTests
 
             searched++;
             Assert.NotEmpty(plan.TestOrder);
-            var (faultIn, entries, _) = Follow(plan, truth);
+            var (faultIn, entries, _) = Follow(grid, simulated.Incident, plan, simulated.Segment, standing: true);
             Assert.Contains(truth, faultIn);
             Assert.InRange(entries, 1, plan.TestOrder.Length);
         }

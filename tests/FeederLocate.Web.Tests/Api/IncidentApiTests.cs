@@ -49,6 +49,39 @@ public sealed class IncidentApiTests(ApiFixture app) : IClassFixture<ApiFixture>
     }
 
     [Fact]
+    public async Task The_return_to_normal_is_read_after_the_plan_with_its_clearance_and_cautions()
+    {
+        var id = await OpenSolidTrip();
+        await app.Client.PostAsync($"/api/incidents/{id}/indications", Json("""
+            [ { "indicator": "FPI-A1-04", "state": "fault", "source": "remote" },
+              { "indicator": "FPI-A1-11", "state": "forward", "source": "remote" },
+              { "indicator": "FPI-A1-14", "state": "none", "source": "remote" } ]
+            """));
+
+        var plan = await app.Client.GetFromJsonAsync<JsonElement>($"/api/incidents/{id}/plan");
+        var back = await app.Client.GetFromJsonAsync<JsonElement>($"/api/incidents/{id}/plan/return");
+
+        Assert.Contains(plan.GetProperty("steps").EnumerateArray(), s => s.GetProperty("action").GetString() == "lock");
+        var actions = back.GetProperty("steps").EnumerateArray().Select(s => s.GetProperty("action").GetString()).ToList();
+        Assert.Contains("removeEarth", actions);
+        Assert.True(actions.LastIndexOf("unlock") < actions.IndexOf("close"));
+        Assert.Contains(back.GetProperty("cautions").EnumerateArray(), c => c.GetString()!.Contains("Advice only", StringComparison.Ordinal));
+    }
+
+    [Fact]
+    public async Task The_plan_for_a_chosen_section_is_given_and_an_unknown_section_is_a_400()
+    {
+        var id = await OpenSolidTrip();
+
+        var plan = await app.Client.GetFromJsonAsync<JsonElement>($"/api/incidents/{id}/plan?section=SEC-S108");
+        var unknown = await app.Client.GetAsync($"/api/incidents/{id}/plan?section=SEC-NOPE");
+
+        Assert.Equal("SEC-S108", plan.GetProperty("isolatedSections")[0].GetString());
+        Assert.Equal(HttpStatusCode.BadRequest, unknown.StatusCode);
+        Assert.Contains("SEC-NOPE", await unknown.Content.ReadAsStringAsync(), StringComparison.Ordinal);
+    }
+
+    [Fact]
     public async Task A_bad_indication_is_a_400_naming_the_element_and_field_and_nothing_is_kept()
     {
         var id = await OpenSolidTrip();

@@ -22,7 +22,7 @@ public class ProtectionPanelTests : ComponentTest
             .Add(c => c.Fuses, [new SwitchId("FU-A1-6")])
             .Add(c => c.Current, incident)
             .Add(c => c.Now, ReportedAt.AddMinutes(30))
-            .Add(c => c.OnMeasurement, record));
+            .Add(c => c.OnProtection, record));
 
     [Fact]
     public void The_panel_raises_fault_time_reclosing_fuse_and_relay_as_protection_events()

@@ -152,6 +152,40 @@ public class RecordAndPlanPanelTests : ComponentTest
         Assert.Contains("done by ana (operator) at 08:05:00", cut.Find($"[data-testid='done-{first.Order}']").TextContent, StringComparison.Ordinal);
     }
 
+    [Fact]
+    public void Return_steps_offer_a_button_then_show_the_return_order_with_its_cautions()
+    {
+        var ranking = FaultRanking.Rank(_grid.Graph, Incidents.Trip());
+        var plan = FeederLocate.Core.Switching.SwitchingPlanner.Plan(_grid.Graph, Incidents.Trip(), ranking);
+        var back = FeederLocate.Core.Switching.SwitchingPlanner.PlanReturn(_grid.Graph, Incidents.Trip(), plan);
+        var asked = false;
+
+        var before = Render<ReturnSteps>(p => p.Add(c => c.OnAsk, () => asked = true));
+        before.Find("[data-testid='show-return']").Click();
+        Assert.True(asked);
+
+        var after = Render<ReturnSteps>(p => p.Add(c => c.Attempt, new FeederLocate.Application.Analysis.ReturnAttempt(back, null)));
+        Assert.Equal(back.Steps.Length, after.FindAll("ol.steps > li").Count);
+        Assert.Contains("removeEarth", after.Markup, StringComparison.Ordinal);
+        Assert.Contains("Advice only", after.Find("[data-testid='return-steps']").TextContent, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void A_standing_earth_fault_with_a_split_ranking_shows_the_search_first()
+    {
+        var grid = SampleGrids.Grid("resonant");
+        var graph = new FeederLocate.Core.Topology.NetworkGraph(grid);
+        var incident = FeederLocate.Core.Formats.IncidentReader.Parse(
+            File.ReadAllText(SampleGrids.IncidentPath("resonant-standing-earth-fault-b1")), grid).ValueOrThrow();
+        var plan = FeederLocate.Core.Switching.SwitchingPlanner.Plan(graph, incident, FaultRanking.Rank(graph, incident));
+        Assert.True(plan.SearchFirst);
+
+        var cut = Render<PlanSteps>(p => p.Add(c => c.Plan, plan));
+
+        Assert.Contains("Search first", cut.Find("[data-testid='search-first']").TextContent, StringComparison.Ordinal);
+        Assert.Contains("Earth-fault search (first)", cut.Markup, StringComparison.Ordinal);
+    }
+
     private static class Incidents
     {
         /// <summary>CB-A1 tripped on an earth fault; the indicators on A1 saw it up to FPI-A1-11, not beyond.</summary>

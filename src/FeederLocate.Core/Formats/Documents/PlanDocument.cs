@@ -18,13 +18,12 @@ public sealed record PlanDocument(
     PlanDocument.FinalStateEntry FinalState,
     PlanDocument.RankingEntry Ranking,
     IReadOnlyList<string> Cautions,
-    IReadOnlyList<string> Approximations)
+    IReadOnlyList<string> Approximations,
+    bool SearchFirst,
+    double? ExpectedCustomerInterruptions)
 {
     public static PlanDocument From(SwitchingPlan plan, RankingResult ranking) => new(
-        [.. plan.Steps.Select(s => new StepEntry(
-            s.Order, ActionName(s.Action), s.Device?.Value, s.Node?.Value,
-            s.Segments.IsDefaultOrEmpty ? null : [.. s.Segments.Select(x => x.Value)],
-            Math.Round(s.At.TotalMinutes, 2), s.Reason))],
+        [.. plan.Steps.Select(Step)],
         [.. plan.IsolatedSections.Select(s => s.Value)],
         [.. plan.Sections.Select(s => new SectionEntry(s.Id.Value, [.. s.Segments.Select(x => x.Value)]))],
         plan.ColdLoadFactor,
@@ -40,61 +39,58 @@ public sealed record PlanDocument(
         new RankingEntry(ranking.Consistent, ranking.Sections.IsDefaultOrEmpty ? null : ranking.Sections[0].Id.Value,
             ranking.Sections.IsDefaultOrEmpty ? 0 : ranking.Sections[0].Probability),
         plan.Cautions,
-        plan.Approximations);
+        plan.Approximations,
+        plan.SearchFirst,
+        plan.ExpectedCustomerInterruptions is { } e ? Math.Round(e, 2) : null);
 
     /// <summary>The contract's action names: camelCase of the core's.</summary>
-    public static string ActionName(StepAction action) => action switch
-    {
-        StepAction.ProveDead => "proveDead",
-        _ => action.ToString().ToLowerInvariant(),
-    };
+    public static string ActionName(StepAction action) => char.ToLowerInvariant(action.ToString()[0]) + action.ToString()[1..];
 
-    public static string ActionName(TestAction action) => action switch
-    {
-        TestAction.TrialClose => "trialClose",
-        TestAction.OpenWatchingU0 => "openWatchingU0",
-        _ => "closeWatchingU0",
-    };
+    /// <summary>The contract's observation names.</summary>
+    public static string ObservationName(TestObservation observation) => observation == TestObservation.Trip ? "trip" : "neutralVoltage";
+
+    /// <summary>The contract's result names: camelCase of the core's.</summary>
+    public static string ResultName(TestResult result) => char.ToLowerInvariant(result.ToString()[0]) + result.ToString()[1..];
+
+    internal static StepEntry Step(SwitchingStep s) => new(
+        s.Order, ActionName(s.Action), s.Device?.Value, s.Node?.Value,
+        s.Segments.IsDefaultOrEmpty ? null : [.. s.Segments.Select(x => x.Value)],
+        Math.Round(s.At.TotalMinutes, 2), s.Reason);
 
     public sealed record StepEntry(int Order, string Action, string? Device, string? Node, IReadOnlyList<string>? Segments, double AtMinutes, string Reason);
 
     public sealed record SectionEntry(string Id, IReadOnlyList<string> Segments);
 
-    public sealed record BranchEntry(string Result, string Then, int? Next, IReadOnlyList<string>? FaultIn)
+    /// <summary>One branch: the result, where the fault lies then, and the entry to go on with (written as null where the test order ends).</summary>
+    public sealed record BranchEntry(
+        string Result,
+        IReadOnlyList<string> FaultIn,
+        [property: System.Text.Json.Serialization.JsonIgnore(Condition = System.Text.Json.Serialization.JsonIgnoreCondition.Never)] int? Next,
+        string Then)
     {
-        public static BranchEntry From(TestBranch b) =>
-            new(b.Result, b.Then, b.Next, b.FaultIn.IsDefaultOrEmpty ? null : [.. b.FaultIn.Select(s => s.Value)]);
+        public static BranchEntry From(TestBranch b) => new(ResultName(b.Result), [.. b.FaultIn.Select(s => s.Value)], b.Next, b.Then);
     }
 
-    /// <summary>One test entry; the branch fields present depend on the action.</summary>
+    /// <summary>One test entry as the contract gives it: steps of the plan's shape, the observation, the branches.</summary>
     public sealed record TestEntryDocument(
-        int Order,
-        string Action,
-        string Device,
-        IReadOnlyList<string> Before,
-        IReadOnlyList<string>? Energises,
-        IReadOnlyList<string>? CutsOff,
+        int Entry,
+        IReadOnlyList<StepEntry> Steps,
+        string Observe,
+        IReadOnlyList<string> ReenergisesSections,
+        IReadOnlyList<string>? CutsOffSections,
         double FaultProbability,
-        BranchEntry? IfHolds,
-        BranchEntry? IfTrips,
-        BranchEntry? IfU0Stays,
-        BranchEntry? IfU0Collapses,
-        BranchEntry? IfU0Returns,
-        BranchEntry? IfU0StaysAbsent,
+        IReadOnlyList<BranchEntry> Branches,
         string Reason)
     {
-        public static TestEntryDocument From(TestEntry e)
-        {
-            var sections = e.Sections.Select(s => s.Value).ToList();
-            var first = BranchEntry.From(e.First);
-            var second = BranchEntry.From(e.Second);
-            return e.Action switch
-            {
-                TestAction.TrialClose => new(e.Order, ActionName(e.Action), e.Device.Value, e.Before, sections, null, e.FaultProbability, first, second, null, null, null, null, e.Reason),
-                TestAction.OpenWatchingU0 => new(e.Order, ActionName(e.Action), e.Device.Value, e.Before, null, sections, e.FaultProbability, null, null, first, second, null, null, e.Reason),
-                _ => new(e.Order, ActionName(e.Action), e.Device.Value, e.Before, sections, null, e.FaultProbability, null, null, null, null, first, second, e.Reason),
-            };
-        }
+        public static TestEntryDocument From(TestEntry e) => new(
+            e.Entry,
+            [.. e.Steps.Select(Step)],
+            ObservationName(e.Observe),
+            [.. e.ReenergisesSections.Select(s => s.Value)],
+            e.CutsOffSections.IsDefaultOrEmpty ? null : [.. e.CutsOffSections.Select(s => s.Value)],
+            e.FaultProbability,
+            [.. e.Branches.Select(BranchEntry.From)],
+            e.Reason);
     }
 
     public sealed record FinalStateEntry(double MinimumVoltagePu, string? MinimumVoltageNode, double MaximumLoadingPercent, string? MaximumLoadingSegment);

@@ -50,14 +50,46 @@ internal static class StepAssembly
                 $"send a crew to {ctx.Grid.Switches[device].Id} (manual; about {Words.Number(travel.TotalMinutes)} min to reach it)"));
         }
 
+        var unread = UnreadFieldIndicators(ctx);
+        if (unread.Count > 0 && operations.Any(o => o.Action == StepAction.Close))
+        {
+            steps.Add(Step(ctx, steps, StepAction.Dispatch, null, null, [.. unread.Select(i => i.Segment).Distinct()], TimeSpan.Zero,
+                $"send a crew to read the field indicators {Words.List(unread.Select(i => i.Id))} (about {Words.Number(ctx.Options.DefaultTravelTime.TotalMinutes)} min to reach them)"));
+        }
+
         var timeline = new Timeline(ctx.Grid, ctx.Options);
         foreach (var op in operations)
         {
+            if (op.Action == StepAction.Close && unread.Count > 0)
+            {
+                // Voltage back on a part can reset or change its flags: they are read first.
+                timeline.WaitUntil(ctx.Options.DefaultTravelTime);
+                var arrival = timeline.Now;
+                foreach (var i in unread)
+                {
+                    steps.Add(Step(ctx, steps, StepAction.Verify, null, i.Node, [i.Segment], arrival,
+                        $"read the field indicator {i.Id} on {i.Segment} at {i.Node} before anything is re-energised (voltage back can reset its flag)"));
+                }
+
+                unread.Clear();
+            }
+
             steps.Add(Step(ctx, steps, op.Action, op.Device, op.Node, [], timeline.Place(op.Action, op.Device), op.Reason));
         }
 
         CrewSteps(ctx, isolation, steps, timeline.Now);
         return steps;
+    }
+
+    /// <summary>Indicators read in the field, in the part that lost supply, that the incident gives no field reading of.</summary>
+    private static List<Model.Indicator> UnreadFieldIndicators(PlanningContext ctx)
+    {
+        var read = ctx.Incident.Indications.Where(i => i.Source == IndicationSource.Field).Select(i => i.Indicator).ToHashSet();
+        return [.. ctx.Grid.Indicators.Where(i =>
+        {
+            var v = ctx.Grid.NodeIndex(i.Node);
+            return !i.Remote && !read.Contains(i.Id) && ctx.Affected[v] && !ctx.StartNetwork.IsEnergised(v);
+        })];
     }
 
     /// <summary>The candidate's operations with the reason of its last close written out.</summary>
@@ -74,6 +106,14 @@ internal static class StepAssembly
         var segments = zone.Segments.Select(i => ctx.Grid.Segments[i].Id).ToImmutableArray();
         steps.Add(Step(ctx, steps, StepAction.Dispatch, null, null, segments, at, $"send a crew to the isolated section {ctx.Suspect}"));
         steps.Add(Step(ctx, steps, StepAction.Patrol, null, null, segments, at, $"patrol the suspect segments {Words.List(segments)} to find the fault"));
+        foreach (var (device, _) in isolation.Points)
+        {
+            var d = ctx.Grid.Switches[device];
+            steps.Add(Step(ctx, steps, StepAction.Lock, device, null, [], at, d.Remote
+                ? $"block the remote control of {d.Id} and tag it open: it stays open while the crew works (before the earths go on)"
+                : $"lock {d.Id} open and tag it: it stays open while the crew works (before the earths go on)"));
+        }
+
         foreach (var (device, node) in isolation.Points)
         {
             steps.Add(Step(ctx, steps, StepAction.ProveDead, device, ctx.Grid.Nodes[node].Id, [], at,

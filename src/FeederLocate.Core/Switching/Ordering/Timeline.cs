@@ -7,9 +7,9 @@ namespace FeederLocate.Core.Switching;
 /// time; each step starts when the one before it is done and its device can be reached, and takes the
 /// operation time (remote, manual, or fuse replacement).
 /// </summary>
-internal sealed class Timeline(Grid grid, SwitchingOptions options)
+internal sealed class Timeline(Grid grid, SwitchingOptions options, TimeSpan start = default)
 {
-    public TimeSpan Now { get; private set; } = TimeSpan.Zero;
+    public TimeSpan Now { get; private set; } = start;
 
     public TimeSpan Travel(int device)
     {
@@ -23,6 +23,9 @@ internal sealed class Timeline(Grid grid, SwitchingOptions options)
         StepAction.Verify => TimeSpan.Zero,
         _ => grid.Switches[device].Remote ? options.RemoteOperationTime : options.ManualOperationTime,
     };
+
+    /// <summary>Nothing on the timeline starts before <paramref name="moment"/>.</summary>
+    public void WaitUntil(TimeSpan moment) => Now = Now > moment ? Now : moment;
 
     /// <summary>Places one step on the timeline; returns its completion time.</summary>
     public TimeSpan Place(StepAction action, int device)

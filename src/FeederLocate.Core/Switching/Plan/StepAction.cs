@@ -12,7 +12,16 @@ public enum StepAction
     Patrol,
     Verify,
     Replace,
+
+    /// <summary>Lock, tag or block the remote control of an open isolation point so that it stays open while the crew works.</summary>
+    Lock,
     ProveDead,
     Earth,
     Permit,
+
+    /// <summary>Return to normal: take an earth off after the work.</summary>
+    RemoveEarth,
+
+    /// <summary>Return to normal: take a lock, tag or remote-control block off.</summary>
+    Unlock,
 }

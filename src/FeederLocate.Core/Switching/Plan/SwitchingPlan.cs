@@ -27,7 +27,17 @@ public sealed record SwitchingPlan(
     ImmutableArray<TestEntry> TestOrder,
     double? ExpectedReenergisationsOntoFault,
     ImmutableArray<string> Cautions,
-    ImmutableArray<string> Approximations);
+    ImmutableArray<string> Approximations)
+{
+    /// <summary>
+    /// A standing earth fault with a split ranking: the earth-fault search of <see cref="TestOrder"/> comes first, and
+    /// <see cref="Steps"/> (for the most likely section) are carried out only if the search ends at it.
+    /// </summary>
+    public bool SearchFirst { get; init; }
+
+    /// <summary>Of the standing earth-fault search: the expected number of customer interruptions it causes; null without one.</summary>
+    public double? ExpectedCustomerInterruptions { get; init; }
+}
 
 /// <summary>A section the plan names, with its segments.</summary>
 public sealed record PlanSection(SectionId Id, ImmutableArray<SegmentId> Segments);

@@ -13,11 +13,13 @@ namespace FeederLocate.Core.Switching;
 internal static class CandidateSearch
 {
     public static ImmutableArray<Candidate> Find(
-        PlanningContext ctx, IsolationResult isolation, DeadArea dead, SupplyLimits limits, IReadOnlySet<int> avoidZones, ICollection<string> notes)
+        PlanningContext ctx, IsolationResult isolation, DeadArea dead, SupplyLimits limits, IReadOnlySet<int> avoidZones, ICollection<string> notes,
+        IReadOnlySet<int> enumerateEvery, ISet<int> wholeOnly)
     {
         var grid = ctx.Grid;
         var zones = ctx.Zones;
         var found = ImmutableArray.CreateBuilder<Candidate>();
+        var flow = new RestorationFlow(ctx, dead.Network, limits);
         for (var source = 0; source < grid.Switches.Length; source++)
         {
             if (dead.States.IsClosed(source))
@@ -53,53 +55,31 @@ internal static class CandidateSearch
             var normal = ctx.FaultTimeNetwork.FeedingEdgeOf(deadNode) == new EdgeRef(EdgeKind.Switch, source);
             var makesOntoFault = DeviceRules.CanMakeOntoFault(grid.Switches[procedure[^1].Device].Kind);
             var tree = new ZoneTree(ctx, dead.States, root, z => dead.Lost[z]);
-            var sets = tree.Groups(ctx.Options.MaxCandidatesPerSource, out var sampled);
-            if (sampled)
+            var enumeration = new GroupEnumeration(tree, z => makesOntoFault || !avoidZones.Contains(z), ctx.Options.MaxCandidatesPerSource, enumerateEvery.Contains(source), group =>
             {
-                notes.Add($"{device.Id}: more than {ctx.Options.MaxCandidatesPerSource} groups of zones could be picked up; a sample was checked (whole island, each subtree cut off, and depth limits)");
-            }
-
-            var infeasible = new List<HashSet<int>>();
-            foreach (var set in sets.OrderBy(s => s.Count))
-            {
-                if (!makesOntoFault && set.Any(avoidZones.Contains))
-                {
-                    continue;
-                }
-
-                // Load only grows with the group (radial, constant power), so a superset of a failing group fails too.
-                if (infeasible.Any(f => f.IsSubsetOf(set)))
-                {
-                    continue;
-                }
-
-                var cuts = tree.CutsOf(set);
-                var states = dead.States;
-                foreach (var cut in cuts)
-                {
-                    states = states.With(grid.Switches[cut].Id, SwitchPosition.Open);
-                }
-
-                states = states.With(device.Id, SwitchPosition.Closed);
-                var network = ctx.TryEnergise(states);
-                if (network is null)
-                {
-                    continue;
-                }
-
-                var verdict = limits.Check(network, new HashSet<int> { donor }, [head]);
+                var cuts = tree.CutsOf(group);
+                var verdict = flow.Check(head, source, liveNode, deadNode, group);
                 if (!verdict.Holds)
                 {
-                    infeasible.Add(set);
-                    continue;
+                    return null;
                 }
 
                 var operations = cuts.Select(c => new PlannedOperation(StepAction.Open, c,
                         $"open {grid.Switches[c].Id} (dead): {device.Id} picks up only the part on its side"))
                     .Concat(procedure)
                     .ToImmutableArray();
-                found.Add(new Candidate(source, donor, head, dead.IslandOf[root], [.. set.Order()], [.. cuts],
-                    set.Sum(z => zones.All[z].Customers), set.Sum(z => zones.All[z].Nodes.Length), normal, operations, verdict));
+                return new Candidate(source, donor, head, dead.IslandOf[root], [.. group.Order()], [.. cuts],
+                    group.Sum(z => zones.All[z].Customers), group.Sum(z => zones.All[z].Nodes.Length), normal, operations, verdict);
+            });
+            found.AddRange(enumeration.Run());
+            if (enumeration.WholeOnly)
+            {
+                wholeOnly.Add(source);
+            }
+
+            if (enumeration.Capped)
+            {
+                notes.Add($"{device.Id}: more than {ctx.Options.MaxCandidatesPerSource} groups of zones could be picked up; the largest ones found first were checked, not every group");
             }
         }
 

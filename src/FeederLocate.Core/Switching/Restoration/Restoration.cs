@@ -5,24 +5,30 @@ using FeederLocate.Core.Topology;
 namespace FeederLocate.Core.Switching;
 
 /// <summary>
-/// Restoration of the healthy dead area: candidates per restoring switch, CP-SAT picks disjoint ones,
-/// and the combination is verified by one load flow; a combination that breaks a limit on a donor
-/// substation is forbidden (a cut) and the selection repeated.
+/// Restoration of the healthy dead area: candidates per restoring switch, an exact branch and bound
+/// picks disjoint ones, and the combination is verified by one load flow; a combination that breaks a
+/// limit on a donor substation is forbidden (with every set holding it) and the selection repeated.
 /// </summary>
 internal static class Restoration
 {
-    private const int MaxRounds = 25;
+    private const int MaxRounds = 200;
 
     public static RestorationResult Plan(PlanningContext ctx, IsolationResult isolation, DeadArea dead, SupplyLimits limits, IReadOnlySet<int> avoidZones, ICollection<string> notes)
     {
-        var candidates = CandidateSearch.Find(ctx, isolation, dead, limits, avoidZones, notes);
-        var forbidden = new List<IReadOnlyList<int>>();
+        var every = new HashSet<int>();
+        var wholeOnly = new HashSet<int>();
+        var candidates = CandidateSearch.Find(ctx, isolation, dead, limits, avoidZones, notes, every, wholeOnly);
+
+        // Combinations found to break a limit together, by restoring switch and zones (they outlive a new enumeration).
+        var forbidden = new List<List<(int Source, string Zones)>>();
         for (var round = 0; round < MaxRounds; round++)
         {
-            var chosen = TieSelection.Select(candidates, forbidden, ctx.Options.SolverTimeLimit, out var optimal);
-            if (!optimal)
+            var index = candidates.Select((c, i) => (Key(c), i)).ToDictionary(p => p.Item1, p => p.i);
+            var chosen = TieSelection.Select(ctx.Zones, candidates, [.. forbidden.Select(f => (IReadOnlyList<int>)[.. f.Select(k => index[k])])],
+                ctx.Options.MaxSelectionBranches, out var complete);
+            if (!complete)
             {
-                notes.Add("the selection of restoring switches stopped at its time limit: the best combination found is used");
+                notes.Add($"the selection of restoring switches stopped after {ctx.Options.MaxSelectionBranches} branches: the best combination found by then is used");
             }
 
             var (network, verdicts) = Combine(ctx, dead, limits, chosen);
@@ -32,13 +38,24 @@ internal static class Restoration
                 return new RestorationResult([.. chosen], network is null ? null : limits.Check(network));
             }
 
-            var together = candidates.Select((c, i) => (c, i)).Where(p => chosen.Contains(p.c) && failing.Contains(p.c.Donor)).Select(p => p.i).ToList();
-            forbidden.Add(together);
+            var together = chosen.Where(c => failing.Contains(c.Donor)).ToList();
+            forbidden.Add([.. together.Select(Key)]);
+
+            // A source that gave only its whole group now needs its smaller groups too.
+            var widen = together.Select(c => c.Source).Where(wholeOnly.Contains).ToList();
+            if (widen.Count > 0)
+            {
+                every.UnionWith(widen);
+                wholeOnly.ExceptWith(widen);
+                candidates = CandidateSearch.Find(ctx, isolation, dead, limits, avoidZones, notes, every, wholeOnly);
+            }
         }
 
         notes.Add("no combination of restoring switches passed the combined load flow within the rounds allowed: nothing is restored through ties");
         return new RestorationResult([], null);
     }
+
+    private static (int Source, string Zones) Key(Candidate c) => (c.Source, string.Join(',', c.Zones));
 
     /// <summary>The state with every chosen group restored, and the verdict per donor substation.</summary>
     private static (EnergisedNetwork? Network, Dictionary<int, SupplyVerdict> Verdicts) Combine(

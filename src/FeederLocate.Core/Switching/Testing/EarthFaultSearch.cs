@@ -5,8 +5,10 @@ namespace FeederLocate.Core.Switching;
 
 /// <summary>
 /// The sectioning search for a standing earth fault on an isolated or resonant network, watching the
-/// neutral voltage U0: bisection by probability mass over the feeder tree. Each entry opens the device
-/// that cuts off about half of the remaining probability (breakers, reclosers and load-break switches may
+/// neutral voltage U0. Each entry opens the device that cuts off the most probability per customer it
+/// interrupts (the order of least expected customer interruptions for a sequence of tests each ending
+/// the search with its probability: the ratio rule of sequential search), or with
+/// <see cref="EarthFaultSearchOrder.Bisection"/> the one that cuts off about half of it (breakers, reclosers and load-break switches may
 /// break the earth-fault current, IEC 62271-103); U0 staying means the fault is not beyond it, so it closes
 /// again onto a healthy part; U0 collapsing means it is. A load-break switch never closes onto the faulted
 /// part, so there the search ends; a breaker or recloser may reclose onto it after a dead split, and the
@@ -14,8 +16,12 @@ namespace FeederLocate.Core.Switching;
 /// </summary>
 internal static class EarthFaultSearch
 {
-    public static ImmutableArray<TestEntry> Build(PlanningContext ctx, ICollection<string> notes)
+    public static ImmutableArray<TestEntry> Build(PlanningContext ctx, ICollection<string> notes) => Build(ctx, notes, out _);
+
+    /// <param name="expectedInterruptions">Σ over entries of the probability of reaching it times the customers it interrupts.</param>
+    public static ImmutableArray<TestEntry> Build(PlanningContext ctx, ICollection<string> notes, out double expectedInterruptions)
     {
+        expectedInterruptions = 0;
         if (ctx.SuspectSubstation < 0)
         {
             return [];
@@ -32,8 +38,9 @@ internal static class EarthFaultSearch
         }
 
         var search = new Search(ctx, tree);
-        search.Live([.. tree.Zones], depth: 0);
-        return [.. search.Entries.OrderBy(e => e.Order)];
+        search.Live([.. tree.Zones], depth: 0, [], TimeSpan.Zero);
+        expectedInterruptions = search.ExpectedInterruptions / Math.Max(1e-300, tree.Zones.Sum(z => ctx.ProbabilityOfZone[z]));
+        return [.. search.Entries.OrderBy(e => e.Entry)];
     }
 
     private sealed class Search(PlanningContext ctx, ZoneTree tree)
@@ -48,10 +55,16 @@ internal static class EarthFaultSearch
 
         public List<TestEntry> Entries { get; } = [];
 
+        /// <summary>Σ probability mass of reaching an entry × customers it interrupts (divided by the total mass by the caller).</summary>
+        public double ExpectedInterruptions { get; private set; }
+
         private Grid Grid => ctx.Grid;
 
-        /// <summary>The search on the live part <paramref name="region"/> (holding the fault); returns its first entry, or null when it ends.</summary>
-        public int? Live(HashSet<int> region, int depth)
+        /// <summary>
+        /// The search on the live part <paramref name="region"/> (holding the fault), after <paramref name="prefix"/>;
+        /// returns its first entry, or null when it ends.
+        /// </summary>
+        public int? Live(HashSet<int> region, int depth, IReadOnlyList<(StepAction, int, string)> prefix, TimeSpan start)
         {
             var cut = Bisect(region, z => DeviceRules.CanOpenLive(Grid.Switches[tree.ParentSwitch(z)].Kind, ThroughCurrent.StandingEarthFault));
             if (cut < 0 || depth >= MaxDepth || Entries.Count >= ctx.Options.MaxSearchEntries)
@@ -62,22 +75,27 @@ internal static class EarthFaultSearch
             var order = _next++;
             var beyond = Beyond(region, cut);
             var rest = region.Except(beyond).ToHashSet();
-            var device = Grid.Switches[tree.ParentSwitch(cut)];
-            var staysNext = Live(rest, depth + 1);
-            var stays = new TestBranch("U0 stays",
-                $"the fault is not beyond {device.Id}: close {device.Id} again (onto a healthy part){(staysNext is { } s ? $"; go on with entry {s}" : string.Empty)}",
-                staysNext, staysNext is null ? Suspects(rest) : []);
-            int? collapsesNext = DeviceRules.CanMakeOntoFault(device.Kind) ? Dead(beyond, cut, depth + 1) : null;
-            var collapses = new TestBranch("U0 collapses",
-                $"the fault is beyond {device.Id}: leave it open{(collapsesNext is { } c ? $"; go on with entry {c}" : $"; patrol {Words.List(Suspects(beyond))} and follow the plan for the section found")}",
-                collapsesNext, collapsesNext is null ? Suspects(beyond) : []);
-            Entries.Add(new TestEntry(order, TestAction.OpenWatchingU0, device.Id, [], Sections(beyond), Mass(beyond), stays, collapses,
+            ExpectedInterruptions += Mass(region) * Customers(beyond);
+            var index = tree.ParentSwitch(cut);
+            var device = Grid.Switches[index];
+            var steps = new EntrySteps(ctx, start).AddRange(prefix)
+                .Add(StepAction.Open, index, $"open {device.Id} ({Words.Kind(device.Kind)}: it may break the standing earth-fault current) and watch U0");
+            var staysNext = Live(rest, depth + 1, [(StepAction.Close, index, $"close {device.Id} again: U0 stayed, so the part beyond it is healthy")], steps.End);
+            var stays = new TestBranch(TestResult.U0Stays, Suspects(rest), staysNext,
+                $"the fault is not beyond {device.Id}: close {device.Id} again (onto a healthy part){(staysNext is { } s ? $"; go on with entry {s}" : $"; patrol {Words.List(Suspects(rest))} and follow the plan for the section found")}");
+            int? collapsesNext = DeviceRules.CanMakeOntoFault(device.Kind) ? Dead(beyond, cut, depth + 1, [], steps.End) : null;
+            var collapses = new TestBranch(TestResult.U0Collapses, Suspects(beyond), collapsesNext,
+                $"the fault is beyond {device.Id}: leave it open{(collapsesNext is { } c ? $"; go on with entry {c}" : $"; patrol {Words.List(Suspects(beyond))} and follow the plan for the section found")}");
+            Entries.Add(new TestEntry(order, steps.ToImmutable(), TestObservation.NeutralVoltage, [], Sections(beyond), Mass(beyond), [stays, collapses],
                 $"open {device.Id} and watch U0: cuts off {Words.Probability(Share(beyond, region))} of the remaining probability ({Customers(beyond)} customers briefly)"));
             return order;
         }
 
-        /// <summary>The search on the dead part <paramref name="region"/> below <paramref name="gate"/>'s zone, which a breaker or recloser recloses.</summary>
-        private int? Dead(HashSet<int> region, int gate, int depth)
+        /// <summary>
+        /// The search on the dead part <paramref name="region"/> below <paramref name="gate"/>'s zone, which a breaker or
+        /// recloser recloses, after <paramref name="prefix"/>; returns its first entry, or null when it ends.
+        /// </summary>
+        private int? Dead(HashSet<int> region, int gate, int depth, IReadOnlyList<(StepAction, int, string)> prefix, TimeSpan start)
         {
             var cut = Bisect(region, _ => true);
             if (cut < 0 || depth >= MaxDepth || Entries.Count >= ctx.Options.MaxSearchEntries)
@@ -88,18 +106,24 @@ internal static class EarthFaultSearch
             var order = _next++;
             var beyond = Beyond(region, cut);
             var energised = region.Except(beyond).ToHashSet();
-            var closer = Grid.Switches[tree.ParentSwitch(gate)];
-            var split = Grid.Switches[tree.ParentSwitch(cut)];
-            var returnsNext = Dead(energised, gate, depth + 1);
-            var returns = new TestBranch("U0 returns",
-                $"the fault lies in what {closer.Id} energised: open {closer.Id} again{(returnsNext is { } r ? $"; go on with entry {r}" : $"; patrol {Words.List(Suspects(energised))}")}",
-                returnsNext, returnsNext is null ? Suspects(energised) : []);
-            int? absentNext = DeviceRules.CanMakeOntoFault(split.Kind) ? Dead(beyond, cut, depth + 1) : null;
-            var absent = new TestBranch("U0 stays absent",
-                $"the fault lies beyond {split.Id}: leave it open; the part {closer.Id} energised stays supplied{(absentNext is { } a ? $"; go on with entry {a}" : $"; patrol {Words.List(Suspects(beyond))}")}",
-                absentNext, absentNext is null ? Suspects(beyond) : []);
-            Entries.Add(new TestEntry(order, TestAction.CloseWatchingU0, closer.Id, [$"open {split.Id} (dead)"], Sections(energised), Mass(energised), returns, absent,
-                $"reclose {closer.Id} ({Words.Kind(closer.Kind)}: it may close onto the earth fault) and watch U0: energises {Words.Probability(Share(energised, region))} of the remaining probability"));
+
+            // U0 returning means the closer opens again: what it energised is interrupted a second time.
+            ExpectedInterruptions += Mass(energised) * Customers(energised);
+            var closerIndex = tree.ParentSwitch(gate);
+            var splitIndex = tree.ParentSwitch(cut);
+            var closer = Grid.Switches[closerIndex];
+            var split = Grid.Switches[splitIndex];
+            var steps = new EntrySteps(ctx, start).AddRange(prefix)
+                .Add(StepAction.Open, splitIndex, $"open {split.Id} (dead): splits the part beyond {closer.Id}")
+                .Add(StepAction.Close, closerIndex, $"reclose {closer.Id} ({Words.Kind(closer.Kind)}: it may close onto the earth fault) and watch U0");
+            var returnsNext = Dead(energised, gate, depth + 1, [(StepAction.Open, closerIndex, $"open {closer.Id} again: U0 returned, the fault lies in what it energised")], steps.End);
+            var returns = new TestBranch(TestResult.U0Returns, Suspects(energised), returnsNext,
+                $"the fault lies in what {closer.Id} energised: open {closer.Id} again{(returnsNext is { } r ? $"; go on with entry {r}" : $"; patrol {Words.List(Suspects(energised))}")}");
+            int? absentNext = DeviceRules.CanMakeOntoFault(split.Kind) ? Dead(beyond, cut, depth + 1, [], steps.End) : null;
+            var absent = new TestBranch(TestResult.U0StaysAbsent, Suspects(beyond), absentNext,
+                $"the fault lies beyond {split.Id}: leave it open; the part {closer.Id} energised stays supplied{(absentNext is { } a ? $"; go on with entry {a}" : $"; patrol {Words.List(Suspects(beyond))}")}");
+            Entries.Add(new TestEntry(order, steps.ToImmutable(), TestObservation.NeutralVoltage, Sections(energised), [], Mass(energised), [returns, absent],
+                $"reclose {closer.Id} and watch U0: energises {Words.Probability(Share(energised, region))} of the remaining probability"));
             return order;
         }
 
@@ -125,7 +149,10 @@ internal static class EarthFaultSearch
                 }
 
                 var manual = Grid.Switches[parent].Remote ? 0 : ManualPenalty;
-                var key = (Math.Abs((m / total) - 0.5) + manual, manual, Customers(Beyond(region, z)));
+                var customers = Customers(Beyond(region, z));
+                var key = ctx.Options.EarthFaultSearchOrder == EarthFaultSearchOrder.Bisection
+                    ? (Math.Abs((m / total) - 0.5) + manual, manual, customers)
+                    : ((customers + 1.0) / m * total, manual, customers);
                 if (key.CompareTo(bestKey) < 0)
                 {
                     bestKey = key;

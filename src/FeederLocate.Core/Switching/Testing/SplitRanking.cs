@@ -38,5 +38,28 @@ internal static class SplitRanking
         return suspects.Count >= 2 ? suspects : [];
     }
 
+    /// <summary>The zones of the fewest top sections holding <see cref="SwitchingOptions.SplitMassShare"/> of the probability: where the fault may still be.</summary>
+    public static HashSet<int> StillSuspect(PlanningContext ctx)
+    {
+        var zones = new HashSet<int>();
+        var mass = 0.0;
+        foreach (var s in ctx.Ranking?.Sections ?? [])
+        {
+            if (mass >= ctx.Options.SplitMassShare || s.Probability <= 0)
+            {
+                break;
+            }
+
+            if (ctx.Zones.TryZoneOf(s.Id, out var zone))
+            {
+                zones.Add(zone);
+            }
+
+            mass += s.Probability;
+        }
+
+        return zones;
+    }
+
     public static bool Contains(IEnumerable<Suspect> suspects, SectionId id) => suspects.Any(s => s.Section == id);
 }

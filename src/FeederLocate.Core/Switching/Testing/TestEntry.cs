@@ -4,21 +4,21 @@ using FeederLocate.Core.Model;
 namespace FeederLocate.Core.Switching;
 
 /// <summary>
-/// One entry of a test order: trial closures for a split ranking, or the sectioning search for a
-/// standing earth fault while watching U0.
+/// One entry of a test order: switching steps of the same shape as the plan's, then an observation,
+/// then a branch per result. Entries run from the incident's start state; each entry's steps follow
+/// the steps of the entry whose branch named it.
 /// </summary>
-/// <param name="Before">Operations on dead devices to make first, in order, in words (e.g. "open DS-2").</param>
-/// <param name="Sections">The sections the action energises (trial close) or cuts off (open watching U0).</param>
-/// <param name="FaultProbability">Probability, from the ranking, that the fault lies in <paramref name="Sections"/>.</param>
-/// <param name="First">Branch after the first result: holds / U0 stays / U0 returns.</param>
-/// <param name="Second">Branch after the other result: trips / U0 collapses / U0 stays absent.</param>
+/// <param name="Entry">Its number; branches name the next one by it.</param>
+/// <param name="Steps">Open and close steps in order (numbered from 1 within the entry; <see cref="SwitchingStep.At"/> counts from the start of the incident along the branches that lead here).</param>
+/// <param name="ReenergisesSections">The suspect sections this entry puts voltage on (a trial closure, or a reclosure onto the dead part of a standing earth-fault search).</param>
+/// <param name="FaultProbability">This entry's own probability, from the ranking, that it re-energises onto the fault (trial closure, reclosure) or that the part it cuts off holds it (an open watching U0).</param>
+/// <param name="Reason">Why this entry, in words.</param>
 public sealed record TestEntry(
-    int Order,
-    TestAction Action,
-    SwitchId Device,
-    ImmutableArray<string> Before,
-    ImmutableArray<SectionId> Sections,
+    int Entry,
+    ImmutableArray<SwitchingStep> Steps,
+    TestObservation Observe,
+    ImmutableArray<SectionId> ReenergisesSections,
+    ImmutableArray<SectionId> CutsOffSections,
     double FaultProbability,
-    TestBranch First,
-    TestBranch Second,
+    ImmutableArray<TestBranch> Branches,
     string Reason);

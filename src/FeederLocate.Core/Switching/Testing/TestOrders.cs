@@ -5,9 +5,10 @@ namespace FeederLocate.Core.Switching;
 /// <summary>Which test order a plan carries: the standing earth-fault search, trial closures for a split ranking, or none.</summary>
 internal static class TestOrders
 {
-    public static ImmutableArray<TestEntry> For(PlanningContext ctx, IReadOnlyList<Suspect> suspects, ICollection<string> notes, out double? expectedReenergisations)
+    public static ImmutableArray<TestEntry> For(PlanningContext ctx, IReadOnlyList<Suspect> suspects, ICollection<string> notes, out double? expectedReenergisations, out double? expectedInterruptions)
     {
         expectedReenergisations = null;
+        expectedInterruptions = null;
         if (ctx.Ranking is null)
         {
             return [];
@@ -15,7 +16,9 @@ internal static class TestOrders
 
         if (ctx.StandingEarthFault)
         {
-            return EarthFaultSearch.Build(ctx, notes);
+            var search = EarthFaultSearch.Build(ctx, notes, out var expected);
+            expectedInterruptions = search.IsEmpty ? null : expected;
+            return search;
         }
 
         return suspects.Count >= 2 ? TrialClosures.Build(ctx, suspects, notes, out expectedReenergisations) : [];
