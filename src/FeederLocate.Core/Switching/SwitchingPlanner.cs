@@ -50,6 +50,40 @@ public static class SwitchingPlanner
         ArgumentNullException.ThrowIfNull(incident);
         options ??= SwitchingOptions.Default;
         options.Validate();
+        if (options.ColdLoadFactor is { } fixedFactor)
+        {
+            return PlanAt(graph, incident, isolate, ranking, options) with
+            {
+                ColdLoadBasis = $"cold-load factor {Words.Number(fixedFactor)} as set, whatever the outage's duration",
+            };
+        }
+
+        // The outage runs from the fault to each restoring step: the factor is read from the curve at the plan's last
+        // switching step (every customer picked up gets it, which is on the safe side), planned again once if that
+        // moment asks for more than the start did.
+        var sinceFault = incident.FaultAt is { } f && f < incident.ReportedAt ? incident.ReportedAt - f : TimeSpan.Zero;
+        var factor = options.ColdLoadAt(sinceFault);
+        var plan = PlanAt(graph, incident, isolate, ranking, options with { ColdLoadFactor = factor });
+        var outage = sinceFault + LastSwitching(plan);
+        if (options.ColdLoadAt(outage) > factor + 1e-9)
+        {
+            factor = options.ColdLoadAt(outage);
+            plan = PlanAt(graph, incident, isolate, ranking, options with { ColdLoadFactor = factor });
+        }
+
+        var curve = Words.List(options.ColdLoadCurve.Select(p => $"{Words.Number(p.Outage.TotalMinutes)} min → {Words.Number(p.Factor)}"));
+        return plan with
+        {
+            ColdLoadBasis = $"cold-load factor {Words.Number(factor)} from the curve ({curve}; linear between points) at an outage of {Words.Number(Math.Round(outage.TotalMinutes))} min, from the fault{(incident.FaultAt is null ? " (reportedAt, no faultAt given)" : string.Empty)} to the last switching step",
+            ColdLoadCurve = options.ColdLoadCurve,
+        };
+    }
+
+    private static TimeSpan LastSwitching(SwitchingPlan plan) =>
+        plan.Steps.Where(s => s.ChangesNetwork).Select(s => s.At).DefaultIfEmpty(TimeSpan.Zero).Max();
+
+    private static SwitchingPlan PlanAt(NetworkGraph graph, Incident incident, SectionId isolate, RankingResult? ranking, SwitchingOptions options)
+    {
         var ctx = new PlanningContext(graph, incident, isolate, ranking, options);
         var notes = new List<string>();
 
@@ -59,7 +93,7 @@ public static class SwitchingPlanner
         for (var v = 0; v < factors.Length; v++)
         {
             var cut = ctx.Affected[v] && (!ctx.StartNetwork.IsEnergised(v) || !isolation.AfterNetwork.IsEnergised(v));
-            factors[v] = cut ? options.ColdLoadFactor : 1.0;
+            factors[v] = cut ? options.ColdLoadFactor!.Value : 1.0;
         }
 
         var limits = new SupplyLimits(options.VoltageLimitPu, factors);
@@ -103,7 +137,7 @@ public static class SwitchingPlanner
             [.. steps],
             [isolate],
             [.. named.Distinct().Select(id => new PlanSection(id, graph.Sections[id].Segments))],
-            options.ColdLoadFactor,
+            options.ColdLoadFactor!.Value,
             options.VoltageLimitPu,
             replay.Restored,
             replay.Unserved,
@@ -159,7 +193,7 @@ public static class SwitchingPlanner
     {
         var o = ctx.Options;
         yield return "load flow: backward/forward sweep per phase, constant-power loads (power factor 0.95 lagging where loadKvar is absent), segment impedance (r1 + j·x1)·length, switches ideal, every busbar at 1.0 pu";
-        yield return $"cold-load factor {Words.Number(o.ColdLoadFactor)} on the load of every node that was without supply; voltage limit {Words.Number(o.VoltageLimitPu)} pu; ampacityA per line type; transformerRatedMva where given";
+        yield return $"cold-load factor {Words.Number(o.ColdLoadFactor!.Value)} on the load of every node that was without supply; voltage limit {Words.Number(o.VoltageLimitPu)} pu; ampacityA per line type; transformerRatedMva where given";
         yield return "field indicators in the part without supply that the incident gives no field reading of are read before the first close, a default travel time after the start";
         yield return $"timeline: one sequence; crews leave at the start; remote operation {Words.Number(o.RemoteOperationTime.TotalMinutes)} min, manual {Words.Number(o.ManualOperationTime.TotalMinutes)} min after arrival, fuse replacement {Words.Number(o.FuseReplacementTime.TotalMinutes)} min";
         var defaulted = steps.Where(s => s.Device is { } d && !ctx.Grid.Switch(d).Remote && ctx.Grid.Switch(d).TravelMinutes is null)

@@ -26,7 +26,9 @@ public class PlanCommandTests
         Assert.Contains("permit", actions);
         Assert.All(steps.Where(s => s.GetProperty("action").GetString() is "open" or "close"), s => Assert.True(s.TryGetProperty("device", out _)));
         Assert.Equal("SEC-S108", json.GetProperty("isolatedSections")[0].GetString());
-        Assert.Equal(2.0, json.GetProperty("coldLoadFactor").GetDouble());
+        Assert.InRange(json.GetProperty("coldLoadFactor").GetDouble(), 1.5, 2.5);
+        Assert.Contains("from the curve", json.GetProperty("coldLoadBasis").GetString(), StringComparison.Ordinal);
+        Assert.Equal(4, json.GetProperty("coldLoadCurve").GetArrayLength());
         Assert.Equal(0.9, json.GetProperty("voltageLimitPu").GetDouble());
         Assert.Contains(json.GetProperty("cautions").EnumerateArray(), c => c.GetString()!.Contains("prove dead", StringComparison.OrdinalIgnoreCase));
     }

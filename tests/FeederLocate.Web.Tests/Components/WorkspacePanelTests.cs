@@ -133,6 +133,7 @@ public class RecordAndPlanPanelTests : ComponentTest
         Assert.True(cut.Find($"[data-testid='tick-{first.Order}']").HasAttribute("disabled"));
         Assert.Contains(plan.Steps, s => s.Action == FeederLocate.Core.Switching.StepAction.ProveDead);
         Assert.Contains("prove dead", cut.Find("[data-testid='plan-steps']").TextContent, StringComparison.OrdinalIgnoreCase);
+        Assert.Contains("from the curve", cut.Find("[data-testid='cold-load']").TextContent, StringComparison.Ordinal);
         cut.Find($"[data-testid='tick-{plan.Steps[1].Order}']").Change(true);
         Assert.Equal(plan.Steps[1], ticked);
     }
