@@ -90,6 +90,17 @@ public class PlanCommandTests
     }
 
     [Fact]
+    public void Cross_country_fault_isolates_both_sections_of_the_pair()
+    {
+        var run = CliRun.Of("plan", CliRun.Sample("isolated"), Incident("isolated-cross-country-a1-a2.incident.json"), "--json");
+
+        Assert.Equal(0, run.ExitCode);
+        var json = run.Json();
+        Assert.Equal(["SEC-S105", "SEC-S206"], json.GetProperty("isolatedSections").EnumerateArray().Select(s => s.GetString()!).Order());
+        Assert.Contains(json.GetProperty("approximations").EnumerateArray(), a => a.GetString()!.Contains("cross-country", StringComparison.Ordinal));
+    }
+
+    [Fact]
     public void Plan_table_prints_the_cautions_and_the_steps()
     {
         var run = CliRun.Of("plan", CliRun.Sample("solid"), Incident("solid-lg-trip-a1.incident.json"));

@@ -186,6 +186,19 @@ public class RecordAndPlanPanelTests : ComponentTest
         Assert.Contains("Earth-fault search (first)", cut.Markup, StringComparison.Ordinal);
     }
 
+    [Fact]
+    public void A_cross_country_plan_names_both_isolated_sections()
+    {
+        var isolated = TestGrids.Sample("isolated");
+        var incident = FeederLocate.Core.Formats.IncidentReader.Parse(
+            File.ReadAllText(Path.Combine(TestGrids.Root, "sample-grid", "incidents", "isolated-cross-country-a1-a2.incident.json")), isolated.Grid).ValueOrThrow();
+        var plan = FeederLocate.Core.Switching.SwitchingPlanner.Plan(isolated.Graph, incident, FaultRanking.Rank(isolated.Graph, incident));
+
+        var cut = Render<PlanSteps>(p => p.Add(c => c.Plan, plan));
+
+        Assert.Contains("Isolate SEC-S105, SEC-S206", cut.Find("[data-testid='plan-steps']").TextContent, StringComparison.Ordinal);
+    }
+
     private static class Incidents
     {
         /// <summary>CB-A1 tripped on an earth fault; the indicators on A1 saw it up to FPI-A1-11, not beyond.</summary>
