@@ -18,10 +18,9 @@ internal static class PlanCommand
     {
         var grid = CliOptions.Grid();
         var incident = new Argument<string>("INCIDENT") { Description = "Incident file (feederlocate-incident/1)" };
-        var coldLoad = new Option<double>("--cold-load-factor")
+        var coldLoad = new Option<double?>("--cold-load-factor")
         {
-            Description = "Multiplier on the load of every node that was without supply (1 to 10)",
-            DefaultValueFactory = _ => SwitchingOptions.Default.ColdLoadFactor,
+            Description = "A fixed multiplier on the load of every node that was without supply (1 to 10); without it, read from the cold-load curve at the outage's duration",
         };
         var voltage = new Option<double>("--voltage-limit")
         {
@@ -47,12 +46,12 @@ internal static class PlanCommand
         return command;
     }
 
-    private static int Run(CliConsole console, string gridPath, string incidentPath, double coldLoadFactor, double voltageLimitPu, bool returnToNormal, string? section, string? dbPath, bool json)
+    private static int Run(CliConsole console, string gridPath, string incidentPath, double? coldLoadFactor, double voltageLimitPu, bool returnToNormal, string? section, string? dbPath, bool json)
     {
         var errors = new List<string>();
-        if (!(coldLoadFactor is >= 1 and <= 10))
+        if (coldLoadFactor is { } factor && !(factor is >= 1 and <= 10))
         {
-            errors.Add($"error: --cold-load-factor must be between 1 and 10, got {coldLoadFactor.ToString(CultureInfo.InvariantCulture)}");
+            errors.Add($"error: --cold-load-factor must be between 1 and 10, got {factor.ToString(CultureInfo.InvariantCulture)}");
         }
 
         if (!(voltageLimitPu is >= 0.5 and <= 1))
@@ -150,7 +149,7 @@ internal static class PlanCommand
         summary.AddRow("customer minutes interrupted (IEEE 1366 CMI)", d.CustomerMinutesInterrupted.ToString("0", CultureInfo.InvariantCulture));
         summary.AddRow("lowest voltage, final state", $"{d.FinalState.MinimumVoltagePu:F3} pu at {d.FinalState.MinimumVoltageNode} (limit {d.VoltageLimitPu:F2} pu)");
         summary.AddRow("highest loading, final state", $"{d.FinalState.MaximumLoadingPercent:F0} % on {d.FinalState.MaximumLoadingSegment}");
-        summary.AddRow("cold-load factor", d.ColdLoadFactor.ToString(CultureInfo.InvariantCulture));
+        summary.AddRow("cold-load factor", d.ColdLoadBasis ?? d.ColdLoadFactor.ToString(CultureInfo.InvariantCulture));
         if (d.ExpectedCustomerInterruptions is { } ci)
         {
             summary.AddRow("expected customer interruptions (earth-fault search)", ci.ToString("0.0", CultureInfo.InvariantCulture));

@@ -1,3 +1,5 @@
+using System.Collections.Immutable;
+
 namespace FeederLocate.Core.Switching;
 
 /// <summary>
@@ -6,8 +8,46 @@ namespace FeederLocate.Core.Switching;
 /// </summary>
 public sealed record SwitchingOptions
 {
-    /// <summary>Cold-load pickup multiplier on the load of every node that was without supply, ≥ 1 (about 2 for the first minutes: common practice).</summary>
-    public double ColdLoadFactor { get; init; } = 2.0;
+    /// <summary>
+    /// A fixed cold-load pickup multiplier on the load of every node that was without supply, 1 to 10; null (the
+    /// default) takes it from <see cref="ColdLoadCurve"/> at the outage's duration.
+    /// </summary>
+    public double? ColdLoadFactor { get; init; }
+
+    /// <summary>
+    /// Cold-load pickup multiplier over the outage's duration, linear between points and flat beyond the last:
+    /// about 1.5 after a short outage rising to 2 or more after hours (common practice; the points from memory).
+    /// </summary>
+    public ImmutableArray<ColdLoadPoint> ColdLoadCurve { get; init; } =
+    [
+        new(TimeSpan.Zero, 1.5), new(TimeSpan.FromMinutes(30), 1.6), new(TimeSpan.FromHours(2), 2.0), new(TimeSpan.FromHours(6), 2.5),
+    ];
+
+    /// <summary>The cold-load multiplier after an outage of <paramref name="outage"/>.</summary>
+    public double ColdLoadAt(TimeSpan outage)
+    {
+        if (ColdLoadFactor is { } fixedFactor)
+        {
+            return fixedFactor;
+        }
+
+        var points = ColdLoadCurve;
+        if (outage <= points[0].Outage)
+        {
+            return points[0].Factor;
+        }
+
+        for (var k = 1; k < points.Length; k++)
+        {
+            if (outage <= points[k].Outage)
+            {
+                var share = (outage - points[k - 1].Outage) / (points[k].Outage - points[k - 1].Outage);
+                return points[k - 1].Factor + (share * (points[k].Factor - points[k - 1].Factor));
+            }
+        }
+
+        return points[^1].Factor;
+    }
 
     /// <summary>Lowest voltage allowed at any live node in the final state, pu of nominal, 0.5 to 1 (0.90 pu: common practice for MV).</summary>
     public double VoltageLimitPu { get; init; } = 0.90;
@@ -50,9 +90,15 @@ public sealed record SwitchingOptions
     /// <summary>Throws <see cref="ArgumentOutOfRangeException"/> naming the setting and its valid range.</summary>
     public void Validate()
     {
-        if (!(ColdLoadFactor is >= 1 and <= 10))
+        if (ColdLoadFactor is { } factor && !(factor is >= 1 and <= 10))
         {
             throw new ArgumentOutOfRangeException(nameof(ColdLoadFactor), ColdLoadFactor, "cold-load factor must be within 1 to 10");
+        }
+
+        if (ColdLoadCurve.IsDefaultOrEmpty || ColdLoadCurve.Any(p => !(p.Factor is >= 1 and <= 10) || p.Outage < TimeSpan.Zero)
+            || ColdLoadCurve.Zip(ColdLoadCurve.Skip(1)).Any(p => p.Second.Outage <= p.First.Outage))
+        {
+            throw new ArgumentOutOfRangeException(nameof(ColdLoadCurve), "the cold-load curve needs at least one point, outages ≥ 0 in increasing order and factors within 1 to 10");
         }
 
         if (!(VoltageLimitPu is >= 0.5 and <= 1))
@@ -93,3 +139,6 @@ public enum EarthFaultSearchOrder
     /// <summary>About half of the remaining probability each time: fewest entries.</summary>
     Bisection,
 }
+
+/// <summary>One point of the cold-load curve: after an outage of <paramref name="Outage"/>, the load is <paramref name="Factor"/> times normal at pickup.</summary>
+public readonly record struct ColdLoadPoint(TimeSpan Outage, double Factor);

@@ -38,29 +38,101 @@ public static class SwitchingPlanner
             return TransientFaultPlan.Build(new PlanningContext(graph, incident, ranking.Sections[0].Id, ranking, options), reclosing);
         }
 
+        ArgumentNullException.ThrowIfNull(graph);
+        if (CrossCountryPair(graph, ranking) is { } pair)
+        {
+            return Plan(graph, incident!, pair.First, ranking, options, pair.Second);
+        }
+
         return Plan(graph, incident!, ranking.Sections[0].Id, ranking, options);
+    }
+
+    /// <summary>
+    /// The sections of the ranking's top cross-country pair when pairs are its best explanation (together more
+    /// probable than any single fault) and the two lie in different sections; null otherwise.
+    /// </summary>
+    private static (SectionId First, SectionId Second, double Probability)? CrossCountryPair(NetworkGraph graph, RankingResult ranking)
+    {
+        if (ranking.CrossCountry.IsDefaultOrEmpty || ranking.CrossCountry.Sum(p => p.Probability) <= 0.5)
+        {
+            return null;
+        }
+
+        var top = ranking.CrossCountry.MaxBy(p => p.Probability)!;
+        var a = graph.Sections.OfSegment(graph.Grid.SegmentIndex(top.First)).Id;
+        var b = graph.Sections.OfSegment(graph.Grid.SegmentIndex(top.Second)).Id;
+        return a == b ? null : (a, b, top.Probability);
     }
 
     /// <summary>
     /// Plans assuming the fault lies in <paramref name="isolate"/>. With a <paramref name="ranking"/>, a
     /// test order is added where it is split or the fault is a standing earth fault.
     /// </summary>
-    public static SwitchingPlan Plan(NetworkGraph graph, Incident incident, SectionId isolate, RankingResult? ranking = null, SwitchingOptions? options = null)
+    /// <param name="alsoIsolate">A second section isolated with the first (the other fault of a cross-country pair); never re-energised.</param>
+    public static SwitchingPlan Plan(NetworkGraph graph, Incident incident, SectionId isolate, RankingResult? ranking = null, SwitchingOptions? options = null, SectionId? alsoIsolate = null)
     {
         ArgumentNullException.ThrowIfNull(graph);
         ArgumentNullException.ThrowIfNull(incident);
         options ??= SwitchingOptions.Default;
         options.Validate();
+        if (options.ColdLoadFactor is { } fixedFactor)
+        {
+            return PlanAt(graph, incident, isolate, ranking, options, alsoIsolate) with
+            {
+                ColdLoadBasis = $"cold-load factor {Words.Number(fixedFactor)} as set, whatever the outage's duration",
+            };
+        }
+
+        // The outage runs from the fault to each restoring step: the factor is read from the curve at the plan's last
+        // switching step (every customer picked up gets it, which is on the safe side), planned again once if that
+        // moment asks for more than the start did.
+        var sinceFault = incident.FaultAt is { } f && f < incident.ReportedAt ? incident.ReportedAt - f : TimeSpan.Zero;
+        var factor = options.ColdLoadAt(sinceFault);
+        var plan = PlanAt(graph, incident, isolate, ranking, options with { ColdLoadFactor = factor }, alsoIsolate);
+        var outage = sinceFault + LastSwitching(plan);
+        if (options.ColdLoadAt(outage) > factor + 1e-9)
+        {
+            factor = options.ColdLoadAt(outage);
+            plan = PlanAt(graph, incident, isolate, ranking, options with { ColdLoadFactor = factor }, alsoIsolate);
+        }
+
+        var curve = Words.List(options.ColdLoadCurve.Select(p => $"{Words.Number(p.Outage.TotalMinutes)} min → {Words.Number(p.Factor)}"));
+        return plan with
+        {
+            ColdLoadBasis = $"cold-load factor {Words.Number(factor)} from the curve ({curve}; linear between points) at an outage of {Words.Number(Math.Round(outage.TotalMinutes))} min, from the fault{(incident.FaultAt is null ? " (reportedAt, no faultAt given)" : string.Empty)} to the last switching step",
+            ColdLoadCurve = options.ColdLoadCurve,
+        };
+    }
+
+    private static TimeSpan LastSwitching(SwitchingPlan plan) =>
+        plan.Steps.Where(s => s.ChangesNetwork).Select(s => s.At).DefaultIfEmpty(TimeSpan.Zero).Max();
+
+    private static SwitchingPlan PlanAt(NetworkGraph graph, Incident incident, SectionId isolate, RankingResult? ranking, SwitchingOptions options, SectionId? alsoIsolate)
+    {
         var ctx = new PlanningContext(graph, incident, isolate, ranking, options);
         var notes = new List<string>();
 
         var isolation = Isolation.Plan(ctx);
+        IsolationResult? second = null;
+        if (alsoIsolate is { } other && other != isolate)
+        {
+            if (!graph.Sections.Contains(other) || !ctx.Zones.TryZoneOf(other, out var otherZone))
+            {
+                throw new PlanningException($"section {other} is not a section of grid '{graph.Grid.Name}'");
+            }
+
+            // The other fault of a cross-country pair: isolated as well, from the state the first isolation leaves, and never re-energised.
+            ctx.AlsoIsolated.Add(otherZone);
+            second = Isolation.Plan(ctx, otherZone, other, isolation.After, isolation.AfterNetwork, ctx.FaultCurrent);
+            isolation = isolation with { After = second.After, AfterNetwork = second.AfterNetwork };
+            notes.Add($"cross-country fault: the ranking's best explanation is a pair of earth faults on different phases, in {isolate} and {other}; both sections are isolated and neither is re-energised");
+        }
         var dead = new DeadArea(ctx, isolation);
         var factors = new double[ctx.Grid.Nodes.Length];
         for (var v = 0; v < factors.Length; v++)
         {
             var cut = ctx.Affected[v] && (!ctx.StartNetwork.IsEnergised(v) || !isolation.AfterNetwork.IsEnergised(v));
-            factors[v] = cut ? options.ColdLoadFactor : 1.0;
+            factors[v] = cut ? options.ColdLoadFactor!.Value : 1.0;
         }
 
         var limits = new SupplyLimits(options.VoltageLimitPu, factors);
@@ -73,7 +145,7 @@ public static class SwitchingPlanner
         }
 
         var restoration = Restoration.Plan(ctx, isolation, dead, limits, avoid, notes);
-        var steps = StepAssembly.Build(ctx, isolation, dead, restoration.Chosen, notes);
+        var steps = StepAssembly.Build(ctx, isolation, second, dead, restoration.Chosen, notes);
         var replay = PlanReplay.Run(ctx, steps);
         if (replay.Violations.Count > 0)
         {
@@ -98,13 +170,14 @@ public static class SwitchingPlanner
             throw new InvalidOperationException($"the planner made an unsafe test order: {string.Join("; ", testViolations)}");
         }
 
-        var named = new List<SectionId> { isolate };
+        var isolated = alsoIsolate is { } also && also != isolate ? new List<SectionId> { isolate, also } : [isolate];
+        var named = new List<SectionId>(isolated);
         named.AddRange(testOrder.SelectMany(t => t.ReenergisesSections.Concat(t.CutsOffSections).Concat(t.Branches.SelectMany(b => b.FaultIn))));
         return new SwitchingPlan(
             [.. steps],
-            [isolate],
+            [.. isolated],
             [.. named.Distinct().Select(id => new PlanSection(id, graph.Sections[id].Segments))],
-            options.ColdLoadFactor,
+            options.ColdLoadFactor!.Value,
             options.VoltageLimitPu,
             replay.Restored,
             replay.Unserved,
@@ -160,7 +233,7 @@ public static class SwitchingPlanner
     {
         var o = ctx.Options;
         yield return "load flow: backward/forward sweep per phase, constant-power loads (power factor 0.95 lagging where loadKvar is absent), segment impedance (r1 + j·x1)·length, switches ideal, every busbar at 1.0 pu";
-        yield return $"cold-load factor {Words.Number(o.ColdLoadFactor)} on the load of every node that was without supply; voltage limit {Words.Number(o.VoltageLimitPu)} pu; ampacityA per line type; transformerRatedMva where given";
+        yield return $"cold-load factor {Words.Number(o.ColdLoadFactor!.Value)} on the load of every node that was without supply; voltage limit {Words.Number(o.VoltageLimitPu)} pu; ampacityA per line type; transformerRatedMva where given";
         yield return "field indicators in the part without supply that the incident gives no field reading of are read before the first close, a default travel time after the start";
         yield return $"timeline: one sequence; crews leave at the start; remote operation {Words.Number(o.RemoteOperationTime.TotalMinutes)} min, manual {Words.Number(o.ManualOperationTime.TotalMinutes)} min after arrival, fuse replacement {Words.Number(o.FuseReplacementTime.TotalMinutes)} min";
         var defaulted = steps.Where(s => s.Device is { } d && !ctx.Grid.Switch(d).Remote && ctx.Grid.Switch(d).TravelTime is null)

@@ -26,7 +26,9 @@ public class PlanCommandTests
         Assert.Contains("permit", actions);
         Assert.All(steps.Where(s => s.GetProperty("action").GetString() is "open" or "close"), s => Assert.True(s.TryGetProperty("device", out _)));
         Assert.Equal("SEC-S108", json.GetProperty("isolatedSections")[0].GetString());
-        Assert.Equal(2.0, json.GetProperty("coldLoadFactor").GetDouble());
+        Assert.InRange(json.GetProperty("coldLoadFactor").GetDouble(), 1.5, 2.5);
+        Assert.Contains("from the curve", json.GetProperty("coldLoadBasis").GetString(), StringComparison.Ordinal);
+        Assert.Equal(4, json.GetProperty("coldLoadCurve").GetArrayLength());
         Assert.Equal(0.9, json.GetProperty("voltageLimitPu").GetDouble());
         Assert.Contains(json.GetProperty("cautions").EnumerateArray(), c => c.GetString()!.Contains("prove dead", StringComparison.OrdinalIgnoreCase));
     }
@@ -85,6 +87,17 @@ public class PlanCommandTests
         var unknown = CliRun.Of("plan", SampleGrids.Path("resonant"), Incident("resonant-standing-earth-fault-b1.incident.json"), "--section", "SEC-NOPE");
         Assert.Equal(2, unknown.ExitCode);
         Assert.Contains("SEC-NOPE", unknown.Error, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Cross_country_fault_isolates_both_sections_of_the_pair()
+    {
+        var run = CliRun.Of("plan", SampleGrids.Path("isolated"), Incident("isolated-cross-country-a1-a2.incident.json"), "--json");
+
+        Assert.Equal(0, run.ExitCode);
+        var json = run.Json();
+        Assert.Equal(["SEC-S105", "SEC-S206"], json.GetProperty("isolatedSections").EnumerateArray().Select(s => s.GetString()!).Order());
+        Assert.Contains(json.GetProperty("approximations").EnumerateArray(), a => a.GetString()!.Contains("cross-country", StringComparison.Ordinal));
     }
 
     [Fact]

@@ -26,9 +26,9 @@ public class CrossCountryTests
     private static readonly Complex SourceOhm = new(0.0591, 1.4499);
 
     /// <summary>The paths from A-BUS, segment and km of it, to the middle of S105, S206 and S207 (sample-grid topology).</summary>
-    private static readonly (string LineType, double Km)[] ToMiddleOfS105 = [("CAB-AL240", 1.4), ("CAB-AL240", 1.1), ("CAB-AL150", 1.2), ("CAB-AL95", 0.45)];
+    internal static readonly (string LineType, double Km)[] ToMiddleOfS105 = [("CAB-AL240", 1.4), ("CAB-AL240", 1.1), ("CAB-AL150", 1.2), ("CAB-AL95", 0.45)];
 
-    private static readonly (string LineType, double Km)[] ToMiddleOfS206 = [("CAB-AL240", 1.6), ("CAB-AL240", 1.3), ("CAB-AL150", 1.4), ("CAB-AL95", 0.4)];
+    internal static readonly (string LineType, double Km)[] ToMiddleOfS206 = [("CAB-AL240", 1.6), ("CAB-AL240", 1.3), ("CAB-AL150", 1.4), ("CAB-AL95", 0.4)];
 
     private static readonly (string LineType, double Km)[] ToMiddleOfS207 = [.. ToMiddleOfS206[..3], ("CAB-AL95", 0.8 + 0.3)];
 
@@ -77,7 +77,7 @@ public class CrossCountryTests
     /// FPI-A2-01, FPI-A2-05, FPI-A2-08 toward A2's fault), and the same current as residual there, far above
     /// every pickup; every other indicator silent. Both feeder breakers record it as phase and residual current.
     /// </summary>
-    private static Incident CrossCountryIncident(Grid grid, double loopCurrentA)
+    internal static Incident CrossCountryIncident(Grid grid, double loopCurrentA)
     {
         var seen = new[] { ("FPI-A1-01", Forward), ("FPI-A1-04", Fault), ("FPI-A1-07", Fault), ("FPI-A2-01", Fault), ("FPI-A2-05", Forward), ("FPI-A2-08", Fault) };
         var silent = grid.Indicators.Select(i => i.Id.Value).Except(seen.Select(s => s.Item1)).Select(id => (id, None));
@@ -98,7 +98,7 @@ public class CrossCountryTests
     /// paths part, then each phase and earth out to its fault point, bolted (the loop approximation of
     /// CrossCountryRanking, written out with the line data of the grid's catalogue).
     /// </summary>
-    private static double LoopCurrentA(Grid grid, params (string LineType, double Km)[][] paths)
+    internal static double LoopCurrentA(Grid grid, params (string LineType, double Km)[][] paths)
     {
         var phaseVoltageV = VoltageFactor * 20_000 / Math.Sqrt(3);
         var loop = 2 * SourceOhm;

@@ -42,7 +42,7 @@ public class RestorationTests
     {
         // At 1.4 times the load, T2 alone cannot take everything beyond S1 at a cold-load factor of 2.
         var grid = SwitchingGrids.Fenwick(1.4);
-        var plan = SwitchingPlanner.Plan(new NetworkGraph(grid), Trip("CB-P1"), SectionOf(grid, "S1"));
+        var plan = SwitchingPlanner.Plan(new NetworkGraph(grid), Trip("CB-P1"), SectionOf(grid, "S1"), null, new SwitchingOptions { ColdLoadFactor = 2.0 });
 
         var closes = plan.Steps.Where(s => s.Action == StepAction.Close).Select(s => s.Device!.Value.Value).ToList();
         Assert.Contains("T1", closes);

@@ -62,6 +62,7 @@ public sealed class IncidentApiTests(ApiFixture app) : IClassFixture<ApiFixture>
         var back = await app.Client.GetFromJsonAsync<JsonElement>($"/api/incidents/{id}/plan/return");
 
         Assert.Contains(plan.GetProperty("steps").EnumerateArray(), s => s.GetProperty("action").GetString() == "lock");
+        Assert.Contains("from the curve", plan.GetProperty("coldLoadBasis").GetString(), StringComparison.Ordinal);
         var actions = back.GetProperty("steps").EnumerateArray().Select(s => s.GetProperty("action").GetString()).ToList();
         Assert.Contains("removeEarth", actions);
         Assert.True(actions.LastIndexOf("unlock") < actions.IndexOf("close"));

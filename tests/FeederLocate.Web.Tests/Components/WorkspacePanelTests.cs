@@ -133,6 +133,7 @@ public class RecordAndPlanPanelTests : ComponentTest
         Assert.True(cut.Find($"[data-testid='tick-{first.Order}']").HasAttribute("disabled"));
         Assert.Contains(plan.Steps, s => s.Action == FeederLocate.Core.Switching.StepAction.ProveDead);
         Assert.Contains("prove dead", cut.Find("[data-testid='plan-steps']").TextContent, StringComparison.OrdinalIgnoreCase);
+        Assert.Contains("from the curve", cut.Find("[data-testid='cold-load']").TextContent, StringComparison.Ordinal);
         cut.Find($"[data-testid='tick-{plan.Steps[1].Order}']").Change(true);
         Assert.Equal(plan.Steps[1], ticked);
     }
@@ -184,6 +185,20 @@ public class RecordAndPlanPanelTests : ComponentTest
 
         Assert.Contains("Search first", cut.Find("[data-testid='search-first']").TextContent, StringComparison.Ordinal);
         Assert.Contains("Earth-fault search (first)", cut.Markup, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void A_cross_country_plan_names_both_isolated_sections()
+    {
+        var grid = SampleGrids.Grid("isolated");
+        var graph = new FeederLocate.Core.Topology.NetworkGraph(grid);
+        var incident = FeederLocate.Core.Formats.IncidentReader.Parse(
+            File.ReadAllText(SampleGrids.IncidentPath("isolated-cross-country-a1-a2")), grid).ValueOrThrow();
+        var plan = FeederLocate.Core.Switching.SwitchingPlanner.Plan(graph, incident, FaultRanking.Rank(graph, incident));
+
+        var cut = Render<PlanSteps>(p => p.Add(c => c.Plan, plan));
+
+        Assert.Contains("Isolate SEC-S105, SEC-S206", cut.Find("[data-testid='plan-steps']").TextContent, StringComparison.Ordinal);
     }
 
     private static class Incidents

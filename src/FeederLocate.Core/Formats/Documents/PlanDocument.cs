@@ -20,7 +20,9 @@ public sealed record PlanDocument(
     IReadOnlyList<string> Cautions,
     IReadOnlyList<string> Approximations,
     bool SearchFirst,
-    double? ExpectedCustomerInterruptions)
+    double? ExpectedCustomerInterruptions,
+    string? ColdLoadBasis,
+    IReadOnlyList<PlanDocument.ColdLoadPointEntry> ColdLoadCurve)
 {
     public static PlanDocument From(SwitchingPlan plan, RankingResult ranking) => new(
         [.. plan.Steps.Select(Step)],
@@ -41,7 +43,12 @@ public sealed record PlanDocument(
         plan.Cautions,
         plan.Approximations,
         plan.SearchFirst,
-        plan.ExpectedCustomerInterruptions is { } e ? Math.Round(e, 2) : null);
+        plan.ExpectedCustomerInterruptions is { } e ? Math.Round(e, 2) : null,
+        plan.ColdLoadBasis,
+        [.. plan.ColdLoadCurve.Select(p => new ColdLoadPointEntry(p.Outage.TotalMinutes, p.Factor))]);
+
+    /// <summary>One point of the cold-load curve: the outage in minutes and the multiplier.</summary>
+    public sealed record ColdLoadPointEntry(double OutageMinutes, double Factor);
 
     /// <summary>The contract's action names: camelCase of the core's.</summary>
     public static string ActionName(StepAction action) => char.ToLowerInvariant(action.ToString()[0]) + action.ToString()[1..];

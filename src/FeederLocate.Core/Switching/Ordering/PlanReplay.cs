@@ -53,7 +53,7 @@ internal static class PlanReplay
                 ? DeviceRules.Open(device, states.IsClosed(index), fromLive, toLive, ctx.CurrentThrough(network, index))
                 : nextNetwork is null
                     ? $"closing {id} would close a loop or parallel two substations"
-                    : DeviceRules.Close(device, states.IsClosed(index), fromLive, toLive, ctx.ZoneLive(nextNetwork, ctx.SuspectZone));
+                    : DeviceRules.Close(device, states.IsClosed(index), fromLive, toLive, ctx.ZoneLive(nextNetwork, ctx.SuspectZone) || ctx.AlsoIsolated.Any(z => ctx.ZoneLive(nextNetwork, z)));
             if (problem is not null)
             {
                 violations.Add($"step {step.Order}: {problem}");

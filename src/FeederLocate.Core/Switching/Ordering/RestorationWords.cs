@@ -9,7 +9,7 @@ internal static class RestorationWords
     {
         var grid = ctx.Grid;
         var what = What(ctx, zones);
-        var check = $"load flow with cold-load factor {Words.Number(ctx.Options.ColdLoadFactor)}: lowest {Words.Pu(c.Verdict.MinimumVoltagePu)}, highest loading {Words.Percent(c.Verdict.MaximumLoadingPercent)}";
+        var check = $"load flow with cold-load factor {Words.Number(ctx.Options.ColdLoadFactor ?? 1.0)}: lowest {Words.Pu(c.Verdict.MinimumVoltagePu)}, highest loading {Words.Percent(c.Verdict.MaximumLoadingPercent)}";
         var source = grid.Switches[c.Source];
         if (!c.NormalFeed)
         {

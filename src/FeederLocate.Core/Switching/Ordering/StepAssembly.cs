@@ -11,9 +11,16 @@ namespace FeederLocate.Core.Switching;
 /// </summary>
 internal static class StepAssembly
 {
-    public static List<SwitchingStep> Build(PlanningContext ctx, IsolationResult isolation, DeadArea dead, IReadOnlyList<Candidate> chosen, ICollection<string> notes)
+    public static List<SwitchingStep> Build(PlanningContext ctx, IsolationResult isolation, IsolationResult? second, DeadArea dead, IReadOnlyList<Candidate> chosen, ICollection<string> notes)
     {
         var before = isolation.DeEnergise is { } d ? new List<PlannedOperation> { d } : [];
+        if (second is not null)
+        {
+            // The second section of a cross-country pair is cut off before anything is re-energised.
+            before.AddRange(second.DeEnergise is { } d2 ? [d2] : []);
+            before.AddRange(second.BoundaryOpens.OrderBy(p => p.Key).Select(p => p.Value));
+        }
+
         var usedBoundaries = new HashSet<int>();
         var jobs = new List<Job>();
         foreach (var c in chosen)
@@ -37,11 +44,11 @@ internal static class StepAssembly
         }
 
         var after = isolation.BoundaryOpens.Where(p => !usedBoundaries.Contains(p.Key)).OrderBy(p => p.Key).Select(p => p.Value).ToList();
-        var lostCustomers = ctx.Zones.All.Where(z => dead.Lost[z.Index] || z.Index == ctx.SuspectZone).Sum(z => z.Customers);
+        var lostCustomers = ctx.Zones.All.Where(z => dead.Lost[z.Index] || ctx.IsIsolated(z.Index)).Sum(z => z.Customers);
         var leftOut = lostCustomers - chosen.Sum(c => c.Customers);
         var order = JobOrder.Best(ctx, before, jobs, after, leftOut, notes);
 
-        var operations = JobOrder.Flatten(before, order, after).Concat(isolation.Verifies).ToList();
+        var operations = JobOrder.Flatten(before, order, after).Concat(isolation.Verifies).Concat(second?.Verifies ?? []).ToList();
         var steps = new List<SwitchingStep>();
         foreach (var device in operations.Select(o => o.Device).Where(i => !ctx.Grid.Switches[i].Remote).Distinct())
         {
@@ -77,7 +84,7 @@ internal static class StepAssembly
             steps.Add(Step(ctx, steps, op.Action, op.Device, op.Node, [], timeline.Place(op.Action, op.Device), op.Reason));
         }
 
-        CrewSteps(ctx, isolation, steps, timeline.Now);
+        CrewSteps(ctx, isolation, second, steps, timeline.Now);
         return steps;
     }
 
@@ -100,11 +107,13 @@ internal static class StepAssembly
         return c.Operations.Select((op, k) => op.Reason.Length > 0 ? op : op with { Reason = k == last ? text : op.Reason });
     }
 
-    private static void CrewSteps(PlanningContext ctx, IsolationResult isolation, List<SwitchingStep> steps, TimeSpan at)
+    private static void CrewSteps(PlanningContext ctx, IsolationResult first, IsolationResult? second, List<SwitchingStep> steps, TimeSpan at)
     {
-        var zone = ctx.Zones.All[ctx.SuspectZone];
-        var segments = zone.Segments.Select(i => ctx.Grid.Segments[i].Id).ToImmutableArray();
-        steps.Add(Step(ctx, steps, StepAction.Dispatch, null, null, segments, at, $"send a crew to the isolated section {ctx.Suspect}"));
+        var zones = new[] { ctx.SuspectZone }.Concat(ctx.AlsoIsolated.Order()).Select(z => ctx.Zones.All[z]).ToList();
+        var segments = zones.SelectMany(z => z.Segments).Select(i => ctx.Grid.Segments[i].Id).ToImmutableArray();
+        var sections = Words.List(zones.Select(z => z.Section).OfType<Model.SectionId>());
+        var isolation = first with { Points = [.. first.Points, .. second?.Points ?? []] };
+        steps.Add(Step(ctx, steps, StepAction.Dispatch, null, null, segments, at, $"send a crew to the isolated section{(zones.Count > 1 ? "s" : string.Empty)} {sections}"));
         steps.Add(Step(ctx, steps, StepAction.Patrol, null, null, segments, at, $"patrol the suspect segments {Words.List(segments)} to find the fault"));
         foreach (var (device, _) in isolation.Points)
         {
@@ -127,7 +136,7 @@ internal static class StepAssembly
         }
 
         steps.Add(Step(ctx, steps, StepAction.Permit, null, null, segments, at,
-            $"issue a permit to work on section {ctx.Suspect} only once it is proved dead and earthed at every isolation point; local switching rules and licensed practice govern"));
+            $"issue a permit to work on {sections} only once it is proved dead and earthed at every isolation point; local switching rules and licensed practice govern"));
     }
 
     private static SwitchingStep Step(PlanningContext ctx, List<SwitchingStep> steps, StepAction action, int? device, NodeId? node, ImmutableArray<SegmentId> segments, TimeSpan at, string reason) =>

@@ -63,6 +63,12 @@ internal sealed class PlanningContext
 
     public int SuspectZone { get; }
 
+    /// <summary>Zones isolated besides the suspect's (the second section of a cross-country fault); never re-energised.</summary>
+    public HashSet<int> AlsoIsolated { get; } = [];
+
+    /// <summary>True for the suspect's zone and every zone isolated with it.</summary>
+    public bool IsIsolated(int zone) => zone == SuspectZone || AlsoIsolated.Contains(zone);
+
     /// <summary>Substation feeding the suspect at fault time, or -1.</summary>
     public int SuspectSubstation { get; }
 

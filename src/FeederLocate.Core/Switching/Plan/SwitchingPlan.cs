@@ -35,6 +35,12 @@ public sealed record SwitchingPlan(
     /// </summary>
     public bool SearchFirst { get; init; }
 
+    /// <summary>How <see cref="ColdLoadFactor"/> was chosen, in words (the curve, the outage's duration).</summary>
+    public string? ColdLoadBasis { get; init; }
+
+    /// <summary>The cold-load curve the factor was read from; empty when a fixed factor was set.</summary>
+    public ImmutableArray<ColdLoadPoint> ColdLoadCurve { get; init; } = [];
+
     /// <summary>Of the standing earth-fault search: the expected number of customer interruptions it causes; null without one.</summary>
     public double? ExpectedCustomerInterruptions { get; init; }
 }

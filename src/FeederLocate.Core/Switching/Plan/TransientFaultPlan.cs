@@ -66,7 +66,7 @@ internal static class TransientFaultPlan
             [.. steps],
             [],
             [.. suspects.Select(s => new PlanSection(s.Id, ctx.Graph.Sections[s.Id].Segments))],
-            options.ColdLoadFactor,
+            options.ColdLoadFactor ?? options.ColdLoadAt(TimeSpan.Zero),
             options.VoltageLimitPu,
             0,
             0,

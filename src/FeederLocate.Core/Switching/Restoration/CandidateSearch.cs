@@ -29,7 +29,7 @@ internal static class CandidateSearch
 
             var device = grid.Switches[source];
             int a = zones.ZoneOfNode(grid.NodeIndex(device.From)), b = zones.ZoneOfNode(grid.NodeIndex(device.To));
-            if (a == ctx.SuspectZone || b == ctx.SuspectZone)
+            if (ctx.IsIsolated(a) || ctx.IsIsolated(b))
             {
                 continue;
             }

@@ -17,7 +17,7 @@ internal sealed class DeadArea
         var lost = new bool[zones.All.Length];
         foreach (var z in zones.All)
         {
-            lost[z.Index] = z.Index != ctx.SuspectZone && !ctx.ZoneLive(network, z.Index) && z.Nodes.Any(v => ctx.Affected[v]);
+            lost[z.Index] = !ctx.IsIsolated(z.Index) && !ctx.ZoneLive(network, z.Index) && z.Nodes.Any(v => ctx.Affected[v]);
         }
 
         var island = Enumerable.Repeat(-1, zones.All.Length).ToArray();

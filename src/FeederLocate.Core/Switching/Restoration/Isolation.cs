@@ -11,20 +11,21 @@ namespace FeederLocate.Core.Switching;
 /// </summary>
 internal static class Isolation
 {
-    public static IsolationResult Plan(PlanningContext ctx)
+    public static IsolationResult Plan(PlanningContext ctx) => Plan(ctx, ctx.SuspectZone, ctx.Suspect, ctx.StartStates, ctx.StartNetwork, ctx.FaultCurrent);
+
+    /// <summary>Isolation of zone <paramref name="zoneIndex"/> (section <paramref name="section"/>) from <paramref name="states"/>.</summary>
+    public static IsolationResult Plan(PlanningContext ctx, int zoneIndex, Model.SectionId section, SwitchStates states, EnergisedNetwork network, ThroughCurrent current)
     {
         var grid = ctx.Grid;
-        var zone = ctx.Zones.All[ctx.SuspectZone];
-        var states = ctx.StartStates;
-        var network = ctx.StartNetwork;
+        var zone = ctx.Zones.All[zoneIndex];
         PlannedOperation? deEnergise = null;
         var live = zone.Nodes.FirstOrDefault(network.IsEnergised, -1);
         if (live >= 0)
         {
-            var device = NearestBreaking(ctx, network, EntryOf(ctx, network, zone));
-            var kind = ctx.StandingEarthFault ? "the standing earth-fault current" : "the fault current";
+            var device = NearestBreaking(ctx, network, EntryOf(ctx, network, zone), current, section);
+            var kind = current == ThroughCurrent.StandingEarthFault ? "the standing earth-fault current" : "the fault current";
             deEnergise = new PlannedOperation(StepAction.Open, device,
-                $"de-energise the suspect section {ctx.Suspect}: the nearest device upstream that may break {kind}");
+                $"de-energise the suspect section {section}: the nearest device upstream that may break {kind}");
             states = states.With(grid.Switches[device].Id, SwitchPosition.Open);
             network = ctx.TryEnergise(states) ?? throw new InvalidOperationException("opening a switch cannot make a radial network loop");
         }
@@ -49,12 +50,12 @@ internal static class Isolation
 
             if (states.IsClosed(device))
             {
-                opens[device] = new PlannedOperation(StepAction.Open, device, $"isolate the suspect section {ctx.Suspect}: its {side} boundary");
+                opens[device] = new PlannedOperation(StepAction.Open, device, $"isolate the suspect section {section}: its {side} boundary");
                 states = states.With(grid.Switches[device].Id, SwitchPosition.Open);
             }
             else
             {
-                verifies.Add(new PlannedOperation(StepAction.Verify, device, $"verify open and tag: {side} boundary of the isolated section {ctx.Suspect}"));
+                verifies.Add(new PlannedOperation(StepAction.Verify, device, $"verify open and tag: {side} boundary of the isolated section {section}"));
             }
         }
 
@@ -67,18 +68,18 @@ internal static class Isolation
         zone.Nodes.Where(network.IsEnergised).First(v => network.ParentOf(v) < 0 || ctx.Zones.ZoneOfNode(network.ParentOf(v)) != zone.Index);
 
     /// <summary>Nearest switch on the path from the bus to <paramref name="entry"/> that may open while carrying the fault current.</summary>
-    private static int NearestBreaking(PlanningContext ctx, EnergisedNetwork network, int entry)
+    private static int NearestBreaking(PlanningContext ctx, EnergisedNetwork network, int entry, ThroughCurrent current, Model.SectionId section)
     {
         var path = network.PathFromSource(ctx.Grid.Nodes[entry].Id);
         for (var k = path.Count - 1; k >= 0; k--)
         {
-            if (path[k].Kind == EdgeKind.Switch && DeviceRules.CanOpenLive(ctx.Grid.Switches[path[k].Index].Kind, ctx.FaultCurrent))
+            if (path[k].Kind == EdgeKind.Switch && DeviceRules.CanOpenLive(ctx.Grid.Switches[path[k].Index].Kind, current))
             {
                 return path[k].Index;
             }
         }
 
-        throw new PlanningException($"no device upstream of section {ctx.Suspect} may break its fault current; it cannot be isolated by switching");
+        throw new PlanningException($"no device upstream of section {section} may break its fault current; it cannot be isolated by switching");
     }
 
     /// <summary>The boundary switch the suspect was fed through at fault time, or -1.</summary>
