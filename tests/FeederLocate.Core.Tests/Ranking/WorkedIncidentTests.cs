@@ -110,7 +110,9 @@ public class WorkedIncidentTests
         Assert.Equal("SEC-S209", ranking.Sections[0].Id.Value);
         Assert.Equal("SEC-S212", ranking.Sections[1].Id.Value);
         var odds = ranking.Sections[0].Probability / ranking.Sections[1].Probability;
-        Assert.Equal((0.011 * 3 + 0.038 * 8) / (0.026 * 8), odds, 1e-6);
+        // Within 0.01 %: segments whose fault current comes within the pickup tolerance of an indicator's setting
+        // (RankingOptions.PickupTolerance) explain its report very slightly less than certainly.
+        Assert.Equal((0.011 * 3 + 0.038 * 8) / (0.026 * 8), odds, 1e-4 * odds);
         Assert.True(ranking.Sections[0].Probability + ranking.Sections[1].Probability > 0.99);
     }
 
