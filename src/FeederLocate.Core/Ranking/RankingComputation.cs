@@ -374,7 +374,8 @@ internal sealed class RankingComputation
     /// <summary>
     /// Positions at which to compare the evidence: the midpoint where the drop of the fault current along the
     /// whole segment is under <see cref="FlatDropShare"/> of the phase voltage; else the option's positions,
-    /// or evenly spaced ones, one per <see cref="FlatDropShare"/>·2 of drop, up to <see cref="MaximumPositions"/>.
+    /// and in the refined pass evenly spaced ones, one per <see cref="FlatDropShare"/>·2 of drop, up to
+    /// <see cref="MaximumPositions"/>.
     /// </summary>
     private ImmutableArray<double> PositionsFor(int segment, FaultType type, in FaultSolution mid, bool refined)
     {
@@ -386,13 +387,13 @@ internal sealed class RankingComputation
             return MidpointOnly;
         }
 
-        var count = Math.Max(refined ? 5 : 0, (int)Math.Ceiling(dropShare / (2 * FlatDropShare)));
-        if (count <= _options.Positions.Length)
+        // The coarse pass keeps to the option's positions; the refined one takes more where the drop is larger.
+        var count = Math.Min(MaximumPositions, (int)Math.Ceiling(dropShare / (2 * FlatDropShare)));
+        if (!refined || count <= _options.Positions.Length)
         {
             return _options.Positions;
         }
 
-        count = Math.Min(count, MaximumPositions);
         return [.. Enumerable.Range(0, count).Select(k => (k + 0.5) / count)];
     }
 
