@@ -54,7 +54,17 @@ internal static class RankCommand
             output.WriteLine("TRANSIENT: a reclosure held. The ranking shows where the fault probably was, for the patrol; nothing needs isolating.");
         }
 
-        if (!d.Consistent)
+        if (d.CrossCountry is { } cross)
+        {
+            output.WriteLine($"CROSS-COUNTRY: no single fault explains the evidence; two earth faults on different phases do ({Percent(cross.Probability)} in all). Most probable pairs:");
+            foreach (var pair in cross.Pairs.Take(5))
+            {
+                output.WriteLine($"  {pair.Segments[0]} ({pair.Sections[0]}) + {pair.Segments[1]} ({pair.Sections[1]}): {Percent(pair.Probability)}");
+            }
+
+            output.WriteLine("The single-fault explanations below do not fit.");
+        }
+        else if (!d.Consistent)
         {
             if (d.Disagreeing.Count > 0)
             {

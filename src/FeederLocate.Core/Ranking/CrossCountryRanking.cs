@@ -73,7 +73,11 @@ internal static class CrossCountryRanking
             var probability = p[scores.Count + k];
             shares[pairs[k].A] = shares.GetValueOrDefault(pairs[k].A) + (probability / 2);
             shares[pairs[k].B] = shares.GetValueOrDefault(pairs[k].B) + (probability / 2);
-            ranked.Add(new CrossCountrySuspect(grid.Segments[pairs[k].A].Id, grid.Segments[pairs[k].B].Id, probability));
+            ranked.Add(new CrossCountrySuspect(grid.Segments[pairs[k].A].Id, grid.Segments[pairs[k].B].Id, probability)
+            {
+                FirstSection = computation.Graph.Sections.OfSegment(pairs[k].A).Id,
+                SecondSection = computation.Graph.Sections.OfSegment(pairs[k].B).Id,
+            });
         }
 
         var consistent = false;

@@ -16,9 +16,33 @@ internal sealed record ObservedIndication(
     IndicatorErrorRates Rates,
     bool Stale,
     double Weight,
-    double[] LogProbabilityByExpected)
+    double[] LogProbabilityByExpected,
+    double[] ProbabilityByExpected)
 {
     public double LogProbability(IndicatorState expected) => LogProbabilityByExpected[(int)expected];
+
+    /// <summary>
+    /// Weighted log P(record) where the indicator picks up (showing <paramref name="picked"/>) with
+    /// probability <paramref name="pickup"/> and otherwise shows none.
+    /// </summary>
+    public double LogProbability(double pickup, IndicatorState picked) =>
+        pickup <= 0 ? LogProbability(IndicatorState.None)
+        : pickup >= 1 ? LogProbability(picked)
+        : Weight * Math.Log((pickup * ProbabilityByExpected[(int)picked]) + ((1 - pickup) * ProbabilityByExpected[(int)IndicatorState.None]));
+
+    /// <summary>
+    /// Weighted log P(record) for the currents the indicator sees: its phase element (on the fault's path)
+    /// and its earth element each pick up on the <see cref="PickupCurve"/>.
+    /// </summary>
+    public double LogProbability(bool faultBeyond, bool onPath, double phaseCurrentA, double residualCurrentA, double sigma)
+    {
+        var p = Point;
+        var phase = onPath ? PickupCurve.Probability(phaseCurrentA, p.PhasePickupA, sigma) : 0;
+        var earth = PickupCurve.Probability(residualCurrentA, p.EarthPickupA, sigma);
+        var pickup = 1 - ((1 - phase) * (1 - earth));
+        var picked = !p.Directional ? IndicatorState.Fault : faultBeyond ? IndicatorState.Forward : IndicatorState.Reverse;
+        return LogProbability(pickup, picked);
+    }
 }
 
 /// <summary>A substation measurement compiled against the measuring point of its device.</summary>
@@ -55,12 +79,14 @@ internal static class EvidencePoints
             var stale = IsStale(indicator, indication, incident);
             var weight = stale ? options.StaleWeight : 1.0;
             var table = new double[Enum.GetValues<IndicatorState>().Length];
+            var probabilities = new double[table.Length];
             foreach (var expected in Enum.GetValues<IndicatorState>())
             {
-                table[(int)expected] = weight * Math.Log(IndicationLikelihood.Probability(indicator, rates, expected, indication.State));
+                probabilities[(int)expected] = IndicationLikelihood.Probability(indicator, rates, expected, indication.State);
+                table[(int)expected] = weight * Math.Log(probabilities[(int)expected]);
             }
 
-            observed.Add(new ObservedIndication(index, indicator, indication, model.IndicatorPoint(index), rates, stale, weight, table));
+            observed.Add(new ObservedIndication(index, indicator, indication, model.IndicatorPoint(index), rates, stale, weight, table, probabilities));
         }
 
         return observed;

@@ -27,7 +27,7 @@ public static class FaultRanking
         options.Validate();
         priors ??= RankingPriors.None;
         var computation = new RankingComputation(graph, incident, options, priors);
-        var scores = computation.ScoreSegments();
+        var scores = computation.RefineContenders(computation.ScoreSegments());
         return Assemble(computation, scores);
     }
 
@@ -101,12 +101,17 @@ public static class FaultRanking
         var crossCountry = ImmutableArray<CrossCountrySuspect>.Empty;
         var segmentProbability = new Dictionary<int, double>();
         double[] probabilities;
-        if (!consistent && CrossCountryRanking.Applies(computation, best))
+        var crossCountryProbability = 0.0;
+        var outcome = !consistent && CrossCountryRanking.Applies(computation, best) ? CrossCountryRanking.Rank(computation, scores, options) : null;
+        // Pairs are reported where they explain the evidence better than any single fault: the best pair
+        // passes the consistency check, or it is more probable than every single segment. The evidence
+        // stays inconsistent all the same: no single fault explains it.
+        if (outcome is not null && !outcome.Pairs.IsEmpty
+            && (outcome.Consistent || outcome.Pairs[0].Probability > outcome.SingleProbabilities.Max()))
         {
-            var outcome = CrossCountryRanking.Rank(computation, scores, options);
             probabilities = [.. outcome.SingleProbabilities];
             crossCountry = outcome.Pairs;
-            consistent = outcome.Consistent;
+            crossCountryProbability = Math.Max(0, 1 - outcome.SingleProbabilities.Sum());
             foreach (var (segment, share) in outcome.SegmentShares)
             {
                 segmentProbability[segment] = share;
@@ -151,6 +156,7 @@ public static class FaultRanking
         {
             Transient = computation.Incident.Reclosing is { Transient: true },
             Expired = [.. computation.Expired],
+            CrossCountryProbability = crossCountryProbability,
         };
     }
 
@@ -182,7 +188,8 @@ public static class FaultRanking
             $"indications read more than the indicator's reset time after the fault (counted from {(computation.Incident.FaultAt is null ? "reportedAt; faultAt not given" : "faultAt")}) carry no weight; read before a trial re-energisation they weigh {Pct(o.StaleWeight)}",
             $"fault resistance marginalised over: earth faults on isolated and resonant networks {Ohms(o.HighResistanceEarthFaultOhms)}; on solid and impedance networks {Ohms(o.LowResistanceEarthFaultOhms)}, joined by the higher values of the first range up to {o.HighResistanceEarthFaultOhms.Max().ToString(CultureInfo.InvariantCulture)} Ω (half the prior where nothing tripped, {Pct(o.HighResistanceTripShare)} where a device tripped: a sensitive earth-fault trip); short circuits {Ohms(o.ShortCircuitOhms)}",
             $"measurement tolerance: phase current {Pct(o.PhaseCurrentTolerance.Relative)} + {o.PhaseCurrentTolerance.Absolute.ToString(CultureInfo.InvariantCulture)} A, residual current {Pct(o.ResidualCurrentTolerance.Relative)} + {o.ResidualCurrentTolerance.Absolute.ToString(CultureInfo.InvariantCulture)} A, neutral voltage {Pct(o.NeutralVoltageTolerance.Relative)} + {o.NeutralVoltageTolerance.Absolute.ToString(CultureInfo.InvariantCulture)} V",
-            "indications are compared with a fault at each segment's midpoint; substation measurements at several positions along it",
+            "indications and records are compared with a fault at each segment's midpoint, or at several positions along it where the fault current's drop along the segment exceeds 1 % of the phase voltage",
+            $"an indicator picks up within a tolerance of its setting (σ of ln I/I_pickup = {o.PickupTolerance.ToString(CultureInfo.InvariantCulture)}): near its pickup either state fits",
             "load current is ignored in the fault currents (reference model); Z2 = Z1",
             $"predictions at voltage factor c = {o.VoltageFactor.ToString(CultureInfo.InvariantCulture)} (recorded values are compared with the current at nominal voltage, within the tolerances; IEC 60909-0's cmax = 1.1 is for ratings)",
         };

@@ -5,12 +5,13 @@ using FeederLocate.Core.Topology;
 namespace FeederLocate.Core.Ranking;
 
 /// <summary>
-/// The indications' log-likelihood for a fault on a segment, in O(log n + k) instead of O(n):
+/// The indications' log-likelihood for a fault on a segment, in O(log n + k + b) instead of O(n):
 /// an indicator looking away from the source with the fault not beyond it sees no phase current and a
 /// residual of |U0|·3|Y0B|, so its term is a step in |U0| — summed for all of them at once by a binary
-/// search over sorted thresholds. Only the k indicators with the fault beyond them (those on the path
-/// from the source, found by walking a chain up the tree) and the few looking toward the source are
-/// evaluated one by one.
+/// search over sorted thresholds — except for the b indicators whose pickup lies within the
+/// <see cref="PickupCurve"/>'s uncertain band around that residual, evaluated one by one. So are the k
+/// indicators with the fault beyond them (those on the path from the source, found by walking a chain up
+/// the tree) and the few looking toward the source.
 /// </summary>
 internal sealed class IndicationSums
 {
@@ -19,16 +20,21 @@ internal sealed class IndicationSums
     private readonly double[] _otherNetworks;
     private readonly double[][] _thresholdsV;
     private readonly double[][] _prefix;
+    private readonly int[][] _sortedIndicator;
+    private readonly double _sigma;
+    private readonly double _band;
     private readonly double[] _base;
     private readonly int[][] _towardSource;
     private readonly int[] _chainHead;
     private readonly List<(int Indicator, int Next)> _chain = [];
     private readonly Dictionary<int, List<int>> _onSegment = [];
 
-    public IndicationSums(FaultResponseModel model, IReadOnlyList<ObservedIndication> observed)
+    public IndicationSums(FaultResponseModel model, IReadOnlyList<ObservedIndication> observed, double pickupTolerance)
     {
         _model = model;
         _observed = observed;
+        _sigma = pickupTolerance;
+        _band = PickupCurve.BandFactor(pickupTolerance);
         var network = model.Network;
         var substations = model.Grid.Substations.Length;
         _otherNetworks = new double[substations];
@@ -36,9 +42,10 @@ internal sealed class IndicationSums
         _prefix = new double[substations][];
         _base = new double[substations];
         _towardSource = new int[substations][];
+        _sortedIndicator = new int[substations][];
         for (var sub = 0; sub < substations; sub++)
         {
-            var steps = new List<(double Threshold, double Delta)>();
+            var steps = new List<(double Threshold, double Delta, int Indicator)>();
             var toward = new List<int>();
             for (var i = 0; i < observed.Count; i++)
             {
@@ -59,13 +66,14 @@ internal sealed class IndicationSums
                     if (!double.IsNaN(threshold))
                     {
                         var picked = p.PickedUpState(faultBeyond: false);
-                        steps.Add((threshold, o.LogProbability(picked) - o.LogProbability(IndicatorState.None)));
+                        steps.Add((threshold, o.LogProbability(picked) - o.LogProbability(IndicatorState.None), i));
                     }
                 }
             }
 
             steps.Sort((a, b) => a.Threshold.CompareTo(b.Threshold));
             _thresholdsV[sub] = [.. steps.Select(s => s.Threshold)];
+            _sortedIndicator[sub] = [.. steps.Select(s => s.Indicator)];
             _prefix[sub] = new double[steps.Count + 1];
             for (var k = 0; k < steps.Count; k++)
             {
@@ -111,8 +119,13 @@ internal sealed class IndicationSums
         var sub = fault.Substation;
         var u0 = fault.NeutralVoltageMagnitudeV;
         var thresholds = _thresholdsV[sub];
-        var count = UpperBound(thresholds, u0);
-        var sum = _otherNetworks[sub] + _base[sub] + _prefix[sub][count];
+        // Thresholds at or below u0 / band: certain pickups, summed; from there up to u0 · band: uncertain, one by one.
+        var certain = UpperBound(thresholds, u0 / _band);
+        var sum = _otherNetworks[sub] + _base[sub] + _prefix[sub][certain];
+        for (var k = certain; k < thresholds.Length && thresholds[k] < u0 * _band; k++)
+        {
+            sum += NotBeyond(_sortedIndicator[sub][k], u0) - _observed[_sortedIndicator[sub][k]].LogProbability(IndicatorState.None);
+        }
 
         // Indicators with the fault beyond them: on the path from the source, and on the segment itself.
         for (var link = _chainHead[fault.SuppliedNode]; link >= 0; link = _chain[link].Next)
@@ -134,7 +147,7 @@ internal sealed class IndicationSums
             var beyond = _model.IsFaultBeyond(p, segment);
             var onPath = p.OnPath(beyond);
             var residual = u0 * (beyond ? p.BeyondGainS : p.NotBeyondGainS);
-            sum += _observed[i].LogProbability(p.ExpectedState(onPath ? fault.FaultedPhaseCurrentA : 0, residual, beyond));
+            sum += _observed[i].LogProbability(beyond, onPath, onPath ? fault.FaultedPhaseCurrentA : 0, residual, _sigma);
         }
 
         return sum;
@@ -144,13 +157,16 @@ internal sealed class IndicationSums
     private double Correction(int i, in FaultSolution fault)
     {
         var o = _observed[i];
-        var p = o.Point;
         var u0 = fault.NeutralVoltageMagnitudeV;
-        var counted = u0 * p.NotBeyondGainS >= p.EarthPickupA && p.NotBeyondGainS > 0
-            ? o.LogProbability(p.PickedUpState(faultBeyond: false))
-            : o.LogProbability(IndicatorState.None);
-        var actual = p.ExpectedState(fault.FaultedPhaseCurrentA, u0 * p.BeyondGainS, true);
-        return o.LogProbability(actual) - counted;
+        return o.LogProbability(true, true, fault.FaultedPhaseCurrentA, u0 * o.Point.BeyondGainS, _sigma) - NotBeyond(i, u0);
+    }
+
+    /// <summary>The term of an away-looking indicator without the fault beyond it: its residual alone.</summary>
+    private double NotBeyond(int i, double u0)
+    {
+        var o = _observed[i];
+        var p = o.Point;
+        return p.NotBeyondGainS > 0 ? o.LogProbability(false, false, 0, u0 * p.NotBeyondGainS, _sigma) : o.LogProbability(IndicatorState.None);
     }
 
     /// <summary>How many thresholds are ≤ value.</summary>

@@ -15,7 +15,6 @@ internal sealed class RankingComputation
 {
     private static readonly double[] RefinedPositions = [0.05, 0.25, 0.5, 0.75, 0.95];
     private static readonly ImmutableArray<double> MidpointOnly = [0.5];
-    private readonly bool[] _lowCurrentEarthFault;
     private readonly Grid _grid;
     private readonly Incident _incident;
     private readonly RankingOptions _options;
@@ -33,7 +32,8 @@ internal sealed class RankingComputation
     private readonly MeasurementSums _records;
     private readonly List<int> _recordsBeyond = [];
     private readonly ProtectionEvidence _protection;
-    private readonly double _maximumTrippingEarthFaultOhm;
+    private readonly System.Numerics.Complex[] _segmentZ1Ohm;
+    private readonly System.Numerics.Complex[] _segmentZ0Ohm;
 
     public RankingComputation(NetworkGraph graph, Incident incident, RankingOptions options, RankingPriors priors)
     {
@@ -55,11 +55,11 @@ internal sealed class RankingComputation
         _plans = [.. _grid.Substations.Select(s => HypothesisPlan.For(s.Grounding.Scheme, incident, options))];
         _beyond = new bool[_observed.Count];
         _measuredBeyond = new bool[_measured.Count];
-        _sums = new IndicationSums(_model, _observed);
-        _lowCurrentEarthFault = [.. _grid.Substations.Select(s => s.Grounding.Scheme is GroundingScheme.Isolated or GroundingScheme.Resonant)];
+        _sums = new IndicationSums(_model, _observed, options.PickupTolerance);
         _records = new MeasurementSums(this, _measured, _model);
         _protection = new ProtectionEvidence(_model, incident, options);
-        _maximumTrippingEarthFaultOhm = options.LowResistanceEarthFaultOhms.IsDefaultOrEmpty ? 0 : options.LowResistanceEarthFaultOhms.Max();
+        _segmentZ1Ohm = [.. _grid.Segments.Select(x => new System.Numerics.Complex(_grid.LineTypeOf(x).R1OhmPerKm, _grid.LineTypeOf(x).X1OhmPerKm) * x.LengthKm)];
+        _segmentZ0Ohm = [.. _grid.Segments.Select(x => new System.Numerics.Complex(_grid.LineTypeOf(x).R0OhmPerKm, _grid.LineTypeOf(x).X0OhmPerKm) * x.LengthKm)];
     }
 
     public EnergisedNetwork Network { get; }
@@ -181,11 +181,31 @@ internal sealed class RankingComputation
         return states;
     }
 
-    /// <summary>Σ log P(record | expected) over the observed indications, indicator by indicator (the slow, plain sum).</summary>
+    /// <summary>
+    /// Σ log P(record | fault) over the observed indications, indicator by indicator (the slow, plain sum):
+    /// each element picks up on the <see cref="PickupCurve"/> of the current it sees.
+    /// </summary>
     public double IndicationLogLikelihoodDirect(int segment, in FaultSolution fault)
     {
-        var expected = ExpectedStates(segment, fault);
-        return _observed.Select((o, i) => o.LogProbability(expected[i])).Sum();
+        FillBeyond(segment);
+        var total = 0.0;
+        for (var i = 0; i < _observed.Count; i++)
+        {
+            var o = _observed[i];
+            var point = o.Point;
+            if (point.Substation != fault.Substation)
+            {
+                total += o.LogProbability(IndicatorState.None);
+                continue;
+            }
+
+            var beyond = _beyond[i];
+            var onPath = point.OnPath(beyond);
+            var residual = fault.NeutralVoltageMagnitudeV * (beyond ? point.BeyondGainS : point.NotBeyondGainS);
+            total += o.LogProbability(beyond, onPath, onPath ? fault.FaultedPhaseCurrentA : 0, residual, _options.PickupTolerance);
+        }
+
+        return total;
     }
 
     /// <summary>Σ log-likelihood of the substation measurements, record by record (the slow, plain sum).</summary>
@@ -232,7 +252,27 @@ internal sealed class RankingComputation
         return (beyond ? fault.FaultedPhaseCurrentA : 0, u0 * (beyond ? point.BeyondGainS : point.NotBeyondGainS), u0);
     }
 
-    private SegmentScore Score(int segment)
+    /// <summary>
+    /// The scores again, for the segments whose coarse posterior lies within <see cref="RefinedWithinNats"/>
+    /// of the best (the <see cref="MaximumRefined"/> best of them), on a finer quadrature: each fault resistance's share of the prior spread over four points
+    /// of its cell, and more positions along the segment. Sharp evidence (many exact records) can fall
+    /// between the coarse grid's points; refining only the contenders keeps the cost small.
+    /// </summary>
+    public List<SegmentScore> RefineContenders(List<SegmentScore> scores)
+    {
+        var best = scores.Max(x => x.LogPosterior);
+        var contenders = scores.Where(x => x.LogPosterior >= best - RefinedWithinNats)
+            .OrderByDescending(x => x.LogPosterior).Take(MaximumRefined).Select(x => x.Segment).ToHashSet();
+        return [.. scores.Select(x => contenders.Contains(x.Segment) ? Score(x.Segment, refined: true) : x)];
+    }
+
+    /// <summary>At most this many contenders are refined (the cost stays bounded where many segments tie).</summary>
+    private const int MaximumRefined = 30;
+
+    /// <summary>How far below the best coarse posterior a segment is still refined, in nats (e^-20 ≈ 2e-9).</summary>
+    private const double RefinedWithinNats = 20;
+
+    private SegmentScore Score(int segment, bool refined = false)
     {
         var sub = Network.SubstationIndexOf(Network.SuppliedEndOf(segment));
         _recordsBeyond.Clear();
@@ -254,15 +294,13 @@ internal sealed class RankingComputation
         {
             var protection = _protection.TypeLog(segment, plan.Type, sub);
             var typeMarginal = double.NegativeInfinity;
-            for (var k = 0; k < plan.ResistancesOhm.Length; k++)
+            var quadrature = refined ? RefinedQuadrature(plan) : plan.ResistancesOhm.Select((r, k) => (r, plan.ResistanceLogWeights[k])).ToList();
+            foreach (var (rf, resistanceLogWeight) in quadrature)
             {
-                var rf = plan.ResistancesOhm[k];
-                var logWeight = plan.LogWeight + plan.ResistanceLogWeights[k];
+                var logWeight = plan.LogWeight + resistanceLogWeight;
                 var mid = _model.Solve(segment, 0.5, plan.Type, rf);
-                var indications = _sums.LogLikelihood(segment, mid);
-
-                var (records, position) = MeasurementsLikelihood(segment, plan.Type, rf, mid);
-                var likelihood = indications + records + protection
+                var (evidence, position) = AlongSegment(segment, plan.Type, rf, mid, refined);
+                var likelihood = evidence + protection
                     + (_protection.HasResistanceTerms ? _protection.FaultLog(segment, mid, rf) : 0);
                 typeMarginal = LogMath.Add(typeMarginal, logWeight + likelihood);
                 if (likelihood + tripLog > best.LogLikelihood)
@@ -279,26 +317,52 @@ internal sealed class RankingComputation
         return new SegmentScore(segment, logPrior, tripLog + marginal, best, byType);
     }
 
-    /// <summary>The substation measurements' likelihood averaged over positions, and the best-fitting position.</summary>
-    private (double LogLikelihood, double BestPosition) MeasurementsLikelihood(int segment, FaultType type, double rf, in FaultSolution mid)
+    /// <summary>
+    /// Each grid resistance's prior weight spread evenly over four points of its cell (from halfway to the
+    /// previous point to halfway to the next, halfway taken on a log scale except next to 0 Ω).
+    /// </summary>
+    private static List<(double ResistanceOhm, double LogWeight)> RefinedQuadrature(FaultTypePlan plan)
     {
-        if (_measured.Count == 0)
+        var r = plan.ResistancesOhm;
+        var points = new List<(double, double)>();
+        double Boundary(int k) => r[k] <= 0 ? r[k + 1] / 2 : Math.Sqrt(r[k] * r[k + 1]);
+        for (var k = 0; k < r.Length; k++)
         {
-            return (0, 0.5);
+            var lo = k == 0 ? r[0] : Boundary(k - 1);
+            var hi = k == r.Length - 1 ? r[k] : Boundary(k);
+            var logWeight = plan.ResistanceLogWeights[k] - Math.Log(4);
+            for (var j = 0; j < 4; j++)
+            {
+                var f = (j + 0.5) / 4;
+                var value = lo <= 0 ? (j == 0 ? 0 : hi * j / 3.0) : lo * Math.Pow(hi / lo, f);
+                points.Add((value, logWeight));
+            }
+        }
+
+        return points;
+    }
+
+    /// <summary>
+    /// The indications' and records' joint likelihood averaged over positions along the segment, and the
+    /// best-fitting position. Where the fault current's drop along the segment is small against the phase
+    /// voltage (most earth faults on isolated and resonant networks, high-resistance ones everywhere) nothing
+    /// the evidence shows changes along it and the midpoint stands for it; otherwise more positions the
+    /// larger the drop (the finer check of the best explanation still uses its own positions).
+    /// </summary>
+    private (double LogLikelihood, double BestPosition) AlongSegment(int segment, FaultType type, double rf, in FaultSolution mid, bool refined)
+    {
+        var positions = PositionsFor(segment, type, mid, refined);
+        if (positions.Length == 1)
+        {
+            return (_sums.LogLikelihood(segment, mid) + RecordsAt(mid), 0.5);
         }
 
         var total = double.NegativeInfinity;
         var best = (Log: double.NegativeInfinity, Position: 0.5);
-        // Where the earthing keeps an earth fault's current low, the records hardly change along a segment:
-        // the midpoint stands for it (the finer check of the best explanation still uses every position).
-        // So do high-resistance earth faults on solid and impedance networks: the fault resistance, not the line, sets their current.
-        var positions = type is FaultType.LG or FaultType.LLG && (_lowCurrentEarthFault[mid.Substation] || rf > _maximumTrippingEarthFaultOhm)
-            ? MidpointOnly
-            : _options.Positions;
         foreach (var position in positions)
         {
             var fault = position == 0.5 ? mid : _model.Solve(segment, position, type, rf);
-            var log = _records.LogLikelihood(fault, _recordsBeyond);
+            var log = _sums.LogLikelihood(segment, fault) + RecordsAt(fault);
             total = LogMath.Add(total, log);
             if (log > best.Log)
             {
@@ -308,6 +372,39 @@ internal sealed class RankingComputation
 
         return (total - Math.Log(positions.Length), best.Position);
     }
+
+    private double RecordsAt(in FaultSolution fault) => _measured.Count == 0 ? 0 : _records.LogLikelihood(fault, _recordsBeyond);
+
+    /// <summary>
+    /// Positions at which to compare the evidence: the midpoint where the drop of the fault current along the
+    /// whole segment is under <see cref="FlatDropShare"/> of the phase voltage; else the option's positions,
+    /// and in the refined pass evenly spaced ones, one per <see cref="FlatDropShare"/>·2 of drop, up to
+    /// <see cref="MaximumPositions"/>.
+    /// </summary>
+    private ImmutableArray<double> PositionsFor(int segment, FaultType type, in FaultSolution mid, bool refined)
+    {
+        var z1 = _segmentZ1Ohm[segment];
+        var loop = type is FaultType.LG or FaultType.LLG ? ((2 * z1) + _segmentZ0Ohm[segment]) / 3 : z1;
+        var dropShare = mid.FaultedPhaseCurrentA * loop.Magnitude / mid.PhaseVoltageV;
+        if (dropShare < FlatDropShare)
+        {
+            return MidpointOnly;
+        }
+
+        // The coarse pass keeps to the option's positions; the refined one takes more where the drop is larger.
+        var count = Math.Min(MaximumPositions, (int)Math.Ceiling(dropShare / (2 * FlatDropShare)));
+        if (!refined || count <= _options.Positions.Length)
+        {
+            return _options.Positions;
+        }
+
+        return [.. Enumerable.Range(0, count).Select(k => (k + 0.5) / count)];
+    }
+
+    /// <summary>Share of the phase voltage under which the fault current's drop along a segment changes nothing the evidence shows: 1 %.</summary>
+    private const double FlatDropShare = 0.01;
+
+    private const int MaximumPositions = 5;
 
     internal double MeasurementLogLikelihood(SubstationMeasurement m, (double PhaseA, double ResidualA, double NeutralV) predicted)
     {

@@ -45,6 +45,13 @@ public sealed record RankingOptions
     /// </summary>
     public double VoltageFactor { get; init; } = 1.0;
 
+    /// <summary>
+    /// σ of ln(current / pickup) at which an indicator is taken to pick up: 0.1, about the ±10 % to which
+    /// indicator settings and the model's currents hold (common practice). Near its pickup an indicator
+    /// may show either state; 0 makes every pickup a sharp step.
+    /// </summary>
+    public double PickupTolerance { get; init; } = 0.1;
+
     /// <summary>Faulted-phase current at the feeder breaker: 5 % + 20 A (CT and recorder class, common practice).</summary>
     public MeasurementTolerance PhaseCurrentTolerance { get; init; } = new(0.05, 20);
 
@@ -118,6 +125,11 @@ public sealed record RankingOptions
             {
                 throw new ArgumentOutOfRangeException(name, p, $"{name} must lie strictly between 0 and 0.5");
             }
+        }
+
+        if (!(PickupTolerance is >= 0 and <= 1))
+        {
+            throw new ArgumentOutOfRangeException(nameof(PickupTolerance), PickupTolerance, "pickup tolerance (σ of ln I/I_pickup) must be within 0 to 1");
         }
 
         if (Positions.IsDefaultOrEmpty || Positions.Any(p => !(p is >= 0 and <= 1)))

@@ -43,8 +43,13 @@ public sealed record SuspectExplanation(
     ImmutableArray<MeasurementCheck> Measurements,
     DistanceWindow? DistanceWindow);
 
-/// <summary>Two earth faults on different phases at once (isolated and resonant networks).</summary>
-public sealed record CrossCountrySuspect(SegmentId First, SegmentId Second, double Probability);
+/// <summary>Two earth faults on different phases at once (isolated and resonant networks), and the sections that hold them.</summary>
+public sealed record CrossCountrySuspect(SegmentId First, SegmentId Second, double Probability)
+{
+    public SectionId FirstSection { get; init; }
+
+    public SectionId SecondSection { get; init; }
+}
 
 /// <summary>
 /// The ranking of an incident: posterior probabilities over segments and sections (each list sums to
@@ -72,6 +77,13 @@ public sealed record RankingResult(
 
     /// <summary>Indicators read more than their reset time after the fault: their readings carry no weight.</summary>
     public ImmutableArray<IndicatorId> Expired { get; init; } = [];
+
+    /// <summary>
+    /// Total probability of the cross-country pairs in <see cref="CrossCountry"/>; 0 where none is reported.
+    /// Pairs are reported only where they explain the evidence better than any single fault, and then
+    /// <see cref="Consistent"/> stays false: no single fault explains it.
+    /// </summary>
+    public double CrossCountryProbability { get; init; }
 }
 
 /// <summary>Thrown where an incident cannot be ranked (its switch states give no radial network, nothing is energised).</summary>

@@ -7,6 +7,7 @@ public class RankCommandTests
     public static TheoryData<string> SampleIncidents => new()
     {
         "impedance-lg-trip-a2",
+        "isolated-cross-country-both-a-feeders",
         "isolated-standing-earth-fault-a2",
         "resonant-standing-earth-fault-b1",
         "solid-lg-trip-a1",
@@ -62,6 +63,34 @@ public class RankCommandTests
 
         Assert.Equal(0, run.ExitCode);
         Assert.Contains("SEC-S108", run.Out, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Rank_reports_a_cross_country_pair_in_json_and_text_and_does_not_call_it_consistent()
+    {
+        // sample-grid/README.md: worked as two bolted earth faults, at the middles of S105 (feeder A1) and
+        // S206 (feeder A2), the loop current about 3650 A at c = 1.0 (the loop of CrossCountryRanking).
+        var json = Rank("isolated-cross-country-both-a-feeders").Json();
+
+        Assert.False(json.GetProperty("consistent").GetBoolean());
+        var cross = json.GetProperty("crossCountry");
+        Assert.InRange(cross.GetProperty("probability").GetDouble(), 0.5, 1);
+        var top = cross.GetProperty("pairs")[0];
+        Assert.Equal(["SEC-S105", "SEC-S206"], top.GetProperty("sections").EnumerateArray().Select(s => s.GetString()).Order());
+        Assert.Equal(2, top.GetProperty("segments").GetArrayLength());
+
+        var text = CliRun.Of("rank", SampleGrids.Path("isolated"), Incident("isolated-cross-country-both-a-feeders"));
+        Assert.Equal(0, text.ExitCode);
+        Assert.Contains("CROSS-COUNTRY: no single fault explains the evidence", text.Out, StringComparison.Ordinal);
+        Assert.Matches(@"S10[5-7] \(SEC-S105\) \+ S20[6-8] \(SEC-S206\)|S20[6-8] \(SEC-S206\) \+ S10[5-7] \(SEC-S105\)", text.Out);
+    }
+
+    [Fact]
+    public void Rank_of_a_single_fault_has_no_cross_country_field()
+    {
+        var json = Rank("isolated-standing-earth-fault-a2").Json();
+
+        Assert.False(json.TryGetProperty("crossCountry", out _));
     }
 
     [Fact]

@@ -39,7 +39,7 @@ public class SchemaTests
     public void Every_sample_grid_and_incident_is_checked()
     {
         Assert.Equal(4 + 4, GridFiles.Count);
-        Assert.Equal(9 + 1, IncidentFiles.Count);
+        Assert.Equal(10 + 1, IncidentFiles.Count);
     }
 
     [Theory]

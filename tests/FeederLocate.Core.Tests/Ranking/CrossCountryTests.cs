@@ -48,7 +48,10 @@ public class CrossCountryTests
         Assert.NotEmpty(ranking.CrossCountry);
         var top = ranking.CrossCountry[0];
         Assert.Equal(["S105", "S206"], new[] { top.First.Value, top.Second.Value }.Order());
-        Assert.True(ranking.Consistent);
+        Assert.Equal(["SEC-S105", "SEC-S206"], new[] { top.FirstSection.Value, top.SecondSection.Value }.Order());
+        // Only the pair explains the evidence: no single fault does, so the evidence is not called consistent.
+        Assert.False(ranking.Consistent);
+        Assert.InRange(ranking.CrossCountryProbability, ranking.CrossCountry.Sum(p => p.Probability) - 1e-9, 1);
         Assert.Equal(["SEC-S105", "SEC-S206"], ranking.Sections.Take(2).Select(s => s.Id.Value).Order());
         var inTrueSections = ranking.CrossCountry.Where(p => InSections(p)).Sum(p => p.Probability);
         Assert.True(inTrueSections > 0.9, $"pairs in SEC-S105 × SEC-S206: {inTrueSections:F3}");

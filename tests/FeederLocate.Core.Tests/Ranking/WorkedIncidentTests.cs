@@ -110,7 +110,9 @@ public class WorkedIncidentTests
         Assert.Equal("SEC-S209", ranking.Sections[0].Id.Value);
         Assert.Equal("SEC-S212", ranking.Sections[1].Id.Value);
         var odds = ranking.Sections[0].Probability / ranking.Sections[1].Probability;
-        Assert.Equal((0.011 * 3 + 0.038 * 8) / (0.026 * 8), odds, 1e-6);
+        // Within 0.01 %: segments whose fault current comes within the pickup tolerance of an indicator's setting
+        // (RankingOptions.PickupTolerance) explain its report very slightly less than certainly.
+        Assert.Equal((0.011 * 3 + 0.038 * 8) / (0.026 * 8), odds, 1e-4 * odds);
         Assert.True(ranking.Sections[0].Probability + ranking.Sections[1].Probability > 0.99);
     }
 
@@ -159,7 +161,9 @@ public class WorkedIncidentTests
         // tuned bus shunt's 30 kΩ). The posterior is then the prior: S1 3 km cable at 3, S2 6 km overhead at
         // 8, S3 4 km cable at 3 faults per 100 km·year (the defaults, DOMAIN.md: from memory, typical MV figures;
         // the Tiny Fen line types give none) = 0.09 : 0.48 : 0.12 per year.
-        // Tolerance 1e-3 for the U0 record's small pull.
+        // Tolerance 2e-3 for the U0 record's small pull: the refined quadrature (RankingComputation.RefineContenders)
+        // resolves the record's peak in fault resistance, which the series impedance shifts a little per segment
+        // (1.3e-3 on S2 seen; the coarse grid alone smeared it to under 1e-3).
         var grid = Grids.TinyFen("resonant");
         var text = RepositoryFiles.Read("tests", "FeederLocate.Core.Tests", "ReferenceCases", "TinyFen", "tiny-resonant-lg-s2.incident.json");
         var incident = IncidentReader.Parse(text, grid).ValueOrThrow();
@@ -168,9 +172,9 @@ public class WorkedIncidentTests
         var ranking = FaultRanking.Rank(grid, incident, RankingOptions.Default with { VoltageFactor = 1.1 });
 
         var p = ranking.Segments.ToDictionary(s => s.Id.Value, s => s.Probability);
-        Assert.Equal(0.09 / 0.69, p["S1"], 1e-3);
-        Assert.Equal(0.48 / 0.69, p["S2"], 1e-3);
-        Assert.Equal(0.12 / 0.69, p["S3"], 1e-3);
+        Assert.Equal(0.09 / 0.69, p["S1"], 2e-3);
+        Assert.Equal(0.48 / 0.69, p["S2"], 2e-3);
+        Assert.Equal(0.12 / 0.69, p["S3"], 2e-3);
         Assert.True(ranking.Consistent);
     }
 

@@ -51,6 +51,31 @@ public class WorkspacePanelTests : ComponentTest
     }
 
     [Fact]
+    public void Ranked_list_shows_a_cross_country_pair_instead_of_the_single_fault_warning()
+    {
+        var pair = new CrossCountrySuspect(new SegmentId("S105"), new SegmentId("S206"), 0.7)
+        {
+            FirstSection = new SectionId("SEC-S105"),
+            SecondSection = new SectionId("SEC-S206"),
+        };
+        var ranking = new RankingResult(
+            false,
+            [new RankedSegment(new SegmentId("S105"), new SectionId("SEC-S105"), 0.5), new RankedSegment(new SegmentId("S206"), new SectionId("SEC-S206"), 0.5)],
+            [new RankedSection(new SectionId("SEC-S105"), [new SegmentId("S105")], 0.5), new RankedSection(new SectionId("SEC-S206"), [new SegmentId("S206")], 0.5)],
+            [], [], [pair], [], ImmutableDictionary<FaultType, double>.Empty, [])
+        {
+            CrossCountryProbability = 0.9,
+        };
+
+        var cut = Render<RankedList>(p => p.Add(c => c.Ranking, ranking));
+
+        var warning = cut.Find("[data-testid='cross-country']");
+        Assert.Contains("no single fault explains the evidence", warning.TextContent, StringComparison.Ordinal);
+        cut.Find("li[data-pair='S105+S206']").MarkupMatches("<li data-pair=\"S105+S206\">S105 (SEC-S105) + S206 (SEC-S206): 70 %</li>");
+        Assert.Empty(cut.FindAll("[data-testid='inconsistent']"));
+    }
+
+    [Fact]
     public void Ranked_list_says_why_there_is_no_ranking()
     {
         var cut = Render<RankedList>(p => p.Add(c => c.Problem, "the switching state closes a loop"));

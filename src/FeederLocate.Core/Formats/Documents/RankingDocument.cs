@@ -10,7 +10,7 @@ public sealed record RankingDocument(
     IReadOnlyList<RankingDocument.SectionEntry> Sections,
     IReadOnlyList<RankingDocument.SuspectEntry> Suspects,
     IReadOnlyList<RankingDocument.CheckEntry> Disagreeing,
-    IReadOnlyList<RankingDocument.PairEntry> CrossCountry,
+    RankingDocument.CrossCountryEntry? CrossCountry,
     IReadOnlyList<string> LeftOut,
     IReadOnlyDictionary<string, double> FaultTypes,
     IReadOnlyList<string> Assumptions)
@@ -31,7 +31,9 @@ public sealed record RankingDocument(
             [.. e.Measurements.Select(m => new MeasurementEntry(m.Device.Value, m.Quantity, m.MeasuredValue, m.PredictedValue, m.DeviationSigma))],
             e.DistanceWindow is { } w ? new WindowEntry(w.FromKm, w.ToKm) : null))],
         [.. r.Disagreeing.Select(CheckEntry.From)],
-        [.. r.CrossCountry.Select(c => new PairEntry([c.First.Value, c.Second.Value], c.Probability))],
+        r.CrossCountry.IsDefaultOrEmpty ? null : new CrossCountryEntry(
+            r.CrossCountryProbability,
+            [.. r.CrossCountry.Select(c => new PairEntry([c.First.Value, c.Second.Value], [c.FirstSection.Value, c.SecondSection.Value], c.Probability))]),
         [.. r.LeftOut.Select(i => i.Value)],
         r.FaultTypeProbabilities.ToDictionary(p => p.Key.ToString(), p => p.Value),
         r.Assumptions)
@@ -64,5 +66,8 @@ public sealed record RankingDocument(
 
     public sealed record WindowEntry(double FromKm, double ToKm);
 
-    public sealed record PairEntry(IReadOnlyList<string> Segments, double Probability);
+    /// <summary>Present where a pair of earth faults on different phases explains the evidence better than any single fault.</summary>
+    public sealed record CrossCountryEntry(double Probability, IReadOnlyList<PairEntry> Pairs);
+
+    public sealed record PairEntry(IReadOnlyList<string> Segments, IReadOnlyList<string> Sections, double Probability);
 }

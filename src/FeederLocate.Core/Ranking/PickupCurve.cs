@@ -1,0 +1,41 @@
+namespace FeederLocate.Core.Ranking;
+
+/// <summary>
+/// P(an element picks up | the current the reference model predicts): a setting is met within a
+/// tolerance, and the model's current is not exact either, so near its pickup an indicator may show
+/// either state. z = ln(I / I_pickup) / σ, σ = <see cref="RankingOptions.PickupTolerance"/>, through the
+/// logistic curve 1 / (1 + e^(−1.702 z)) (within 0.01 of the normal distribution's; a cheap stand-in),
+/// truncated at ±<see cref="BandSigma"/> and stretched to reach exactly 0 and 1 there, so that far from
+/// the pickup the answer is a step (what lets the ranking sum most indicators at once, and equal the
+/// plain sum to rounding).
+/// </summary>
+internal static class PickupCurve
+{
+    /// <summary>Half-width of the uncertain band, in σ of ln(I / I_pickup).</summary>
+    public const double BandSigma = 3;
+
+    private static readonly double Low = Logistic(-BandSigma);
+    private static readonly double Span = Logistic(BandSigma) - Low;
+
+    /// <summary>P(pickup) for <paramref name="currentA"/> at a setting <paramref name="pickupA"/>; 0 where the element is absent (NaN) or sees nothing.</summary>
+    public static double Probability(double currentA, double pickupA, double sigma)
+    {
+        if (double.IsNaN(pickupA) || !(currentA > 0))
+        {
+            return 0;
+        }
+
+        if (sigma <= 0)
+        {
+            return currentA >= pickupA ? 1 : 0;
+        }
+
+        var z = Math.Log(currentA / pickupA) / sigma;
+        return z <= -BandSigma ? 0 : z >= BandSigma ? 1 : Math.Clamp((Logistic(z) - Low) / Span, 0, 1);
+    }
+
+    private static double Logistic(double z) => 1 / (1 + Math.Exp(-1.702 * z));
+
+    /// <summary>The factor e^(band) by which the current may differ from the pickup and the answer still be uncertain.</summary>
+    public static double BandFactor(double sigma) => Math.Exp(BandSigma * Math.Max(0, sigma));
+}
