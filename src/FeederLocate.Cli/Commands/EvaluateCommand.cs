@@ -19,16 +19,19 @@ internal static class EvaluateCommand
         var unknown = new Option<double>("--unknown") { Description = "Probability that a report is lost", DefaultValueFactory = _ => 0.10 };
         var learning = new Option<bool>("--learning") { Description = "Replay a simulated history of --incidents outcomes and print the learning curve" };
         var tests = new Option<int>("--test-incidents") { Description = "With --learning: incidents scored at each point of the curve", DefaultValueFactory = _ => 200 };
-        var hot = new Option<string?>("--hot-segment") { Description = "With --learning: the segment that fails five times as often as nominal" };
-        var noisy = new Option<string?>("--noisy-indicator") { Description = "With --learning: the indicator that reports falsely half the time" };
+        var hot = new Option<string?>("--hot-segment") { Description = "With --learning: the segment that fails --hot-factor times as often as nominal" };
+        var noisy = new Option<string?>("--noisy-indicator") { Description = "With --learning: the indicator that reports falsely with probability --noisy-false" };
+        var hotFactor = new Option<double>("--hot-factor") { Description = "With --learning: how many times its line type's rate the hot segment fails", DefaultValueFactory = _ => 5 };
+        var noisyFalse = new Option<double>("--noisy-false") { Description = "With --learning: the noisy indicator's probability of reporting falsely", DefaultValueFactory = _ => 0.5 };
         var json = CliOptions.Json();
         var command = new Command("evaluate", "Simulate incidents with the reference model and score the ranking against the truth and a baseline rule; with --learning, the learning curve")
         {
-            grid, incidents, seed, miss, falseReport, unknown, learning, tests, hot, noisy, json,
+            grid, incidents, seed, miss, falseReport, unknown, learning, tests, hot, noisy, hotFactor, noisyFalse, json,
         };
         command.SetAction(parse => parse.GetValue(learning)
             ? EvaluateLearning.Run(console, InputFiles.LoadGrid(parse.GetValue(grid)!, console.Error), Math.Max(1, parse.GetValue(incidents)),
-                Math.Max(1, parse.GetValue(tests)), parse.GetValue(seed), parse.GetValue(hot), parse.GetValue(noisy), parse.GetValue(json))
+                Math.Max(1, parse.GetValue(tests)), parse.GetValue(seed),
+                new LearningDefects(parse.GetValue(hot), parse.GetValue(noisy), parse.GetValue(hotFactor), parse.GetValue(noisyFalse)), parse.GetValue(json))
             : Run(console, parse.GetValue(grid)!, parse.GetValue(incidents), parse.GetValue(seed),
                 new SimulationSettings(parse.GetValue(miss), parse.GetValue(falseReport), parse.GetValue(unknown)), parse.GetValue(json)));
         return command;

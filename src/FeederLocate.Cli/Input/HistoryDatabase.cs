@@ -32,13 +32,14 @@ public static class HistoryDatabase
 
         using var store = Open(path);
         var grid = graph.Grid;
+        // Outcomes the grid cannot explain (a segment since removed, ...) are skipped by the learning itself.
         var outcomes = store.Outcomes(grid.Name)
-            .Where(o => grid.HasSegment(o.ConfirmedSegment))
             .Select(o => new ConfirmedIncident(o.Incident, o.ConfirmedSegment))
             .ToList();
         return LearnedRankingPriors.From(graph, outcomes);
     }
 
+    /// <summary>Every outcome recorded for a grid of the same name; the learning skips and reports those the grid cannot explain.</summary>
     public static IReadOnlyList<ConfirmedIncident> OutcomesFor(IncidentStore store, Grid grid) =>
-        [.. store.Outcomes(grid.Name).Where(o => grid.HasSegment(o.ConfirmedSegment)).Select(o => new ConfirmedIncident(o.Incident, o.ConfirmedSegment))];
+        [.. store.Outcomes(grid.Name).Select(o => new ConfirmedIncident(o.Incident, o.ConfirmedSegment))];
 }

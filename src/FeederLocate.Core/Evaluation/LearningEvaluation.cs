@@ -5,8 +5,14 @@ using FeederLocate.Core.Topology;
 
 namespace FeederLocate.Core.Evaluation;
 
-/// <summary>One point of the learning curve: section top-1 after <see cref="Outcomes"/> logged outcomes.</summary>
-public sealed record LearningPoint(int Outcomes, double SectionTop1);
+/// <summary>
+/// One point of the learning curve: section top-1 after <see cref="Outcomes"/> logged outcomes, with what was
+/// learned about the two defects by then (before any outcome: the line type's rate and the kind's default).
+/// </summary>
+/// <param name="HotSegmentFaultsPer100KmYear">The hot segment's learned rate, faults per 100 km·year.</param>
+/// <param name="NoisyFalseReportProbability">The noisy indicator's learned P(false report).</param>
+/// <param name="Skipped">Outcomes the learning had to leave out (the grid could not explain them).</param>
+public sealed record LearningPoint(int Outcomes, double SectionTop1, double HotSegmentFaultsPer100KmYear = double.NaN, double NoisyFalseReportProbability = double.NaN, int Skipped = 0);
 
 /// <summary>
 /// The learning curve: section top-1 of the ranking with priors learned from a growing simulated
@@ -19,7 +25,23 @@ public sealed record LearningReport(
     double NoisyFalseProbability,
     int TestIncidents,
     ImmutableArray<LearningPoint> Curve,
-    double TruthSectionTop1);
+    double TruthSectionTop1)
+{
+    /// <summary>The hot segment's true rate, faults per 100 km·year.</summary>
+    public double HotSegmentTrueFaultsPer100KmYear { get; init; } = double.NaN;
+
+    /// <summary>
+    /// The share of the gap between no history and the truth closed at a point: (top-1 − top-1 at 0) /
+    /// (truth − top-1 at 0); NaN where there is no gap to close (the truth does no better than no history).
+    /// </summary>
+    public double GapRecovered(LearningPoint point)
+    {
+        ArgumentNullException.ThrowIfNull(point);
+        var start = Curve.First(p => p.Outcomes == Curve.Min(q => q.Outcomes)).SectionTop1;
+        var gap = TruthSectionTop1 - start;
+        return gap > 0 ? (point.SectionTop1 - start) / gap : double.NaN;
+    }
+}
 
 /// <summary>
 /// Replays a simulated history in which one segment fails <c>factor</c> times as often as its line type
@@ -64,14 +86,23 @@ public static class LearningEvaluation
         foreach (var k in checkpoints.Order())
         {
             var outcomes = history.Take(k).Select(h => new ConfirmedIncident(h.Incident, h.Segment)).ToList();
-            var priors = LearnedRankingPriors.From(graph, outcomes);
-            curve.Add(new LearningPoint(k, SectionTop1(graph, tests, options, priors)));
+            var learned = LearnedRankingPriors.Learn(graph, outcomes);
+            var priors = LearnedRankingPriors.ToRankingPriors(learned, hasHistory: k > 0);
+            curve.Add(new LearningPoint(
+                k,
+                SectionTop1(graph, tests, options, priors),
+                learned.FaultRateOf(hotSegment).FaultsPer100KmYear,
+                learned.ReliabilityOf(noisyIndicator).FalseReportProbability,
+                learned.Skipped.Length));
             progress?.Report(++done / (double)total);
         }
 
         var truthTop1 = SectionTop1(graph, tests, options, truth);
         progress?.Report(1);
-        return new LearningReport(hotSegment, hotSegmentRateFactor, noisyIndicator, noisyFalseProbability, testIncidents, curve.ToImmutable(), truthTop1);
+        return new LearningReport(hotSegment, hotSegmentRateFactor, noisyIndicator, noisyFalseProbability, testIncidents, curve.ToImmutable(), truthTop1)
+        {
+            HotSegmentTrueFaultsPer100KmYear = 100 * nominal * hotSegmentRateFactor,
+        };
     }
 
     private static double SectionTop1(NetworkGraph graph, List<SimulatedIncident> tests, RankingOptions options, RankingPriors priors)

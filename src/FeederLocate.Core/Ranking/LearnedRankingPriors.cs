@@ -1,4 +1,5 @@
 using System.Collections.Immutable;
+using FeederLocate.Core.Electrical;
 using FeederLocate.Core.Evidence;
 using FeederLocate.Core.Learning;
 using FeederLocate.Core.Model;
@@ -12,32 +13,101 @@ public sealed record ConfirmedIncident(Incident Incident, SegmentId Segment);
 /// <summary>
 /// Turns logged outcomes into priors for the ranking: each confirmed fault counts for its segment's
 /// fault rate; each indication is compared with what the engine says the indicator should have shown
-/// for the best-fitting fault on the confirmed segment (type, resistance and position refined against
-/// the incident's own records), and counts as a hit, a miss or a false report.
+/// for a fault on the confirmed segment, and counts as a hit, a miss, a false report or a wrong direction.
 /// </summary>
+/// <remarks>
+/// What an indicator should have shown depends on the fault type and resistance, which are unknown (on
+/// isolated and resonant networks its earth element may or may not pick up). They are marginalised as the
+/// ranking does: each fault type the incident allows, with its weight, over the ranking's grid of fault
+/// resistances and positions, weighted by the likelihood of the incident's substation records (and the
+/// tripped device) and of its indications for that fault. The indications weigh with the error rates being
+/// learned, so the learning alternates (expectation–maximisation, <see cref="Iterations"/> rounds): with the
+/// current rates, the posterior over the hypotheses of each incident; each indication then counts for each
+/// expected state with that state's posterior probability; from those counts, new rates. An indicator that
+/// reports falsely again and again is learned to do so, and then no longer pulls the fault resistance toward
+/// the value that would excuse it.
+/// </remarks>
 public static class LearnedRankingPriors
 {
+    /// <summary>Rounds of expectation–maximisation: the first uses the ranking's default error rates.</summary>
+    public const int Iterations = 4;
+
     /// <summary>
-    /// Learning as the ranking uses it: a segment's own record outweighs its line type only after
-    /// 100 km·years (faults are rare; a single one on a short segment must not triple its rate), and
-    /// the error-rate priors equal the ranking's defaults (misreading is added by the ranking itself).
+    /// Learning as the ranking uses it: prior strengths and type-level rates chosen by empirical Bayes
+    /// within stated bounds; where there is nothing to choose from, a segment's own record outweighs its line
+    /// type only after 100 km·years, and the error-rate priors equal the ranking's defaults (misreading is
+    /// added by the ranking itself).
     /// </summary>
     public static LearningOptions Options { get; } = new(
-        FaultRateOptions.Default with { SegmentShrinkKmYears = 100 },
+        FaultRateOptions.Default with { SegmentShrinkKmYears = 100, ChooseStrengthsByData = true },
         IndicatorReliabilityOptions.Default with
         {
             FieldMissProbability = RankingOptions.Default.FieldRates.MissProbability,
             FieldFalseReportProbability = RankingOptions.Default.FieldRates.FalseReportProbability,
+            ChooseStrengthsByData = true,
         });
 
+    /// <summary>
+    /// Learns from the outcomes. An outcome the grid cannot explain (unknown segment or element, switch states
+    /// with a loop, a confirmed segment left dead by them) is skipped and listed in <see cref="LearnedPriors.Skipped"/>.
+    /// </summary>
     public static LearnedPriors Learn(NetworkGraph graph, IReadOnlyList<ConfirmedIncident> outcomes, LearningOptions? options = null)
     {
         options ??= Options;
         ArgumentNullException.ThrowIfNull(graph);
         ArgumentNullException.ThrowIfNull(outcomes);
-        var faults = outcomes.Select(o => new ConfirmedFault(o.Segment, o.Incident.ReportedAt)).ToList();
-        var observations = outcomes.SelectMany(o => IndicatorObservation.ForIncident(o.Incident, ExpectedAtConfirmed(graph, o.Incident, o.Segment))).ToList();
-        return HistoryLearning.Learn(graph.Grid, faults, observations, options);
+        var faults = new List<ConfirmedFault>();
+        var readings = new List<ConfirmedReading>();
+        var skipped = new List<SkippedOutcome>();
+        foreach (var outcome in outcomes)
+        {
+            var reportedAt = outcome.Incident.ReportedAt;
+            if (!graph.Grid.HasSegment(outcome.Segment))
+            {
+                skipped.Add(new SkippedOutcome(reportedAt, outcome.Segment, $"segment {outcome.Segment} is not in grid {graph.Grid.Name}"));
+                continue;
+            }
+
+            try
+            {
+                readings.Add(Read(graph, outcome.Incident, outcome.Segment));
+                faults.Add(new ConfirmedFault(outcome.Segment, reportedAt));
+            }
+            catch (Exception e) when (e is RankingException or KeyNotFoundException or ArgumentException)
+            {
+                skipped.Add(new SkippedOutcome(reportedAt, outcome.Segment, e.Message));
+            }
+        }
+
+        var ranking = RankingOptions.Default;
+        RankingPriors? rates = null;
+        LearnedPriors? learned = null;
+        var posteriors = new double[readings.Count][];
+        for (var round = 0; round < Math.Max(1, Iterations); round++)
+        {
+            var observations = new List<IndicatorObservation>();
+            for (var r = 0; r < readings.Count; r++)
+            {
+                posteriors[r] = readings[r].Posterior(graph.Grid, ranking, rates ?? RankingPriors.None);
+                observations.AddRange(readings[r].Observations(posteriors[r]));
+            }
+
+            learned = HistoryLearning.Learn(graph.Grid, faults, observations, options);
+            rates = ToRankingPriors(learned, hasHistory: true);
+        }
+
+        var phaseRatios = new List<double>();
+        var residualRatios = new List<double>();
+        for (var r = 0; r < readings.Count; r++)
+        {
+            readings[r].Ratios(posteriors[r], phaseRatios, residualRatios);
+        }
+
+        return learned! with
+        {
+            Skipped = [.. skipped],
+            RecordRatios = [RecordRatio.Of("phase current", phaseRatios), RecordRatio.Of("residual current", residualRatios)],
+        };
     }
 
     /// <summary>The ranking's priors: learned fault rates for every segment; learned error rates once history exists.</summary>
@@ -47,7 +117,9 @@ public static class LearnedRankingPriors
         var rates = learned.FaultRates.Segments.ToImmutableDictionary(s => s.Segment, s => s.FaultsPerKmYear);
         var indicators = hasHistory
             ? learned.Indicators.Indicators.ToImmutableDictionary(i => i.Indicator, i => new IndicatorErrorRates(
-                Math.Min(0.45, i.MissProbability), Math.Min(0.45, i.FalseReportProbability)))
+                Math.Min(0.45, i.MissProbability),
+                Math.Min(0.45, i.FalseReportProbability),
+                WrongDirectionProbability: i.WrongDirectionProbability is { } w ? Math.Min(0.45, w) : null))
             : ImmutableDictionary<IndicatorId, IndicatorErrorRates>.Empty;
         return new RankingPriors(rates, indicators);
     }
@@ -55,6 +127,20 @@ public static class LearnedRankingPriors
     /// <summary>Learns from the outcomes and gives the ranking's priors in one step.</summary>
     public static RankingPriors From(NetworkGraph graph, IReadOnlyList<ConfirmedIncident> outcomes, LearningOptions? options = null) =>
         outcomes.Count == 0 ? RankingPriors.None : ToRankingPriors(Learn(graph, outcomes, options), hasHistory: true);
+
+    /// <summary>
+    /// What each indicator the incident lists should have shown for a fault on the confirmed segment, as
+    /// probabilities of the states over the fault types, resistances and positions weighted by the incident's
+    /// records. Throws <see cref="RankingException"/> where the grid cannot explain the incident.
+    /// </summary>
+    public static IReadOnlyDictionary<IndicatorId, IReadOnlyDictionary<IndicatorState, double>> ExpectedDistributionAtConfirmed(
+        NetworkGraph graph, Incident incident, SegmentId segment)
+    {
+        ArgumentNullException.ThrowIfNull(graph);
+        ArgumentNullException.ThrowIfNull(incident);
+        var reading = Read(graph, incident, segment);
+        return reading.ExpectedDistribution(reading.Posterior(graph.Grid, RankingOptions.Default, RankingPriors.None, withIndications: false));
+    }
 
     /// <summary>What each indicator the incident lists should have shown for the best-fitting fault on the confirmed segment.</summary>
     public static IReadOnlyDictionary<IndicatorId, IndicatorState> ExpectedAtConfirmed(NetworkGraph graph, Incident incident, SegmentId segment)
@@ -73,5 +159,149 @@ public static class LearnedRankingPriors
         var fault = computation.Model.Solve(index, best.Position, best.Type, best.FaultResistanceOhm);
         var expected = computation.ExpectedStates(index, fault);
         return computation.Observed.Select((o, i) => (o.Indicator.Id, expected[i])).ToDictionary(p => p.Id, p => p.Item2);
+    }
+
+    private static ConfirmedReading Read(NetworkGraph graph, Incident incident, SegmentId segment)
+    {
+        var options = RankingOptions.Default;
+        var computation = new RankingComputation(graph, incident with { Indications = [.. incident.Indications.Select(i => i with { Suspect = false })] },
+            options, RankingPriors.None);
+        var index = graph.Grid.SegmentIndex(segment);
+        var network = computation.Network;
+        if (!network.IsSegmentEnergised(index))
+        {
+            throw new RankingException($"segment {segment} is not energised in the incident's switch states: the fault cannot have been there");
+        }
+
+        var substation = network.SubstationIndexOf(network.SuppliedEndOf(index));
+        var plans = HypothesisPlan.For(graph.Grid.Substations[substation].Grounding.Scheme, incident, options);
+        var beyond = Enumerable.Range(0, computation.Measured.Count)
+            .Where(m => computation.Measured[m].Point.Substation == substation && computation.Model.IsFaultBeyond(computation.Measured[m].Point, index))
+            .ToArray();
+        var logWeights = new List<double>();
+        var expected = new List<IndicatorState[]>();
+        var predicted = new List<(double PhaseA, double ResidualA)[]>();
+        var trip = computation.TripLogFactor(index);
+        foreach (var plan in plans)
+        {
+            var logPrior = plan.LogWeight - Math.Log(plan.ResistancesOhm.Length) - Math.Log(options.Positions.Length);
+            foreach (var rf in plan.ResistancesOhm)
+            {
+                foreach (var position in options.Positions)
+                {
+                    var fault = computation.Model.Solve(index, position, plan.Type, rf);
+                    logWeights.Add(logPrior + trip + computation.RecordLogLikelihoodFast(index, fault));
+                    expected.Add(computation.ExpectedStates(index, fault));
+                    predicted.Add([.. beyond.Select(m =>
+                    {
+                        var (phase, residual, _) = computation.Predicted(computation.Measured[m], index, fault);
+                        return (phase, residual);
+                    })]);
+                }
+            }
+        }
+
+        var observed = computation.Observed
+            .Select(o => (o.Indicator, Indication: incident.IndicationOf(o.Indicator.Id)!))
+            .ToArray();
+        var records = beyond.Select(m => computation.Measured[m].Measurement).ToArray();
+        return new ConfirmedReading([.. logWeights], [.. expected], observed, records, [.. predicted]);
+    }
+
+    /// <summary>
+    /// One confirmed incident compiled for learning: for each hypothesis on the confirmed segment (fault type,
+    /// resistance, position) the log-weight from its prior and the records, each observed indicator's expected
+    /// state, and the values predicted at the records whose device has the fault beyond it.
+    /// </summary>
+    private sealed record ConfirmedReading(
+        double[] LogRecordWeights,
+        IndicatorState[][] Expected,
+        (Indicator Indicator, Indication Indication)[] Observed,
+        SubstationMeasurement[] RecordsBeyond,
+        (double PhaseA, double ResidualA)[][] Predicted)
+    {
+        /// <summary>P(hypothesis | records and, with <paramref name="withIndications"/>, the trusted indications under the given rates).</summary>
+        public double[] Posterior(Grid grid, RankingOptions options, RankingPriors rates, bool withIndications = true)
+        {
+            var logs = (double[])LogRecordWeights.Clone();
+            if (withIndications)
+            {
+                for (var i = 0; i < Observed.Length; i++)
+                {
+                    var (indicator, indication) = Observed[i];
+                    if (indication.Suspect)
+                    {
+                        continue;
+                    }
+
+                    var byKind = indication.Source == IndicationSource.Field ? options.FieldRates : options.RemoteRates;
+                    var own = rates.IndicatorRates.TryGetValue(indicator.Id, out var learned) ? learned with { MisreadProbability = byKind.MisreadProbability } : byKind;
+                    for (var h = 0; h < logs.Length; h++)
+                    {
+                        logs[h] += Math.Log(IndicationLikelihood.Probability(indicator, own, Expected[h][i], indication.State));
+                    }
+                }
+            }
+
+            return LogMath.Normalise(logs);
+        }
+
+        /// <summary>Each indicator's expected states with their probabilities under <paramref name="posterior"/>.</summary>
+        public IReadOnlyDictionary<IndicatorId, IReadOnlyDictionary<IndicatorState, double>> ExpectedDistribution(double[] posterior)
+        {
+            var result = new Dictionary<IndicatorId, IReadOnlyDictionary<IndicatorState, double>>();
+            for (var i = 0; i < Observed.Length; i++)
+            {
+                var states = new Dictionary<IndicatorState, double>();
+                for (var h = 0; h < posterior.Length; h++)
+                {
+                    if (posterior[h] > 0)
+                    {
+                        states[Expected[h][i]] = states.GetValueOrDefault(Expected[h][i]) + posterior[h];
+                    }
+                }
+
+                result[Observed[i].Indicator.Id] = states;
+            }
+
+            return result;
+        }
+
+        /// <summary>The weighted observations: each indication against each expected state, weighted by its probability.</summary>
+        public IEnumerable<IndicatorObservation> Observations(double[] posterior)
+        {
+            foreach (var (id, states) in ExpectedDistribution(posterior))
+            {
+                var indication = Observed.First(o => o.Indicator.Id == id).Indication;
+                foreach (var (state, probability) in states)
+                {
+                    yield return new IndicatorObservation(id, state, indication.State, indication.Suspect, probability);
+                }
+            }
+        }
+
+        /// <summary>Recorded / predicted at the records with the fault beyond their device, the prediction averaged under <paramref name="posterior"/>.</summary>
+        public void Ratios(double[] posterior, List<double> phase, List<double> residual)
+        {
+            for (var m = 0; m < RecordsBeyond.Length; m++)
+            {
+                var (phaseA, residualA) = (0.0, 0.0);
+                for (var h = 0; h < posterior.Length; h++)
+                {
+                    phaseA += posterior[h] * Predicted[h][m].PhaseA;
+                    residualA += posterior[h] * Predicted[h][m].ResidualA;
+                }
+
+                if (RecordsBeyond[m].PhaseCurrentA is { } recordedPhase && recordedPhase > 0 && phaseA > 0)
+                {
+                    phase.Add(recordedPhase / phaseA);
+                }
+
+                if (RecordsBeyond[m].ResidualCurrentA is { } recordedResidual && recordedResidual > 0 && residualA > 0)
+                {
+                    residual.Add(recordedResidual / residualA);
+                }
+            }
+        }
     }
 }
