@@ -1,4 +1,5 @@
 using System.Collections.Concurrent;
+using FeederLocate.Core.Learning;
 using FeederLocate.Core.Ranking;
 using FeederLocate.Storage.Incidents;
 
@@ -14,6 +15,20 @@ public sealed class IncidentAnalysis(IncidentBoard board)
     private readonly ConcurrentDictionary<long, ((int Events, int Outcomes) Key, RankingOutcome Value)> _rankings = new();
     private readonly ConcurrentDictionary<(string Grid, int Outcomes, long Excluded), RankingPriors> _priors = new();
     private readonly ConcurrentDictionary<long, ((int Events, int Outcomes) Key, PlanOutcome Value)> _plans = new();
+    private readonly ConcurrentDictionary<string, (int Version, LearnedPriors Value)> _learned = new(StringComparer.Ordinal);
+
+    /// <summary>
+    /// What the grid's history has taught, computed once per grid and version of its history (which outcomes,
+    /// on which segments), never per page.
+    /// </summary>
+    public LearnedPriors Learned(LoadedGrid grid)
+    {
+        ArgumentNullException.ThrowIfNull(grid);
+        var outcomes = board.Outcomes(grid.Name);
+        var version = outcomes.Aggregate(outcomes.Count, (hash, o) => HashCode.Combine(hash, o.Id.Value, o.ConfirmedSegment.Value));
+        return Latest(_learned, grid.Name, version, () =>
+            LearnedRankingPriors.Learn(grid.Graph, [.. outcomes.Select(o => new ConfirmedIncident(o.Incident, o.ConfirmedSegment))]));
+    }
 
     /// <summary>The value kept for <paramref name="id"/> when it was made for <paramref name="key"/>; otherwise a new one, which replaces it.</summary>
     private static TValue Latest<TId, TKey, TValue>(ConcurrentDictionary<TId, (TKey Key, TValue Value)> cache, TId id, TKey key, Func<TValue> make)

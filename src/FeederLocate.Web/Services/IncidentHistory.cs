@@ -13,7 +13,11 @@ public sealed record GridHistory(
     LoadedGrid Grid,
     IReadOnlyList<IncidentReview> Incidents,
     IReadOnlyList<IndicatorReliability> Indicators,
-    IReadOnlyDictionary<SectionId, int> FaultsPerSection);
+    IReadOnlyDictionary<SectionId, int> FaultsPerSection)
+{
+    /// <summary>Everything learned from the grid's history: chosen prior strengths, skipped outcomes.</summary>
+    public LearnedPriors? Learned { get; init; }
+}
 
 /// <summary>Builds a grid's history from the incident log.</summary>
 public sealed class IncidentHistory(IncidentBoard board, IncidentAnalysis analysis)
@@ -41,10 +45,10 @@ public sealed class IncidentHistory(IncidentBoard board, IncidentAnalysis analys
             .Where(o => grid.Grid.HasSegment(o.ConfirmedSegment))
             .Select(o => new ConfirmedIncident(o.Incident, o.ConfirmedSegment))
             .ToList();
-        var learned = LearnedRankingPriors.Learn(grid.Graph, outcomes);
+        var learned = analysis.Learned(grid);
         var perSection = outcomes
             .GroupBy(o => grid.Graph.Sections.OfSegment(grid.Grid.SegmentIndex(o.Segment)).Id)
             .ToDictionary(g => g.Key, g => g.Count());
-        return new GridHistory(grid, reviews, [.. learned.Indicators.Indicators], perSection);
+        return new GridHistory(grid, reviews, [.. learned.Indicators.Indicators], perSection) { Learned = learned };
     }
 }

@@ -17,6 +17,7 @@ public static class ServiceRegistration
         services.AddFeederLocateSecurity(databasePath);
         services.AddSingleton<IncidentAnalysis>();
         services.AddSingleton<IncidentHistory>();
+        services.AddSingleton(_ => new LearningCurves(RepositoryPaths.Resolve(root, options.GridFolder)));
         services.AddSingleton(TimeProvider.System);
         return services;
     }
