@@ -23,15 +23,16 @@ internal static class EvaluateCommand
         var noisy = new Option<string?>("--noisy-indicator") { Description = "With --learning: the indicator that reports falsely with probability --noisy-false" };
         var hotFactor = new Option<double>("--hot-factor") { Description = "With --learning: how many times its line type's rate the hot segment fails", DefaultValueFactory = _ => 5 };
         var noisyFalse = new Option<double>("--noisy-false") { Description = "With --learning: the noisy indicator's probability of reporting falsely", DefaultValueFactory = _ => 0.5 };
+        var fixedStrengths = new Option<bool>("--fixed-strengths") { Description = "With --learning: hold the priors at their configured strengths instead of choosing them by the data (for comparison)" };
         var json = CliOptions.Json();
         var command = new Command("evaluate", "Simulate incidents with the reference model and score the ranking against the truth and a baseline rule; with --learning, the learning curve")
         {
-            grid, incidents, seed, miss, falseReport, unknown, learning, tests, hot, noisy, hotFactor, noisyFalse, json,
+            grid, incidents, seed, miss, falseReport, unknown, learning, tests, hot, noisy, hotFactor, noisyFalse, fixedStrengths, json,
         };
         command.SetAction(parse => parse.GetValue(learning)
             ? EvaluateLearning.Run(console, InputFiles.LoadGrid(parse.GetValue(grid)!, console.Error), Math.Max(1, parse.GetValue(incidents)),
                 Math.Max(1, parse.GetValue(tests)), parse.GetValue(seed),
-                new LearningDefects(parse.GetValue(hot), parse.GetValue(noisy), parse.GetValue(hotFactor), parse.GetValue(noisyFalse)), parse.GetValue(json))
+                new LearningDefects(parse.GetValue(hot), parse.GetValue(noisy), parse.GetValue(hotFactor), parse.GetValue(noisyFalse)), parse.GetValue(fixedStrengths), parse.GetValue(json))
             : Run(console, parse.GetValue(grid)!, parse.GetValue(incidents), parse.GetValue(seed),
                 new SimulationSettings(parse.GetValue(miss), parse.GetValue(falseReport), parse.GetValue(unknown)), parse.GetValue(json)));
         return command;

@@ -3,6 +3,7 @@ using FeederLocate.Cli.Input;
 using FeederLocate.Cli.Output;
 using FeederLocate.Core.Evaluation;
 using FeederLocate.Core.Model;
+using FeederLocate.Core.Ranking;
 
 namespace FeederLocate.Cli.Commands;
 
@@ -15,7 +16,7 @@ internal sealed record LearningDefects(string? HotSegment, string? NoisyIndicato
 /// </summary>
 internal static class EvaluateLearning
 {
-    public static int Run(CliConsole console, Grid grid, int historyLength, int testIncidents, int seed, LearningDefects defects, bool json)
+    public static int Run(CliConsole console, Grid grid, int historyLength, int testIncidents, int seed, LearningDefects defects, bool fixedStrengths, bool json)
     {
         var hot = defects.HotSegment is null ? DefaultHotSegment(grid) : new SegmentId(defects.HotSegment);
         var noisy = defects.NoisyIndicator is null ? DefaultNoisyIndicator(grid) : new IndicatorId(defects.NoisyIndicator);
@@ -39,9 +40,17 @@ internal static class EvaluateLearning
             throw new BadInputException($"error: --noisy-false is a probability: 0 to 1, got {defects.NoisyFalseProbability.ToString(CultureInfo.InvariantCulture)}");
         }
 
-        int[] checkpoints = [.. new[] { 0, 10, 25, 50, 100, 200, 400 }.Where(k => k < historyLength).Append(historyLength).Distinct()];
+        int[] checkpoints = [.. new[] { 0, 10, 25, 40, 50, 100, 200, 400 }.Where(k => k < historyLength).Append(historyLength).Distinct()];
+        var chosen = LearnedRankingPriors.Options;
+        var learning = fixedStrengths
+            ? chosen with
+            {
+                FaultRates = chosen.FaultRates with { ChooseStrengthsByData = false },
+                Indicators = chosen.Indicators with { ChooseStrengthsByData = false },
+            }
+            : chosen;
         var report = ProgressDisplay.Run(console, "learning curve", progress =>
-            LearningEvaluation.Run(grid, checkpoints, testIncidents, seed, hot, noisy, defects.HotFactor, defects.NoisyFalseProbability, progress: progress));
+            LearningEvaluation.Run(grid, checkpoints, testIncidents, seed, hot, noisy, defects.HotFactor, defects.NoisyFalseProbability, progress, learning));
         if (json)
         {
             JsonOutput.Write(console.Out, new
@@ -55,6 +64,7 @@ internal static class EvaluateLearning
                 noisyFalseProbability = report.NoisyFalseProbability,
                 testIncidents = report.TestIncidents,
                 seed,
+                priorStrengths = fixedStrengths ? "fixed" : "chosen by the data",
                 curve = report.Curve.Select(p => new
                 {
                     outcomes = p.Outcomes,
@@ -70,7 +80,7 @@ internal static class EvaluateLearning
         }
 
         var invariant = CultureInfo.InvariantCulture;
-        console.Out.WriteLine($"{grid.Name}: segment {hot} fails {report.HotSegmentRateFactor.ToString(invariant)}× as often as nominal ({report.HotSegmentTrueFaultsPer100KmYear.ToString("F1", invariant)} faults/100 km·year); indicator {noisy} reports falsely {report.NoisyFalseProbability.ToString("P0", invariant)} of the time; {testIncidents} test incidents, seed {seed}");
+        console.Out.WriteLine($"{grid.Name} (prior strengths {(fixedStrengths ? "fixed" : "chosen by the data")}): segment {hot} fails {report.HotSegmentRateFactor.ToString(invariant)}× as often as nominal ({report.HotSegmentTrueFaultsPer100KmYear.ToString("F1", invariant)} faults/100 km·year); indicator {noisy} reports falsely {report.NoisyFalseProbability.ToString("P0", invariant)} of the time; {testIncidents} test incidents, seed {seed}");
         var table = TableOutput.Table("outcomes recorded", "section top-1", "gap recovered", $"{hot} learned faults/100 km·year", $"{noisy} learned P(false report)", "skipped");
         foreach (var point in report.Curve)
         {

@@ -59,7 +59,8 @@ public static class LearningEvaluation
         IndicatorId noisyIndicator,
         double hotSegmentRateFactor = 5,
         double noisyFalseProbability = 0.5,
-        IProgress<double>? progress = null)
+        IProgress<double>? progress = null,
+        Learning.LearningOptions? learning = null)
     {
         ArgumentNullException.ThrowIfNull(grid);
         ArgumentNullException.ThrowIfNull(checkpoints);
@@ -86,7 +87,7 @@ public static class LearningEvaluation
         foreach (var k in checkpoints.Order())
         {
             var outcomes = history.Take(k).Select(h => new ConfirmedIncident(h.Incident, h.Segment)).ToList();
-            var learned = LearnedRankingPriors.Learn(graph, outcomes);
+            var learned = LearnedRankingPriors.Learn(graph, outcomes, learning);
             var priors = LearnedRankingPriors.ToRankingPriors(learned, hasHistory: k > 0);
             curve.Add(new LearningPoint(
                 k,

@@ -17,7 +17,7 @@ public sealed class LearningCurvesTests : IDisposable
         {
             var curve = curves.For($"Marrowdell 20 kV ({grid})");
             Assert.NotNull(curve);
-            Assert.Equal([0, 10, 25, 50, 100, 200], curve.Curve.Select(p => p.Outcomes));
+            Assert.Equal([0, 10, 25, 40, 50, 100, 200], curve.Curve.Select(p => p.Outcomes));
             Assert.All(curve.Curve, p => Assert.InRange(p.SectionTop1, 0, 1));
             Assert.InRange(curve.TruthSectionTop1, 0, 1);
         }
