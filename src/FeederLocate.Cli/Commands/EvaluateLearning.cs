@@ -71,6 +71,9 @@ internal static class EvaluateLearning
                     sectionTop1 = p.SectionTop1,
                     gapRecovered = Finite(report.GapRecovered(p)),
                     hotSegmentFaultsPer100KmYear = p.HotSegmentFaultsPer100KmYear,
+                    hotSegmentOutcomes = p.HotSegmentOutcomes,
+                    observationYears = p.ObservationYears,
+                    hotSegmentObservedFaultsPer100KmYear = Finite(p.HotSegmentObservedFaultsPer100KmYear),
                     noisyFalseReportProbability = p.NoisyFalseReportProbability,
                     skipped = p.Skipped,
                 }),
@@ -81,20 +84,23 @@ internal static class EvaluateLearning
 
         var invariant = CultureInfo.InvariantCulture;
         console.Out.WriteLine($"{grid.Name} (prior strengths {(fixedStrengths ? "fixed" : "chosen by the data")}): segment {hot} fails {report.HotSegmentRateFactor.ToString(invariant)}× as often as nominal ({report.HotSegmentTrueFaultsPer100KmYear.ToString("F1", invariant)} faults/100 km·year); indicator {noisy} reports falsely {report.NoisyFalseProbability.ToString("P0", invariant)} of the time; {testIncidents} test incidents, seed {seed}");
-        var table = TableOutput.Table("outcomes recorded", "section top-1", "gap recovered", $"{hot} learned faults/100 km·year", $"{noisy} learned P(false report)", "skipped");
+        var table = TableOutput.Table("outcomes recorded", "years", "section top-1", "gap recovered", $"{hot} outcomes", $"{hot} observed faults/100 km·year", $"{hot} learned faults/100 km·year", $"{noisy} learned P(false report)", "skipped");
         foreach (var point in report.Curve)
         {
             var recovered = report.GapRecovered(point);
             table.AddRow(
                 point.Outcomes.ToString(invariant),
+                point.ObservationYears.ToString("F1", invariant),
                 point.SectionTop1.ToString("P1", invariant),
                 double.IsFinite(recovered) ? recovered.ToString("P0", invariant) : "–",
+                point.HotSegmentOutcomes.ToString(invariant),
+                double.IsFinite(point.HotSegmentObservedFaultsPer100KmYear) ? point.HotSegmentObservedFaultsPer100KmYear.ToString("F1", invariant) : "–",
                 point.HotSegmentFaultsPer100KmYear.ToString("F1", invariant),
                 point.NoisyFalseReportProbability.ToString("P1", invariant),
                 point.Skipped.ToString(invariant));
         }
 
-        table.AddRow("told the truth", report.TruthSectionTop1.ToString("P1", invariant), "100%", report.HotSegmentTrueFaultsPer100KmYear.ToString("F1", invariant), report.NoisyFalseProbability.ToString("P1", invariant), string.Empty);
+        table.AddRow("told the truth", string.Empty, report.TruthSectionTop1.ToString("P1", invariant), "100%", string.Empty, string.Empty, report.HotSegmentTrueFaultsPer100KmYear.ToString("F1", invariant), report.NoisyFalseProbability.ToString("P1", invariant), string.Empty);
         TableOutput.Write(console.Out, table);
         return CliApp.Success;
     }

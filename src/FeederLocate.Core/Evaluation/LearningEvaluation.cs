@@ -12,7 +12,20 @@ namespace FeederLocate.Core.Evaluation;
 /// <param name="HotSegmentFaultsPer100KmYear">The hot segment's learned rate, faults per 100 km·year.</param>
 /// <param name="NoisyFalseReportProbability">The noisy indicator's learned P(false report).</param>
 /// <param name="Skipped">Outcomes the learning had to leave out (the grid could not explain them).</param>
-public sealed record LearningPoint(int Outcomes, double SectionTop1, double HotSegmentFaultsPer100KmYear = double.NaN, double NoisyFalseReportProbability = double.NaN, int Skipped = 0);
+public sealed record LearningPoint(int Outcomes, double SectionTop1, double HotSegmentFaultsPer100KmYear = double.NaN, double NoisyFalseReportProbability = double.NaN, int Skipped = 0)
+{
+    /// <summary>Outcomes logged on the hot segment by then.</summary>
+    public int HotSegmentOutcomes { get; init; }
+
+    /// <summary>The history's length in years that the rates were learned over (0 before any outcome).</summary>
+    public double ObservationYears { get; init; }
+
+    /// <summary>
+    /// The hot segment's own record: its outcomes over its length times the years, faults per 100 km·year
+    /// (NaN before any outcome). What the data say, against which the learned rate is read.
+    /// </summary>
+    public double HotSegmentObservedFaultsPer100KmYear { get; init; } = double.NaN;
+}
 
 /// <summary>
 /// The learning curve: section top-1 of the ranking with priors learned from a growing simulated
@@ -78,7 +91,7 @@ public static class LearningEvaluation
         var options = RankingOptions.Default;
         var truthRates = grid.Indicators.ToImmutableDictionary(
             i => i.Id,
-            i => new IndicatorErrorRates(settings.MissProbability, i.Id == noisyIndicator ? Math.Min(0.45, noisyFalseProbability) : settings.FalseProbability));
+            i => new IndicatorErrorRates(settings.MissProbability, i.Id == noisyIndicator ? Math.Min(LearnedRankingPriors.MaximumFalseReportProbability, noisyFalseProbability) : settings.FalseProbability));
         var truth = truePriorsForSimulation with { IndicatorRates = truthRates };
 
         var curve = ImmutableArray.CreateBuilder<LearningPoint>();
@@ -94,7 +107,14 @@ public static class LearningEvaluation
                 SectionTop1(graph, tests, options, priors),
                 learned.FaultRateOf(hotSegment).FaultsPer100KmYear,
                 learned.ReliabilityOf(noisyIndicator).FalseReportProbability,
-                learned.Skipped.Length));
+                learned.Skipped.Length)
+            {
+                HotSegmentOutcomes = outcomes.Count(o => o.Segment == hotSegment),
+                ObservationYears = learned.FaultRates.ObservationYears,
+                HotSegmentObservedFaultsPer100KmYear = learned.FaultRates.ObservationYears > 0
+                    ? 100 * outcomes.Count(o => o.Segment == hotSegment) / (grid.Segment(hotSegment).LengthKm * learned.FaultRates.ObservationYears)
+                    : double.NaN,
+            });
             progress?.Report(++done / (double)total);
         }
 

@@ -110,6 +110,19 @@ public static class LearnedRankingPriors
         };
     }
 
+    /// <summary>
+    /// The largest learned P(miss) and P(wrong direction) the ranking takes: together they stay below 1, so a
+    /// directional indicator showing the expected direction keeps a probability above zero.
+    /// </summary>
+    public const double MaximumMissProbability = 0.45;
+
+    /// <summary>
+    /// The largest learned P(false report) the ranking takes. An indicator that reports falsely more often than
+    /// not is still evidence (its "no report" then says much), so the learned rate is used up to this bound,
+    /// which keeps every reading's probability above zero.
+    /// </summary>
+    public const double MaximumFalseReportProbability = 0.95;
+
     /// <summary>The ranking's priors: learned fault rates for every segment; learned error rates once history exists.</summary>
     public static RankingPriors ToRankingPriors(LearnedPriors learned, bool hasHistory)
     {
@@ -117,9 +130,9 @@ public static class LearnedRankingPriors
         var rates = learned.FaultRates.Segments.ToImmutableDictionary(s => s.Segment, s => s.FaultsPerKmYear);
         var indicators = hasHistory
             ? learned.Indicators.Indicators.ToImmutableDictionary(i => i.Indicator, i => new IndicatorErrorRates(
-                Math.Min(0.45, i.MissProbability),
-                Math.Min(0.45, i.FalseReportProbability),
-                WrongDirectionProbability: i.WrongDirectionProbability is { } w ? Math.Min(0.45, w) : null))
+                Math.Min(MaximumMissProbability, i.MissProbability),
+                Math.Min(MaximumFalseReportProbability, i.FalseReportProbability),
+                WrongDirectionProbability: i.WrongDirectionProbability is { } w ? Math.Min(MaximumMissProbability, w) : null))
             : ImmutableDictionary<IndicatorId, IndicatorErrorRates>.Empty;
         return new RankingPriors(rates, indicators);
     }
