@@ -16,7 +16,7 @@ namespace FeederLocate.Web.Api;
 /// <summary>
 /// The HTTP interface for telecontrol and other systems: grids and incidents, indications and
 /// substation records (single or batch, in the incident format's own shapes), the ranking and the plan,
-/// outcomes. Bodies are limited to 1 MB; bad input is a 400 naming the element and field.
+/// outcomes, and what a grid's outcomes have taught (<see cref="LearningDocument"/>). Bodies are limited to 1 MB; bad input is a 400 naming the element and field.
 /// </summary>
 public static class IncidentApi
 {
@@ -50,6 +50,11 @@ public static class IncidentApi
                     ? Results.Json(PlanDocument.From(plan, ranking), DocumentJson.Options)
                     : Results.UnprocessableEntity(ApiError.Single("cannot plan", "incident", Text(id), "plan", analysis.Plan(grid, state).Problem ?? "no plan"))));
         api.MapPost("/incidents/{id:long}/outcome", PostOutcome).RequireAuthorization(AccessPolicies.ApiWrite);
+        api.MapGet("/learning", (string? grid, ClaimsPrincipal user, GridCatalog grids, IncidentBoard board, IncidentAnalysis analysis, LearningCurves curves) =>
+            grids.Find(grid ?? string.Empty) is { } loaded && AccountClaims.MaySee(user, loaded.Name)
+                ? Results.Ok(LearningDocument.From(loaded.Grid, board.Outcomes(loaded.Name).Count, analysis.Learned(loaded), curves.For(loaded.Name)))
+                : Results.BadRequest(ApiError.Single("unknown grid", "request", "query", "grid",
+                    $"must name a loaded grid of this account ({string.Join(", ", grids.VisibleTo(user).Select(g => $"\"{g.Name}\""))}), got \"{grid}\"")));
         return app;
     }
 
