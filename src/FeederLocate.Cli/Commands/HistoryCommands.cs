@@ -2,6 +2,7 @@ using System.CommandLine;
 using System.Globalization;
 using FeederLocate.Cli.Input;
 using FeederLocate.Cli.Output;
+using FeederLocate.Core.Learning;
 using FeederLocate.Core.Ranking;
 using FeederLocate.Core.Topology;
 using FeederLocate.Storage.Export;
@@ -104,6 +105,7 @@ internal static class HistoryCommands
                     {
                         quantity = r.Quantity, records = r.Records, geometricMeanRatio = r.GeometricMeanRatio,
                         logRatioStandardDeviation = double.IsFinite(r.LogRatioStandardDeviation) ? r.LogRatioStandardDeviation : (double?)null,
+                        relativeError = double.IsFinite(r.RelativeError) ? r.RelativeError : (double?)null,
                     }),
                     skipped = learned.Skipped.Select(s => new { reportedAt = s.ReportedAt, segment = s.Segment.Value, reason = s.Reason }),
                 });
@@ -153,7 +155,7 @@ internal static class HistoryCommands
             TableOutput.Write(console.Out, ind);
             foreach (var r in learned.RecordRatios.Where(r => r.Records > 0))
             {
-                console.Out.WriteLine($"{r.Quantity} recorded / predicted at the confirmed faults: {r.GeometricMeanRatio.ToString("F3", invariant)} (geometric mean of {r.Records.ToString(invariant)}, spread of ln ratio {(double.IsFinite(r.LogRatioStandardDeviation) ? r.LogRatioStandardDeviation.ToString("F3", invariant) : "–")})");
+                console.Out.WriteLine($"{r.Quantity} recorded / predicted at the confirmed faults: {r.GeometricMeanRatio.ToString("F3", invariant)} (geometric mean of {r.Records.ToString(invariant)}, spread of ln ratio {(double.IsFinite(r.LogRatioStandardDeviation) ? r.LogRatioStandardDeviation.ToString("F3", invariant) : "–")}); learned relative error {(double.IsFinite(r.RelativeError) ? r.RelativeError.ToString("P1", invariant) : $"– (fewer than {RecordRatio.MinimumRecords.ToString(invariant)})")}, the ranking's tolerance where larger");
             }
 
             foreach (var s in learned.Skipped)

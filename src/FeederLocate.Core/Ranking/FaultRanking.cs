@@ -25,6 +25,7 @@ public static class FaultRanking
         options ??= RankingOptions.Default;
         options.Validate();
         priors ??= RankingPriors.None;
+        options = priors.WidenTolerances(options);
         var computation = new RankingComputation(graph, incident, options, priors);
         var scores = computation.ScoreSegments();
         return Assemble(computation, scores);
@@ -146,7 +147,7 @@ public static class FaultRanking
             $"indicator error rates: remote miss {Pct(o.RemoteRates.MissProbability)}, false {Pct(o.RemoteRates.FalseReportProbability)}; field-read miss {Pct(o.FieldRates.MissProbability)}, false {Pct(o.FieldRates.FalseReportProbability)}, misread {Pct(o.FieldRates.MisreadProbability)} (learned rates replace them where history exists)",
             $"stale indications (read after the indicator's reset time or before a trial re-energisation) weigh {Pct(o.StaleWeight)}",
             $"fault resistance marginalised over: earth faults on isolated and resonant networks {Ohms(o.HighResistanceEarthFaultOhms)}; on solid and impedance networks {Ohms(o.LowResistanceEarthFaultOhms)}; short circuits {Ohms(o.ShortCircuitOhms)}",
-            $"measurement tolerance: phase current {Pct(o.PhaseCurrentTolerance.Relative)} + {o.PhaseCurrentTolerance.Absolute.ToString(CultureInfo.InvariantCulture)} A, residual current {Pct(o.ResidualCurrentTolerance.Relative)} + {o.ResidualCurrentTolerance.Absolute.ToString(CultureInfo.InvariantCulture)} A, neutral voltage {Pct(o.NeutralVoltageTolerance.Relative)} + {o.NeutralVoltageTolerance.Absolute.ToString(CultureInfo.InvariantCulture)} V",
+            $"measurement tolerance{(computation.Priors.MeasurementErrors == LearnedMeasurementErrors.None ? string.Empty : " (widened to the error learned from outcomes where larger)")}: phase current {Pct(o.PhaseCurrentTolerance.Relative)} + {o.PhaseCurrentTolerance.Absolute.ToString(CultureInfo.InvariantCulture)} A, residual current {Pct(o.ResidualCurrentTolerance.Relative)} + {o.ResidualCurrentTolerance.Absolute.ToString(CultureInfo.InvariantCulture)} A, neutral voltage {Pct(o.NeutralVoltageTolerance.Relative)} + {o.NeutralVoltageTolerance.Absolute.ToString(CultureInfo.InvariantCulture)} V",
             "indications are compared with a fault at each segment's midpoint; substation records at several positions along it",
             "load current is ignored in the fault currents (reference model); Z2 = Z1",
         };

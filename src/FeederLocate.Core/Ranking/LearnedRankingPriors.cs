@@ -106,7 +106,7 @@ public static class LearnedRankingPriors
         return learned! with
         {
             Skipped = [.. skipped],
-            RecordRatios = [RecordRatio.Of("phase current", phaseRatios), RecordRatio.Of("residual current", residualRatios)],
+            RecordRatios = [RecordRatio.Of(RecordRatio.PhaseCurrent, phaseRatios), RecordRatio.Of(RecordRatio.ResidualCurrent, residualRatios)],
         };
     }
 
@@ -134,7 +134,13 @@ public static class LearnedRankingPriors
                 Math.Min(MaximumFalseReportProbability, i.FalseReportProbability),
                 WrongDirectionProbability: i.WrongDirectionProbability is { } w ? Math.Min(MaximumMissProbability, w) : null))
             : ImmutableDictionary<IndicatorId, IndicatorErrorRates>.Empty;
-        return new RankingPriors(rates, indicators);
+        double? Learned(string quantity) =>
+            learned.RecordRatios.FirstOrDefault(r => r.Quantity == quantity) is { } ratio && double.IsFinite(ratio.RelativeError) ? ratio.RelativeError : null;
+        var errors = new LearnedMeasurementErrors(Learned(RecordRatio.PhaseCurrent), Learned(RecordRatio.ResidualCurrent));
+        return new RankingPriors(rates, indicators)
+        {
+            MeasurementErrors = errors.PhaseCurrentRelative is null && errors.ResidualCurrentRelative is null ? LearnedMeasurementErrors.None : errors,
+        };
     }
 
     /// <summary>Learns from the outcomes and gives the ranking's priors in one step.</summary>

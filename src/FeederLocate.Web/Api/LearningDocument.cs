@@ -44,7 +44,8 @@ public sealed record LearningDocument(
     /// <param name="Quantity">"phase current" or "residual current".</param>
     /// <param name="GeometricMeanRatio">Recorded / predicted at the confirmed faults, geometric mean; 1 is unbiased.</param>
     /// <param name="LogRatioStandardDeviation">Spread of ln(recorded / predicted): about the relative error.</param>
-    public sealed record MeasurementRatio(string Quantity, int Measurements, double? GeometricMeanRatio, double? LogRatioStandardDeviation);
+    /// <param name="RelativeError">Root mean square of ln(recorded / predicted) once there are enough measurements: the ranking's tolerance of the quantity where larger.</param>
+    public sealed record MeasurementRatio(string Quantity, int Measurements, double? GeometricMeanRatio, double? LogRatioStandardDeviation, double? RelativeError);
 
     public sealed record SkippedEntry(DateTimeOffset ReportedAt, string Segment, string Reason);
 
@@ -61,7 +62,7 @@ public sealed record LearningDocument(
                 k.Kind.ToString(), k.Indicators, Prior(k.MissChoice!), Prior(k.FalseReportChoice!), k.WrongDirectionChoice is { } w ? Prior(w) : null))],
             [.. learned.FaultRates.Segments.Select(s => new SegmentRate(s.Segment.Value, s.Faults, s.FaultsPer100KmYear, s.ExpectedFaultsPerYear))],
             [.. learned.Indicators.Indicators.Select(i => new IndicatorRates(i.Indicator.Value, i.MissProbability, i.FalseReportProbability, i.WrongDirectionProbability))],
-            [.. learned.RecordRatios.Select(r => new MeasurementRatio(r.Quantity, r.Records, Finite(r.GeometricMeanRatio), Finite(r.LogRatioStandardDeviation)))],
+            [.. learned.RecordRatios.Select(r => new MeasurementRatio(r.Quantity, r.Records, Finite(r.GeometricMeanRatio), Finite(r.LogRatioStandardDeviation), Finite(r.RelativeError)))],
             [.. learned.Skipped.Select(s => new SkippedEntry(s.ReportedAt, s.Segment.Value, s.Reason))],
             curve);
     }

@@ -9,7 +9,7 @@ public sealed class HistoryPageTests(WebAppFixture app) : IClassFixture<WebAppFi
     private const string SolidGrid = "Marrowdell 20 kV (solidly grounded)";
 
     [Fact]
-    public async Task After_an_outcome_the_history_page_shows_the_chosen_prior_strengths_and_the_learning_curve()
+    public async Task After_an_outcome_the_history_page_shows_the_chosen_prior_strengths_the_measurement_ratios_and_the_learning_curve()
     {
         var page = await app.SignedInPage("ana", "ana-password-1", "/", new BrowserNewPageOptions { ViewportSize = new ViewportSize { Width = 1600, Height = 1100 } });
         await WaitForCircuit(page);
@@ -19,6 +19,10 @@ public sealed class HistoryPageTests(WebAppFixture app) : IClassFixture<WebAppFi
         await page.ClickAsync("[data-testid=open-incident]");
         await app.WaitForPath(page, "/incidents/");
         await WaitForCircuit(page);
+        // A breaker record (the sample incident's 1880 A at CB-A1), so the history has a measurement to compare.
+        await page.GetByLabel("breaker", new() { Exact = true }).SelectOptionAsync("CB-A1");
+        await page.GetByLabel("phase current A").FillAsync("1880");
+        await page.GetByRole(AriaRole.Button, new() { Name = "Enter record" }).ClickAsync();
         await page.SelectOptionAsync("[data-testid=outcome-segment]", "S109");
         await page.ClickAsync("[data-testid=log-outcome]");
         await Assertions.Expect(page.Locator("[data-testid=logged-outcome]")).ToContainTextAsync("S109");
@@ -32,6 +36,7 @@ public sealed class HistoryPageTests(WebAppFixture app) : IClassFixture<WebAppFi
         var priors = page.Locator("[data-testid=fault-rate-priors]");
         await Assertions.Expect(priors).ToContainTextAsync("by the data");
         await Assertions.Expect(page.Locator("[data-testid=indicator-priors]")).ToContainTextAsync("false report");
+        await Assertions.Expect(page.Locator("[data-testid=measurement-ratios]")).ToContainTextAsync("phase current");
         await Assertions.Expect(page.Locator("[data-testid=learning-curve] canvas")).ToBeVisibleAsync();
         await Assertions.Expect(page.Locator("[data-testid=learning-curve] table")).ToContainTextAsync("told the truth");
         await page.CloseAsync();
