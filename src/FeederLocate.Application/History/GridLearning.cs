@@ -53,7 +53,7 @@ public sealed class GridLearning
     public LearnedPriors Learned(NetworkGraph graph)
     {
         var outcomes = Outcomes(graph);
-        return _learned.GetOrAdd((graph, outcomes.Through), _ => LearnedRankingPriors.Learn(graph.Grid, Observe(graph, outcomes.All)));
+        return _learned.GetOrAdd((graph, outcomes.Through), _ => LearnedRankingPriors.Learn(graph, Observe(graph, outcomes.All)));
     }
 
     /// <summary>
@@ -71,14 +71,14 @@ public sealed class GridLearning
         var excluded = used.Count < outcomes.All.Count ? leftOut!.Value.Value : 0;
         return _priors.GetOrAdd((graph, outcomes.Through, excluded), _ => used.Count == 0
             ? RankingPriors.None
-            : LearnedRankingPriors.ToRankingPriors(LearnedRankingPriors.Learn(graph.Grid, Observe(graph, used)), hasHistory: true));
+            : LearnedRankingPriors.ToRankingPriors(LearnedRankingPriors.Learn(graph, Observe(graph, used)), hasHistory: true));
     }
 
     private List<ObservedIncident> Observe(NetworkGraph graph, IReadOnlyList<IncidentOutcome> outcomes) =>
         [.. outcomes.Select(o => _observed.GetOrAdd((graph, o.Id, o.LastEvent.Value), _ =>
         {
-            var confirmed = LearningOutcomes.Of(graph.Grid, [o])[0];
-            return new ObservedIncident(confirmed, LearnedRankingPriors.ObservationsOf(graph, confirmed));
+            var outcome = LearningOutcomes.Of(graph.Grid, [o])[0];
+            return LearnedRankingPriors.Observe(graph, outcome);
         }))];
 }
 

@@ -14,7 +14,11 @@ public sealed record IncidentReview(IncidentSummary Summary, SectionId? Confirme
 public sealed record GridHistory(
     IReadOnlyList<IncidentReview> Incidents,
     IReadOnlyList<IndicatorReliability> Indicators,
-    IReadOnlyDictionary<SectionId, int> FaultsPerSection);
+    IReadOnlyDictionary<SectionId, int> FaultsPerSection)
+{
+    /// <summary>Everything learned from the grid's history: chosen prior strengths, skipped outcomes.</summary>
+    public LearnedPriors? Learned { get; init; }
+}
 
 /// <summary>
 /// A grid's history from the incident log: each confirmed incident ranked as the ranking would have ranked it
@@ -45,6 +49,7 @@ public sealed class IncidentHistory(IncidentLog log, GridLearning learning, Inci
         var perSection = learning.OutcomesForLearning(graph)
             .GroupBy(o => graph.Sections.OfSegment(grid.SegmentIndex(o.Segment)).Id)
             .ToDictionary(g => g.Key, g => g.Count());
-        return new GridHistory(reviews, [.. learning.Learned(graph).Indicators.Indicators], perSection);
+        var learned = learning.Learned(graph);
+        return new GridHistory(reviews, [.. learned.Indicators.Indicators], perSection) { Learned = learned };
     }
 }

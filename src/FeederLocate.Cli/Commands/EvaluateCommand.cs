@@ -19,18 +19,22 @@ internal static class EvaluateCommand
         var unknown = new Option<double>("--unknown") { Description = "Probability that a report is lost", DefaultValueFactory = _ => 0.10 };
         var learning = new Option<bool>("--learning") { Description = "Replay a simulated history of --incidents outcomes and print the learning curve" };
         var tests = new Option<int>("--test-incidents") { Description = "With --learning: incidents scored at each point of the curve", DefaultValueFactory = _ => 200 };
-        var hot = new Option<string?>("--hot-segment") { Description = "With --learning: the segment that fails five times as often as nominal" };
-        var noisy = new Option<string?>("--noisy-indicator") { Description = "With --learning: the indicator that reports falsely half the time" };
+        var hot = new Option<string?>("--hot-segment") { Description = "With --learning: the segment that fails --hot-factor times as often as nominal" };
+        var noisy = new Option<string?>("--noisy-indicator") { Description = "With --learning: the indicator that reports falsely with probability --noisy-false" };
+        var hotFactor = new Option<double>("--hot-factor") { Description = "With --learning: how many times its line type's rate the hot segment fails", DefaultValueFactory = _ => 5 };
+        var noisyFalse = new Option<double>("--noisy-false") { Description = "With --learning: the noisy indicator's probability of reporting falsely", DefaultValueFactory = _ => 0.5 };
+        var fixedStrengths = new Option<bool>("--fixed-strengths") { Description = "With --learning: hold the priors at their configured strengths instead of choosing them by the data (for comparison)" };
         var protection = new Option<bool>("--protection") { Description = "Incidents carry the protection context (relay directions at every feeder breaker, reclosing, fuses, fault locator); report hit rates without and with it" };
         var highResistance = new Option<double>("--high-resistance") { Description = "With --protection: share of earth faults on solid and impedance grids through 200 Ω to 5 kΩ that trip nothing", DefaultValueFactory = _ => 0.3 };
         var json = CliOptions.Json();
         var command = new Command("evaluate", "Simulate incidents with the reference model and score the ranking against the truth and a baseline rule; with --learning, the learning curve")
         {
-            grid, incidents, seed, miss, falseReport, unknown, learning, tests, hot, noisy, protection, highResistance, json,
+            grid, incidents, seed, miss, falseReport, unknown, learning, tests, hot, noisy, hotFactor, noisyFalse, fixedStrengths, protection, highResistance, json,
         };
         command.SetAction(parse => parse.GetValue(learning)
             ? EvaluateLearning.Run(console, InputFiles.LoadGrid(parse.GetValue(grid)!, console.Error), Math.Max(1, parse.GetValue(incidents)),
-                Math.Max(1, parse.GetValue(tests)), parse.GetValue(seed), parse.GetValue(hot), parse.GetValue(noisy), parse.GetValue(json))
+                Math.Max(1, parse.GetValue(tests)), parse.GetValue(seed),
+                new LearningDefects(parse.GetValue(hot), parse.GetValue(noisy), parse.GetValue(hotFactor), parse.GetValue(noisyFalse)), parse.GetValue(fixedStrengths), parse.GetValue(json))
             : parse.GetValue(protection)
             ? RunProtection(console, parse.GetValue(grid)!, parse.GetValue(incidents), parse.GetValue(seed),
                 new SimulationSettings(parse.GetValue(miss), parse.GetValue(falseReport), parse.GetValue(unknown)) { HighResistanceShare = parse.GetValue(highResistance) },

@@ -3,6 +3,8 @@ using System.Globalization;
 using FeederLocate.Cli.Input;
 using FeederLocate.Cli.Output;
 using FeederLocate.Application.History;
+using FeederLocate.Core.Learning;
+using FeederLocate.Core.Ranking;
 using FeederLocate.Core.Topology;
 using FeederLocate.Storage.Export;
 
@@ -78,35 +80,111 @@ internal static class HistoryCommands
                     grid = model.Name,
                     outcomes = outcomes.Count,
                     observationYears = learned.FaultRates.ObservationYears,
+                    lineTypes = learned.FaultRates.LineTypes.Select(t => new
+                    {
+                        id = t.LineType.Value,
+                        statedFaultsPer100KmYear = model.LineTypes.Single(l => l.Id == t.LineType).EffectiveFaultsPer100KmYear,
+                        faults = t.Faults,
+                        exposureKmYears = t.ExposureKmYears,
+                        prior = PriorJson(t.Choice!),
+                    }),
+                    indicatorKinds = learned.Indicators.Kinds.Select(k => new
+                    {
+                        kind = k.Kind.ToString(),
+                        indicators = k.Indicators,
+                        miss = ReliabilityJson(k.MissChoice!),
+                        falseReport = ReliabilityJson(k.FalseReportChoice!),
+                        wrongDirection = k.WrongDirectionChoice is { } w ? ReliabilityJson(w) : null,
+                    }),
                     segments = segments.Select(s => new { id = s.Segment.Value, faults = s.Faults, faultsPer100KmYear = s.FaultsPer100KmYear, expectedFaultsPerYear = s.ExpectedFaultsPerYear }),
                     indicators = indicators.Select(i => new
                     {
                         id = i.Indicator.Value, missProbability = i.MissProbability, falseReportProbability = i.FalseReportProbability,
+                        wrongDirectionProbability = i.WrongDirectionProbability,
                         counts = i.Counts,
                     }),
+                    recordRatios = learned.RecordRatios.Where(r => r.Records > 0).Select(r => new
+                    {
+                        quantity = r.Quantity, records = r.Records, geometricMeanRatio = r.GeometricMeanRatio,
+                        logRatioStandardDeviation = double.IsFinite(r.LogRatioStandardDeviation) ? r.LogRatioStandardDeviation : (double?)null,
+                        relativeError = double.IsFinite(r.RelativeError) ? r.RelativeError : (double?)null,
+                    }),
+                    skipped = learned.Skipped.Select(s => new { reportedAt = s.ReportedAt, segment = s.Segment.Value, reason = s.Reason }),
                 });
                 return CliApp.Success;
             }
 
-            console.Out.WriteLine($"{model.Name}: {outcomes.Count} recorded outcomes over {learned.FaultRates.ObservationYears.ToString("F2", CultureInfo.InvariantCulture)} years");
+            var invariant = CultureInfo.InvariantCulture;
+            console.Out.WriteLine($"{model.Name}: {outcomes.Count} recorded outcomes over {learned.FaultRates.ObservationYears.ToString("F2", invariant)} years");
+            var types = TableOutput.Table("line type", "stated faults/100 km·year", "faults", "km·years", "type rate faults/100 km·year", "prior strength km·years", "chosen");
+            foreach (var t in learned.FaultRates.LineTypes)
+            {
+                var c = t.Choice!;
+                types.AddRow(t.LineType.Value, model.LineTypes.Single(l => l.Id == t.LineType).EffectiveFaultsPer100KmYear.ToString("F2", invariant),
+                    t.Faults.ToString(invariant), t.ExposureKmYears.ToString("F0", invariant), c.MeanPer100KmYear.ToString("F2", invariant),
+                    c.StrengthKmYears.ToString("G3", invariant), Chosen(c.ChosenByData, c.AtBound, c.LowerKmYears, c.UpperKmYears));
+            }
+
+            TableOutput.Write(console.Out, types);
+            var kinds = TableOutput.Table("indicator kind", "rate", "kind rate", "prior strength trials", "chosen");
+            foreach (var k in learned.Indicators.Kinds)
+            {
+                foreach (var (name, c) in new[] { ("miss", k.MissChoice), ("false report", k.FalseReportChoice), ("wrong direction", k.WrongDirectionChoice) })
+                {
+                    if (c is not null)
+                    {
+                        kinds.AddRow(k.Kind.ToString(), name, c.Mean.ToString("P1", invariant), c.StrengthTrials.ToString("G3", invariant),
+                            Chosen(c.ChosenByData, c.AtBound, c.LowerTrials, c.UpperTrials));
+                    }
+                }
+            }
+
+            TableOutput.Write(console.Out, kinds);
             var seg = TableOutput.Table("segment", "faults", "learned faults/100 km·year", "expected faults/year");
             foreach (var s in segments.Take(15))
             {
-                seg.AddRow(s.Segment.Value, s.Faults.ToString(CultureInfo.InvariantCulture), s.FaultsPer100KmYear.ToString("F2", CultureInfo.InvariantCulture), s.ExpectedFaultsPerYear.ToString("F4", CultureInfo.InvariantCulture));
+                seg.AddRow(s.Segment.Value, s.Faults.ToString(invariant), s.FaultsPer100KmYear.ToString("F2", invariant), s.ExpectedFaultsPerYear.ToString("F4", invariant));
             }
 
             TableOutput.Write(console.Out, seg);
-            var ind = TableOutput.Table("indicator", "P(miss)", "P(false report)");
+            var ind = TableOutput.Table("indicator", "P(miss)", "P(false report)", "P(wrong direction)");
             foreach (var i in indicators)
             {
-                ind.AddRow(i.Indicator.Value, i.MissProbability.ToString("P1", CultureInfo.InvariantCulture), i.FalseReportProbability.ToString("P1", CultureInfo.InvariantCulture));
+                ind.AddRow(i.Indicator.Value, i.MissProbability.ToString("P1", invariant), i.FalseReportProbability.ToString("P1", invariant),
+                    i.WrongDirectionProbability?.ToString("P1", invariant) ?? "–");
             }
 
             TableOutput.Write(console.Out, ind);
+            foreach (var r in learned.RecordRatios.Where(r => r.Records > 0))
+            {
+                console.Out.WriteLine($"{r.Quantity} recorded / predicted at the confirmed faults: {r.GeometricMeanRatio.ToString("F3", invariant)} (geometric mean of {r.Records.ToString(invariant)}, spread of ln ratio {(double.IsFinite(r.LogRatioStandardDeviation) ? r.LogRatioStandardDeviation.ToString("F3", invariant) : "–")}); learned relative error {(double.IsFinite(r.RelativeError) ? r.RelativeError.ToString("P1", invariant) : $"– (fewer than {RecordRatio.MinimumRecords.ToString(invariant)})")}, the ranking's tolerance where larger");
+            }
+
+            foreach (var s in learned.Skipped)
+            {
+                console.Out.WriteLine($"skipped the outcome reported {s.ReportedAt.ToString("yyyy-MM-dd HH:mm", invariant)} on {s.Segment}: {s.Reason}");
+            }
             return CliApp.Success;
         });
         return command;
     }
+
+    private static object PriorJson(FeederLocate.Core.Learning.PriorChoice.FaultRatePriorChoice c) => new
+    {
+        faultsPer100KmYear = c.MeanPer100KmYear, strengthKmYears = c.StrengthKmYears, chosenByData = c.ChosenByData, atBound = c.AtBound,
+        boundsKmYears = new[] { c.LowerKmYears, c.UpperKmYears },
+    };
+
+    private static object ReliabilityJson(FeederLocate.Core.Learning.PriorChoice.ReliabilityPriorChoice c) => new
+    {
+        probability = c.Mean, strengthTrials = c.StrengthTrials, chosenByData = c.ChosenByData, atBound = c.AtBound,
+        boundsTrials = new[] { c.LowerTrials, c.UpperTrials },
+    };
+
+    private static string Chosen(bool byData, bool atBound, double lower, double upper) =>
+        !byData ? "configured (no history)"
+        : atBound ? $"by data, on a bound of {lower.ToString("G3", CultureInfo.InvariantCulture)}–{upper.ToString("G3", CultureInfo.InvariantCulture)}"
+        : $"by data, within {lower.ToString("G3", CultureInfo.InvariantCulture)}–{upper.ToString("G3", CultureInfo.InvariantCulture)}";
 
     private static Command Export(CliConsole console)
     {

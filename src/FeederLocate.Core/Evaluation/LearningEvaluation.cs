@@ -5,8 +5,27 @@ using FeederLocate.Core.Topology;
 
 namespace FeederLocate.Core.Evaluation;
 
-/// <summary>One point of the learning curve: section top-1 after <see cref="Outcomes"/> logged outcomes.</summary>
-public sealed record LearningPoint(int Outcomes, double SectionTop1);
+/// <summary>
+/// One point of the learning curve: section top-1 after <see cref="Outcomes"/> logged outcomes, with what was
+/// learned about the two defects by then (before any outcome: the line type's rate and the kind's default).
+/// </summary>
+/// <param name="HotSegmentFaultsPer100KmYear">The hot segment's learned rate, faults per 100 km·year.</param>
+/// <param name="NoisyFalseReportProbability">The noisy indicator's learned P(false report).</param>
+/// <param name="Skipped">Outcomes the learning had to leave out (the grid could not explain them).</param>
+public sealed record LearningPoint(int Outcomes, double SectionTop1, double HotSegmentFaultsPer100KmYear = double.NaN, double NoisyFalseReportProbability = double.NaN, int Skipped = 0)
+{
+    /// <summary>Outcomes logged on the hot segment by then.</summary>
+    public int HotSegmentOutcomes { get; init; }
+
+    /// <summary>The history's length in years that the rates were learned over (0 before any outcome).</summary>
+    public double ObservationYears { get; init; }
+
+    /// <summary>
+    /// The hot segment's own record: its outcomes over its length times the years, faults per 100 km·year
+    /// (NaN before any outcome). What the data say, against which the learned rate is read.
+    /// </summary>
+    public double HotSegmentObservedFaultsPer100KmYear { get; init; } = double.NaN;
+}
 
 /// <summary>
 /// The learning curve: section top-1 of the ranking with priors learned from a growing simulated
@@ -19,7 +38,23 @@ public sealed record LearningReport(
     double NoisyFalseProbability,
     int TestIncidents,
     ImmutableArray<LearningPoint> Curve,
-    double TruthSectionTop1);
+    double TruthSectionTop1)
+{
+    /// <summary>The hot segment's true rate, faults per 100 km·year.</summary>
+    public double HotSegmentTrueFaultsPer100KmYear { get; init; } = double.NaN;
+
+    /// <summary>
+    /// The share of the gap between no history and the truth closed at a point: (top-1 − top-1 at 0) /
+    /// (truth − top-1 at 0); NaN where there is no gap to close (the truth does no better than no history).
+    /// </summary>
+    public double GapRecovered(LearningPoint point)
+    {
+        ArgumentNullException.ThrowIfNull(point);
+        var start = Curve.First(p => p.Outcomes == Curve.Min(q => q.Outcomes)).SectionTop1;
+        var gap = TruthSectionTop1 - start;
+        return gap > 0 ? (point.SectionTop1 - start) / gap : double.NaN;
+    }
+}
 
 /// <summary>
 /// Replays a simulated history in which one segment fails <c>factor</c> times as often as its line type
@@ -37,7 +72,8 @@ public static class LearningEvaluation
         IndicatorId noisyIndicator,
         double hotSegmentRateFactor = 5,
         double noisyFalseProbability = 0.5,
-        IProgress<double>? progress = null)
+        IProgress<double>? progress = null,
+        Learning.LearningOptions? learning = null)
     {
         ArgumentNullException.ThrowIfNull(grid);
         ArgumentNullException.ThrowIfNull(checkpoints);
@@ -55,7 +91,7 @@ public static class LearningEvaluation
         var options = RankingOptions.Default;
         var truthRates = grid.Indicators.ToImmutableDictionary(
             i => i.Id,
-            i => new IndicatorErrorRates(settings.MissProbability, i.Id == noisyIndicator ? Math.Min(0.45, noisyFalseProbability) : settings.FalseProbability));
+            i => new IndicatorErrorRates(settings.MissProbability, i.Id == noisyIndicator ? Math.Min(LearnedRankingPriors.MaximumFalseReportProbability, noisyFalseProbability) : settings.FalseProbability));
         var truth = truePriorsForSimulation with { IndicatorRates = truthRates };
 
         var curve = ImmutableArray.CreateBuilder<LearningPoint>();
@@ -64,14 +100,30 @@ public static class LearningEvaluation
         foreach (var k in checkpoints.Order())
         {
             var outcomes = history.Take(k).Select(h => new Outcome(h.Incident, h.Segment)).ToList();
-            var priors = LearnedRankingPriors.From(graph, outcomes);
-            curve.Add(new LearningPoint(k, SectionTop1(graph, tests, options, priors)));
+            var learned = LearnedRankingPriors.Learn(graph, outcomes, learning);
+            var priors = LearnedRankingPriors.ToRankingPriors(learned, hasHistory: k > 0);
+            curve.Add(new LearningPoint(
+                k,
+                SectionTop1(graph, tests, options, priors),
+                learned.FaultRateOf(hotSegment).FaultsPer100KmYear,
+                learned.ReliabilityOf(noisyIndicator).FalseReportProbability,
+                learned.Skipped.Length)
+            {
+                HotSegmentOutcomes = outcomes.Count(o => o.Segment == hotSegment),
+                ObservationYears = learned.FaultRates.ObservationYears,
+                HotSegmentObservedFaultsPer100KmYear = learned.FaultRates.ObservationYears > 0
+                    ? 100 * outcomes.Count(o => o.Segment == hotSegment) / (grid.Segment(hotSegment).LengthKm * learned.FaultRates.ObservationYears)
+                    : double.NaN,
+            });
             progress?.Report(++done / (double)total);
         }
 
         var truthTop1 = SectionTop1(graph, tests, options, truth);
         progress?.Report(1);
-        return new LearningReport(hotSegment, hotSegmentRateFactor, noisyIndicator, noisyFalseProbability, testIncidents, curve.ToImmutable(), truthTop1);
+        return new LearningReport(hotSegment, hotSegmentRateFactor, noisyIndicator, noisyFalseProbability, testIncidents, curve.ToImmutable(), truthTop1)
+        {
+            HotSegmentTrueFaultsPer100KmYear = 100 * nominal * hotSegmentRateFactor,
+        };
     }
 
     private static double SectionTop1(NetworkGraph graph, List<SimulatedIncident> tests, RankingOptions options, RankingPriors priors)

@@ -67,6 +67,17 @@ public sealed record BetaParameters
         return new BetaParameters(A + successes, B + (trials - successes));
     }
 
+    /// <summary>The conjugate update with weighted (fractional) counts: Beta(a + x, b + n − x), 0 ≤ x ≤ n.</summary>
+    public BetaParameters Update(double successes, double trials)
+    {
+        if (!double.IsFinite(successes) || successes < 0 || !double.IsFinite(trials) || trials < successes)
+        {
+            throw new ArgumentOutOfRangeException(nameof(successes), successes, $"need 0 ≤ successes ≤ trials, got {successes} of {trials}");
+        }
+
+        return new BetaParameters(A + successes, B + (trials - successes));
+    }
+
     /// <summary>The value below which p lies with probability <paramref name="probability"/> (0..1).</summary>
     public double Quantile(double probability)
     {

@@ -1,4 +1,5 @@
 using System.Collections.Immutable;
+using FeederLocate.Core.Learning.PriorChoice;
 using FeederLocate.Core.Model;
 
 namespace FeederLocate.Core.Learning;
@@ -17,6 +18,10 @@ namespace FeederLocate.Core.Learning;
 /// (m·S + k_s)/(S + L·T) moves from the type's rate toward the segment's own k_s/(L·T) as L·T grows past S.
 /// The segment's own faults also sit in the type's pool; the double use is the usual empirical-Bayes
 /// simplification and is small while a type has several segments.</para>
+/// <para>With <see cref="FaultRateOptions.ChooseStrengthsByData"/> the segment prior is Gamma(μ·S, S) with μ and S
+/// chosen per line type by empirical Bayes (<see cref="FaultRatePriorChoice"/>): the marginal likelihood of every
+/// segment's count decides how alike the type's segments are, and so how far each segment's own record moves
+/// its rate. μ is then learned from all the type's segments at once, without counting any fault twice.</para>
 /// <para>T is <see cref="FaultRateOptions.ObservationYears"/> when configured, else the span from the
 /// earliest to the latest reported time in years of 365.25 days, at least
 /// <see cref="FaultRateOptions.MinimumObservationYears"/>; with no fault at all and no configured period T = 0
@@ -52,8 +57,8 @@ public static class FaultRateLearning
         var typeById = typeRates.ToDictionary(t => t.LineType);
         var segmentRates = grid.Segments.Select((segment, i) =>
         {
-            var typeMean = typeById[segment.LineType].Posterior.Mean;
-            var prior = new GammaParameters(typeMean * options.SegmentShrinkKmYears, options.SegmentShrinkKmYears);
+            var choice = typeById[segment.LineType].Choice!;
+            var prior = new GammaParameters(choice.MeanPerKmYear * choice.StrengthKmYears, choice.StrengthKmYears);
             var exposure = segment.LengthKm * years;
             return new FaultRatePosterior(segment.Id, segment.LineType, segment.LengthKm, prior,
                 prior.Update(faultsOnSegment[i], exposure), faultsOnSegment[i], exposure);
@@ -97,6 +102,16 @@ public static class FaultRateLearning
         var e0 = options.PriorExposureKmYears;
         var prior = new GammaParameters(Units.PerKmYear(type.EffectiveFaultsPer100KmYear) * e0, e0);
         var exposure = lengthKm * years;
-        return new LineTypeFaultRate(type.Id, lengthKm, prior, prior.Update(faults, exposure), faults, exposure);
+        var posterior = prior.Update(faults, exposure);
+        var stated = type.EffectiveFaultsPer100KmYear / 100;
+        var choice = options.ChooseStrengthsByData && stated > 0 && exposure > 0
+            ? FaultRatePriorChoice.Choose(
+                stated,
+                e0,
+                [.. grid.Segments.Select((s, i) => (s, i)).Where(p => p.s.LineType == type.Id).Select(p => new SegmentRecord(faultsOnSegment[p.i], p.s.LengthKm * years))],
+                options.MinimumStrengthKmYears,
+                options.MaximumStrengthKmYears)
+            : FaultRatePriorChoice.Configured(posterior.Mean, options.SegmentShrinkKmYears);
+        return new LineTypeFaultRate(type.Id, lengthKm, prior, posterior, faults, exposure, choice);
     }
 }

@@ -49,6 +49,28 @@ public sealed record FaultRateOptions
         init => field = Positive(value, nameof(MinimumObservationYears));
     } = 1;
 
+    /// <summary>
+    /// Choose each line type's segment-level strength S and type-level rate by empirical Bayes (maximum
+    /// marginal likelihood of the logged faults, see <see cref="PriorChoice.FaultRatePriorChoice"/>) instead of
+    /// taking <see cref="SegmentShrinkKmYears"/> and the pooled posterior mean. Default false; the ranking's
+    /// learning turns it on.
+    /// </summary>
+    public bool ChooseStrengthsByData { get; init; }
+
+    /// <summary>Lower bound of the chosen S in km·years (default 5): no segment's own record outweighs its type before 5 km·years.</summary>
+    public double MinimumStrengthKmYears
+    {
+        get;
+        init => field = Positive(value, nameof(MinimumStrengthKmYears));
+    } = 5;
+
+    /// <summary>Upper bound of the chosen S in km·years (default 5000): at this strength every segment of the type has the type's rate.</summary>
+    public double MaximumStrengthKmYears
+    {
+        get;
+        init => field = Positive(value, nameof(MaximumStrengthKmYears));
+    } = 5000;
+
     private static double Positive(double value, string name) =>
         double.IsFinite(value) && value > 0
             ? value

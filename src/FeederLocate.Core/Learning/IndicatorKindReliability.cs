@@ -14,6 +14,15 @@ public sealed record IndicatorKindReliability(
     BetaParameters FalseReport,
     ReliabilityCounts Counts)
 {
+    /// <summary>The prior of its indicators' P(miss): kind-level rate and strength, chosen by data or as configured.</summary>
+    public PriorChoice.ReliabilityPriorChoice? MissChoice { get; init; }
+
+    /// <summary>The prior of its indicators' P(false report).</summary>
+    public PriorChoice.ReliabilityPriorChoice? FalseReportChoice { get; init; }
+
+    /// <summary>The prior of its indicators' P(wrong direction); null for non-directional kinds.</summary>
+    public PriorChoice.ReliabilityPriorChoice? WrongDirectionChoice { get; init; }
+
     /// <summary>Posterior mean P(miss): no pickup where one was expected.</summary>
     public double MissProbability => Miss.Mean;
 

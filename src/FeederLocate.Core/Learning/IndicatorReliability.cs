@@ -12,8 +12,12 @@ public sealed record IndicatorReliability(
     IndicatorKind Kind,
     BetaParameters Miss,
     BetaParameters FalseReport,
-    ReliabilityCounts Counts)
+    ReliabilityCounts Counts,
+    BetaParameters? WrongDirection = null)
 {
+    /// <summary>Posterior mean P(wrong direction | a direction expected and one shown), directional indicators; null for others.</summary>
+    public double? WrongDirectionProbability => WrongDirection?.Mean;
+
     /// <summary>Posterior mean P(miss): no pickup where one was expected. 0..1.</summary>
     public double MissProbability => Miss.Mean;
 

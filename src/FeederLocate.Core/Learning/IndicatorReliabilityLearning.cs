@@ -1,4 +1,5 @@
 using System.Collections.Immutable;
+using FeederLocate.Core.Learning.PriorChoice;
 using FeederLocate.Core.Model;
 
 namespace FeederLocate.Core.Learning;
@@ -15,6 +16,11 @@ namespace FeederLocate.Core.Learning;
 /// s = <see cref="IndicatorReliabilityOptions.ShrinkStrength"/>. Its mean (m·s + x)/(s + n) starts at the
 /// kind's rate and moves toward the indicator's own x/n as n grows past s. The indicator's counts also sit
 /// in its kind's pool (the usual empirical-Bayes simplification).</para>
+/// <para>With <see cref="IndicatorReliabilityOptions.ChooseStrengthsByData"/> the kind's rate m and strength s of
+/// each error rate are chosen by empirical Bayes (<see cref="ReliabilityPriorChoice"/>) from the counts of all
+/// its indicators; each indicator's posterior is then Beta(m·s + x, (1 − m)·s + n − x).</para>
+/// <para>Directional indicators also learn P(wrong direction) from their direction trials, in the same two levels
+/// (default rate <see cref="IndicatorReliabilityOptions.WrongDirectionProbability"/>).</para>
 /// <para>What counts as a trial, a miss or a false report: <see cref="ReliabilityCounts"/>.</para>
 /// </remarks>
 public static class IndicatorReliabilityLearning
@@ -53,9 +59,10 @@ public static class IndicatorReliabilityLearning
             return new IndicatorReliability(
                 indicator.Id,
                 kind.Kind,
-                BetaParameters.FromMean(kind.Miss.Mean, options.ShrinkStrength).Update(c.Misses, c.MissTrials),
-                BetaParameters.FromMean(kind.FalseReport.Mean, options.ShrinkStrength).Update(c.FalseReports, c.FalseReportTrials),
-                c);
+                Posterior(kind.MissChoice!, c.Misses, c.MissTrials),
+                Posterior(kind.FalseReportChoice!, c.FalseReports, c.FalseReportTrials),
+                c,
+                kind.WrongDirectionChoice is { } direction ? Posterior(direction, c.WrongDirections, c.DirectionTrials) : null);
         }).ToImmutableArray();
 
         return new IndicatorReliabilityEstimate(kinds, indicators, [.. unknown]);
@@ -65,25 +72,43 @@ public static class IndicatorReliabilityLearning
         Grid grid, IndicatorKind kind, ReliabilityCounts[] counts, IndicatorReliabilityOptions options)
     {
         var pooled = ReliabilityCounts.Zero;
-        var members = 0;
         for (var i = 0; i < grid.Indicators.Length; i++)
         {
             if (IndicatorKind.Of(grid.Indicators[i]) == kind)
             {
                 pooled = pooled.Add(counts[i]);
-                members++;
             }
         }
 
         var missPrior = BetaParameters.FromMean(options.MissProbability(kind), options.PriorStrength);
         var falsePrior = BetaParameters.FromMean(options.FalseReportProbability(kind), options.PriorStrength);
-        return new IndicatorKindReliability(
-            kind,
-            members,
-            missPrior,
-            falsePrior,
-            missPrior.Update(pooled.Misses, pooled.MissTrials),
-            falsePrior.Update(pooled.FalseReports, pooled.FalseReportTrials),
-            pooled);
+        var miss = missPrior.Update(Math.Min(pooled.Misses, pooled.MissTrials), pooled.MissTrials);
+        var falseReport = falsePrior.Update(Math.Min(pooled.FalseReports, pooled.FalseReportTrials), pooled.FalseReportTrials);
+        var members = Enumerable.Range(0, grid.Indicators.Length).Where(i => IndicatorKind.Of(grid.Indicators[i]) == kind).ToList();
+        ReliabilityPriorChoice Choice(double defaultRate, BetaParameters pooledPosterior, Func<ReliabilityCounts, TrialRecord> record)
+        {
+            var records = members.Select(i => record(counts[i])).ToList();
+            return options.ChooseStrengthsByData && records.Any(r => r.Trials > 0)
+                ? ReliabilityPriorChoice.Choose(defaultRate, options.PriorStrength, records, options.MinimumStrengthTrials, options.MaximumStrengthTrials)
+                : ReliabilityPriorChoice.Configured(pooledPosterior.Mean, options.ShrinkStrength);
+        }
+
+        ReliabilityPriorChoice? direction = null;
+        if (kind.Directional)
+        {
+            var directionPosterior = BetaParameters.FromMean(options.WrongDirectionProbability, options.PriorStrength)
+                .Update(Math.Min(pooled.WrongDirections, pooled.DirectionTrials), pooled.DirectionTrials);
+            direction = Choice(options.WrongDirectionProbability, directionPosterior, c => new TrialRecord(c.WrongDirections, c.DirectionTrials));
+        }
+
+        return new IndicatorKindReliability(kind, members.Count, missPrior, falsePrior, miss, falseReport, pooled)
+        {
+            MissChoice = Choice(options.MissProbability(kind), miss, c => new TrialRecord(c.Misses, c.MissTrials)),
+            FalseReportChoice = Choice(options.FalseReportProbability(kind), falseReport, c => new TrialRecord(c.FalseReports, c.FalseReportTrials)),
+            WrongDirectionChoice = direction,
+        };
     }
+
+    private static BetaParameters Posterior(ReliabilityPriorChoice choice, double errors, double trials) =>
+        BetaParameters.FromMean(choice.Mean, choice.StrengthTrials).Update(Math.Min(errors, trials), trials);
 }

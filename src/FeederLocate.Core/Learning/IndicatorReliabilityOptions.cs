@@ -34,6 +34,25 @@ public sealed record IndicatorReliabilityOptions
     /// </summary>
     public double ShrinkStrength { get; init => field = Positive(value, nameof(ShrinkStrength)); } = 10;
 
+    /// <summary>
+    /// Choose each kind's rates and strengths by empirical Bayes (maximum marginal likelihood of the counted
+    /// trials, see <see cref="PriorChoice.ReliabilityPriorChoice"/>) instead of taking <see cref="ShrinkStrength"/>
+    /// and the pooled posterior means. Default false; the ranking's learning turns it on.
+    /// </summary>
+    public bool ChooseStrengthsByData { get; init; }
+
+    /// <summary>Lower bound of the chosen strength in trials (default 2).</summary>
+    public double MinimumStrengthTrials { get; init => field = Positive(value, nameof(MinimumStrengthTrials)); } = 2;
+
+    /// <summary>Upper bound of the chosen strength in trials (default 1000): at this strength every indicator of the kind has the kind's rate.</summary>
+    public double MaximumStrengthTrials { get; init => field = Positive(value, nameof(MaximumStrengthTrials)); } = 1000;
+
+    /// <summary>
+    /// Prior P(wrong direction) of a directional indicator that picks up where a direction was expected
+    /// (default 0.01, half the false-report rate, as the ranking assumes without history; common practice).
+    /// </summary>
+    public double WrongDirectionProbability { get; init => field = Probability(value, nameof(WrongDirectionProbability)); } = 0.01;
+
     /// <summary>Prior P(miss) of the kind.</summary>
     public double MissProbability(IndicatorKind kind) => kind.Remote ? RemoteMissProbability : FieldMissProbability;
 

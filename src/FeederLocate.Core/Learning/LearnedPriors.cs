@@ -1,3 +1,4 @@
+using System.Collections.Immutable;
 using FeederLocate.Core.Model;
 
 namespace FeederLocate.Core.Learning;
@@ -8,6 +9,12 @@ namespace FeederLocate.Core.Learning;
 /// </summary>
 public sealed record LearnedPriors(FaultRateEstimate FaultRates, IndicatorReliabilityEstimate Indicators)
 {
+    /// <summary>Outcomes left out because the grid cannot explain them, each with its reason.</summary>
+    public ImmutableArray<SkippedOutcome> Skipped { get; init; } = [];
+
+    /// <summary>Recorded against predicted substation values at the confirmed faults, per quantity (empty without records).</summary>
+    public ImmutableArray<RecordRatio> RecordRatios { get; init; } = [];
+
     /// <summary>The segment's learned fault rate; throws <see cref="KeyNotFoundException"/> for a segment not in the grid.</summary>
     public FaultRatePosterior FaultRateOf(SegmentId segment) => FaultRates.Of(segment);
 

@@ -10,13 +10,15 @@ namespace FeederLocate.Core.Learning;
 /// <param name="TotalLengthKm">Length of all the grid's segments of this type.</param>
 /// <param name="Faults">k: confirmed faults on segments of this type.</param>
 /// <param name="ExposureKmYears">X: total length × observation years.</param>
+/// <param name="Choice">The prior its segments shrink toward (type-level rate and strength): chosen by data, or as configured. Set by <see cref="FaultRateLearning"/>.</param>
 public sealed record LineTypeFaultRate(
     LineTypeId LineType,
     double TotalLengthKm,
     GammaParameters Prior,
     GammaParameters Posterior,
     int Faults,
-    double ExposureKmYears)
+    double ExposureKmYears,
+    PriorChoice.FaultRatePriorChoice? Choice = null)
 {
     /// <summary>Posterior mean in faults per km·year.</summary>
     public double FaultsPerKmYear => Posterior.Mean;

@@ -3,14 +3,25 @@ using FeederLocate.Core.Evidence;
 namespace FeederLocate.Core.Learning;
 
 /// <summary>
-/// Counted evidence about an indicator (or a pool of them).
-/// A miss trial is an observation where a pickup (fault, forward or reverse) was expected; it is a miss
-/// when the indicator showed none. A false-report trial is an observation where none was expected, or
-/// where a directional indicator was expected to pick up and did: a pickup where none was expected,
-/// or the wrong direction, is a false report. Unknown states (expected or observed) and suspect
-/// readings are no trial of either kind.
+/// Counted evidence about an indicator (or a pool of them). Counts are weighted: an observation whose
+/// expected state is uncertain (it depends on the unknown fault resistance) counts for each expected state
+/// with that state's probability, so counts may be fractional.
+/// <list type="bullet">
+/// <item>A miss trial is an observation where a pickup (fault, forward or reverse) was expected; it is a miss
+/// when the indicator showed none.</item>
+/// <item>A false-report trial is an observation where none was expected; a pickup is a false report.</item>
+/// <item>A direction trial is one where a direction was expected and the indicator showed one; the opposite
+/// direction is a wrong direction.</item>
+/// </list>
+/// Unknown states (expected or observed) and suspect readings are no trial of any kind.
 /// </summary>
-public sealed record ReliabilityCounts(int MissTrials, int Misses, int FalseReportTrials, int FalseReports)
+public sealed record ReliabilityCounts(
+    double MissTrials,
+    double Misses,
+    double FalseReportTrials,
+    double FalseReports,
+    double DirectionTrials = 0,
+    double WrongDirections = 0)
 {
     public static ReliabilityCounts Zero { get; } = new(0, 0, 0, 0);
 
@@ -21,10 +32,24 @@ public sealed record ReliabilityCounts(int MissTrials, int Misses, int FalseRepo
             MissTrials + other.MissTrials,
             Misses + other.Misses,
             FalseReportTrials + other.FalseReportTrials,
-            FalseReports + other.FalseReports);
+            FalseReports + other.FalseReports,
+            DirectionTrials + other.DirectionTrials,
+            WrongDirections + other.WrongDirections);
     }
 
-    /// <summary>What one observation adds, by the rules above.</summary>
+    /// <summary>Every count times <paramref name="weight"/> (≥ 0).</summary>
+    public ReliabilityCounts Times(double weight)
+    {
+        if (!double.IsFinite(weight) || weight < 0)
+        {
+            throw new ArgumentOutOfRangeException(nameof(weight), weight, "weight must be finite and ≥ 0");
+        }
+
+        return new ReliabilityCounts(
+            MissTrials * weight, Misses * weight, FalseReportTrials * weight, FalseReports * weight, DirectionTrials * weight, WrongDirections * weight);
+    }
+
+    /// <summary>What one observation adds, by the rules above, times its weight.</summary>
     public static ReliabilityCounts Of(IndicatorObservation observation)
     {
         ArgumentNullException.ThrowIfNull(observation);
@@ -34,23 +59,25 @@ public sealed record ReliabilityCounts(int MissTrials, int Misses, int FalseRepo
         }
 
         var observedPickup = IsPickup(observation.Observed);
+        ReliabilityCounts counts;
         if (!IsPickup(observation.Expected))
         {
-            return new ReliabilityCounts(0, 0, 1, observedPickup ? 1 : 0);
+            counts = new ReliabilityCounts(0, 0, 1, observedPickup ? 1 : 0);
         }
-
-        if (!observedPickup)
+        else if (!observedPickup)
         {
-            return new ReliabilityCounts(1, 1, 0, 0);
+            counts = new ReliabilityCounts(1, 1, 0, 0);
         }
-
-        if (IsDirection(observation.Expected) && IsDirection(observation.Observed))
+        else if (IsDirection(observation.Expected) && IsDirection(observation.Observed))
         {
-            var wrong = observation.Observed != observation.Expected ? 1 : 0;
-            return new ReliabilityCounts(1, 0, 1, wrong);
+            counts = new ReliabilityCounts(1, 0, 0, 0, 1, observation.Observed != observation.Expected ? 1 : 0);
+        }
+        else
+        {
+            counts = new ReliabilityCounts(1, 0, 0, 0);
         }
 
-        return new ReliabilityCounts(1, 0, 0, 0);
+        return observation.Weight == 1 ? counts : counts.Times(observation.Weight);
     }
 
     private static bool IsPickup(IndicatorState state) =>

@@ -26,6 +26,7 @@ public static class FaultRanking
         options ??= RankingOptions.Default;
         options.Validate();
         priors ??= RankingPriors.None;
+        options = priors.WidenTolerances(options);
         var computation = new RankingComputation(graph, incident, options, priors);
         var scores = computation.RefineContenders(computation.ScoreSegments());
         return Assemble(computation, scores);
@@ -187,7 +188,7 @@ public static class FaultRanking
             $"indicator error rates: remote miss {Pct(o.RemoteRates.MissProbability)}, false {Pct(o.RemoteRates.FalseReportProbability)}; field-read miss {Pct(o.FieldRates.MissProbability)}, false {Pct(o.FieldRates.FalseReportProbability)}, misread {Pct(o.FieldRates.MisreadProbability)} (learned rates replace them where history exists)",
             $"indications read more than the indicator's reset time after the fault (counted from {(computation.Incident.FaultAt is null ? "reportedAt; faultAt not given" : "faultAt")}) carry no weight; read before a trial re-energisation they weigh {Pct(o.StaleWeight)}",
             $"fault resistance marginalised over: earth faults on isolated and resonant networks {Ohms(o.HighResistanceEarthFaultOhms)}; on solid and impedance networks {Ohms(o.LowResistanceEarthFaultOhms)}, joined by the higher values of the first range up to {o.HighResistanceEarthFaultOhms.Max().ToString(CultureInfo.InvariantCulture)} Ω (half the prior where nothing tripped, {Pct(o.HighResistanceTripShare)} where a device tripped: a sensitive earth-fault trip); short circuits {Ohms(o.ShortCircuitOhms)}",
-            $"measurement tolerance: phase current {Pct(o.PhaseCurrentTolerance.Relative)} + {o.PhaseCurrentTolerance.Absolute.ToString(CultureInfo.InvariantCulture)} A, residual current {Pct(o.ResidualCurrentTolerance.Relative)} + {o.ResidualCurrentTolerance.Absolute.ToString(CultureInfo.InvariantCulture)} A, neutral voltage {Pct(o.NeutralVoltageTolerance.Relative)} + {o.NeutralVoltageTolerance.Absolute.ToString(CultureInfo.InvariantCulture)} V",
+            $"measurement tolerance{(computation.Priors.MeasurementErrors == LearnedMeasurementErrors.None ? string.Empty : " (widened to the error learned from outcomes where larger)")}: phase current {Pct(o.PhaseCurrentTolerance.Relative)} + {o.PhaseCurrentTolerance.Absolute.ToString(CultureInfo.InvariantCulture)} A, residual current {Pct(o.ResidualCurrentTolerance.Relative)} + {o.ResidualCurrentTolerance.Absolute.ToString(CultureInfo.InvariantCulture)} A, neutral voltage {Pct(o.NeutralVoltageTolerance.Relative)} + {o.NeutralVoltageTolerance.Absolute.ToString(CultureInfo.InvariantCulture)} V",
             "indications and records are compared with a fault at each segment's midpoint, or at several positions along it where the fault current's drop along the segment exceeds 1 % of the phase voltage",
             $"an indicator picks up within a tolerance of its setting (σ of ln I/I_pickup = {o.PickupTolerance.ToString(CultureInfo.InvariantCulture)}): near its pickup either state fits",
             "load current is ignored in the fault currents (reference model); Z2 = Z1",

@@ -5,7 +5,8 @@ namespace FeederLocate.Core.Ranking;
 
 /// <summary>
 /// P(recorded state | expected state) for one indicator: it misses with probability m, reports
-/// falsely with probability f (a directional one points the wrong way with f/2), and a field reading
+/// falsely with probability f (a directional one shows each direction with f/2 where none was expected, and
+/// the opposite direction with w, learned or f/2, where one was), and a field reading
 /// is written down as another of its states with probability r.
 /// </summary>
 public static class IndicationLikelihood
@@ -41,8 +42,8 @@ public static class IndicationLikelihood
             (IndicatorState.None, IndicatorState.None) => 1 - f,
             (IndicatorState.None, _) => f / 2,
             (_, IndicatorState.None) => m,
-            _ when expected == observed => 1 - m - (f / 2),
-            _ => f / 2,
+            _ when expected == observed => 1 - m - rates.WrongDirection,
+            _ => rates.WrongDirection,
         };
     }
 

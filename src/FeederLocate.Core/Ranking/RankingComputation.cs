@@ -83,6 +83,8 @@ internal sealed class RankingComputation
 
     internal RankingOptions Options => _options;
 
+    internal RankingPriors Priors => _priors;
+
     internal NetworkGraph Graph => _graph;
 
     /// <summary>Scores every energised segment.</summary>

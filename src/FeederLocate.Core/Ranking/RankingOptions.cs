@@ -6,11 +6,16 @@ namespace FeederLocate.Core.Ranking;
 /// <param name="MissProbability">P(reports none | it should have picked up).</param>
 /// <param name="FalseReportProbability">P(reports a pickup | it should not have), including a wrong direction.</param>
 /// <param name="MisreadProbability">P(the reading written down is another state than shown): field readings.</param>
-public sealed record IndicatorErrorRates(double MissProbability, double FalseReportProbability, double MisreadProbability = 0)
+/// <param name="WrongDirectionProbability">P(the opposite direction | a direction expected), directional indicators;
+/// null takes half the false-report rate.</param>
+public sealed record IndicatorErrorRates(double MissProbability, double FalseReportProbability, double MisreadProbability = 0, double? WrongDirectionProbability = null)
 {
+    /// <summary>P(the opposite direction | a direction expected): the learned rate, else half the false-report rate.</summary>
+    public double WrongDirection => WrongDirectionProbability ?? (FalseReportProbability / 2);
+
     public void Validate()
     {
-        foreach (var (name, p) in new[] { ("miss", MissProbability), ("false report", FalseReportProbability), ("misread", MisreadProbability) })
+        foreach (var (name, p) in new[] { ("miss", MissProbability), ("false report", FalseReportProbability), ("misread", MisreadProbability), ("wrong direction", WrongDirection) })
         {
             if (!(p is >= 0 and < 0.5))
             {

@@ -13,6 +13,30 @@ public sealed record RankingPriors(
     ImmutableDictionary<SegmentId, double> SegmentFaultsPerKmYear,
     ImmutableDictionary<IndicatorId, IndicatorErrorRates> IndicatorRates)
 {
+    /// <summary>
+    /// Relative errors of the substation measurements learned from the history (recorded against predicted at the
+    /// confirmed faults); null where the history has too few measurements of the quantity.
+    /// </summary>
+    public LearnedMeasurementErrors MeasurementErrors { get; init; } = LearnedMeasurementErrors.None;
+
+    /// <summary>
+    /// The options with each current tolerance's relative part widened to the learned relative error where that
+    /// is larger: measurements found to err more than assumed weigh less. Never narrowed below the options.
+    /// </summary>
+    public RankingOptions WidenTolerances(RankingOptions options)
+    {
+        ArgumentNullException.ThrowIfNull(options);
+        static MeasurementTolerance Widen(MeasurementTolerance tolerance, double? learned) =>
+            learned is { } relative && relative > tolerance.Relative ? tolerance with { Relative = relative } : tolerance;
+        return MeasurementErrors == LearnedMeasurementErrors.None
+            ? options
+            : options with
+            {
+                PhaseCurrentTolerance = Widen(options.PhaseCurrentTolerance, MeasurementErrors.PhaseCurrentRelative),
+                ResidualCurrentTolerance = Widen(options.ResidualCurrentTolerance, MeasurementErrors.ResidualCurrentRelative),
+            };
+    }
+
     public static RankingPriors None { get; } = new(ImmutableDictionary<SegmentId, double>.Empty, ImmutableDictionary<IndicatorId, IndicatorErrorRates>.Empty);
 
     /// <summary>Prior weight of a fault on the segment: rate per km·year times length, faults per year.</summary>
@@ -25,4 +49,13 @@ public sealed record RankingPriors(
             : Units.PerKmYear(grid.LineTypeOf(segment).EffectiveFaultsPer100KmYear);
         return perKmYear * segment.LengthKm;
     }
+}
+
+/// <summary>
+/// Relative errors of substation current measurements learned from the history: the root mean square of
+/// ln(recorded / predicted) at the confirmed faults, bias and spread together (0.05 ≈ 5 %). Null: not learned.
+/// </summary>
+public sealed record LearnedMeasurementErrors(double? PhaseCurrentRelative, double? ResidualCurrentRelative)
+{
+    public static LearnedMeasurementErrors None { get; } = new(null, null);
 }

@@ -1,3 +1,4 @@
+using FeederLocate.Application.History;
 using System.Text.Json;
 using FeederLocate.Application.Analysis;
 using FeederLocate.Application.Evidence;
@@ -19,7 +20,7 @@ namespace FeederLocate.Web.Api;
 /// <summary>
 /// The HTTP interface for telecontrol and other systems: grids and incidents, indications and
 /// substation measurements (single or batch, in the incident format's own shapes), the ranking and the plan,
-/// outcomes. Bodies are limited to 1 MB; bad input is a 400 naming the element and field.
+/// outcomes, and what a grid's outcomes have taught (<see cref="LearningDocument"/>). Bodies are limited to 1 MB; bad input is a 400 naming the element and field.
 /// </summary>
 public static class IncidentApi
 {
@@ -92,6 +93,11 @@ public static class IncidentApi
                     : Results.UnprocessableEntity(ApiError.Single("cannot plan the return", "incident", Text(id), "plan", back.Problem ?? "no plan"));
             }));
         api.MapPost("/incidents/{id:long}/outcome", PostOutcome).RequireAuthorization(AccessPolicies.ApiWrite);
+        api.MapGet("/learning", (string? grid, ClaimsPrincipal user, GridCatalog grids, GridLearning learning, LearningCurves curves) =>
+            grids.Find(grid ?? string.Empty) is { } loaded && AccountClaims.MaySee(user, loaded.Name)
+                ? Results.Ok(LearningDocument.From(loaded.Grid, learning.Outcomes(loaded.Graph).All.Count, learning.Learned(loaded.Graph), curves.For(loaded.Name)))
+                : Results.BadRequest(ApiError.Single("unknown grid", "request", "query", "grid",
+                    $"must name a loaded grid of this account ({string.Join(", ", grids.VisibleTo(user).Select(g => $"\"{g.Name}\""))}), got \"{grid}\"")));
         return app;
     }
 

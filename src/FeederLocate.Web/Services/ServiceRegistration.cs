@@ -25,6 +25,7 @@ public static class ServiceRegistration
         services.AddSingleton(provider => new IncidentAnalysis(provider.GetRequiredService<GridLearning>(), provider.GetRequiredService<IFaultRanker>()));
         services.AddSingleton<IncidentHistory>();
         services.AddSingleton<EvidenceIntake>();
+        services.AddSingleton(_ => new LearningCurves(RepositoryPaths.Resolve(root, options.GridFolder)));
         services.AddSingleton(TimeProvider.System);
         return services;
     }

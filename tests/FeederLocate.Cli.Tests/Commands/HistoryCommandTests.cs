@@ -65,6 +65,18 @@ public sealed class HistoryCommandTests : IDisposable
         var s109 = stats.Json().GetProperty("segments").EnumerateArray().First();
         Assert.Equal("S109", s109.GetProperty("id").GetString());
         Assert.Equal(10, s109.GetProperty("faults").GetInt32());
+        // The chosen prior strengths: per line type with history, chosen by the data within its bounds.
+        var type = stats.Json().GetProperty("lineTypes").EnumerateArray().Single(t => t.GetProperty("faults").GetInt32() == 10).GetProperty("prior");
+        Assert.True(type.GetProperty("chosenByData").GetBoolean());
+        Assert.InRange(type.GetProperty("strengthKmYears").GetDouble(), type.GetProperty("boundsKmYears")[0].GetDouble(), type.GetProperty("boundsKmYears")[1].GetDouble());
+        Assert.NotEmpty(stats.Json().GetProperty("indicatorKinds").EnumerateArray());
+        // Ten records of the breaker's current at the confirmed fault: enough for a learned relative error.
+        var phase = stats.Json().GetProperty("recordRatios").EnumerateArray().Single(r => r.GetProperty("quantity").GetString() == "phase current");
+        Assert.Equal(10, phase.GetProperty("records").GetInt32());
+        Assert.True(phase.GetProperty("relativeError").GetDouble() >= 0);
+        var text = CliRun.Of("stats", SampleGrids.Path("solid"), "--db", Db);
+        Assert.Contains("prior strength km·years", text.Out, StringComparison.Ordinal);
+        Assert.Contains("learned relative error", text.Out, StringComparison.Ordinal);
     }
 
     [Fact]
@@ -104,6 +116,9 @@ public sealed class HistoryCommandTests : IDisposable
         var curve = json.GetProperty("curve").EnumerateArray().Select(p => p.GetProperty("outcomes").GetInt32()).ToList();
         Assert.Equal([0, 10, 20], curve);
         Assert.InRange(json.GetProperty("truthSectionTop1").GetDouble(), 0, 1);
+        var last = json.GetProperty("curve")[2];
+        Assert.True(last.GetProperty("observationYears").GetDouble() > 0);
+        Assert.InRange(last.GetProperty("hotSegmentOutcomes").GetInt32(), 0, 20);
     }
 
     public void Dispose() => _db.Dispose();

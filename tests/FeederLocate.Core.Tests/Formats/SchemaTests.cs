@@ -12,7 +12,7 @@ public class SchemaTests
     private static readonly Lazy<JsonSchema> IncidentSchema = new(() => Load("incident.schema.json"));
 
     public static TheoryData<string> GridFiles => Files("*.grid.json",
-        ["sample-grid"], ["tests", "FeederLocate.Core.Tests", "ReferenceCases", "TinyFen"]);
+        ["sample-grid"], ["sample-grid", "scenarios"], ["tests", "FeederLocate.Core.Tests", "ReferenceCases", "TinyFen"]);
 
     public static TheoryData<string> IncidentFiles => Files("*.incident.json",
         ["sample-grid", "incidents"], ["tests", "FeederLocate.Core.Tests", "ReferenceCases", "TinyFen"]);
@@ -38,7 +38,7 @@ public class SchemaTests
     [Fact]
     public void Every_sample_grid_and_incident_is_checked()
     {
-        Assert.Equal(4 + 4, GridFiles.Count);
+        Assert.Equal(4 + 2 + 4, GridFiles.Count); // sample grids, scenario grids, TinyFen grids
         Assert.Equal(10 + 1, IncidentFiles.Count);
     }
 

@@ -20,15 +20,15 @@ public class IndicatorReliabilityLearningTests
 
     public static TheoryData<IndicatorState, IndicatorState, bool, ReliabilityCounts> CountingRules => new()
     {
-        // expected, observed, suspect → (miss trials, misses, false-report trials, false reports)
+        // expected, observed, suspect → (miss trials, misses, false-report trials, false reports[, direction trials, wrong directions])
         { IndicatorState.Fault, IndicatorState.None, false, new(1, 1, 0, 0) },
         { IndicatorState.Fault, IndicatorState.Fault, false, new(1, 0, 0, 0) },
         { IndicatorState.None, IndicatorState.Fault, false, new(0, 0, 1, 1) },
         { IndicatorState.None, IndicatorState.None, false, new(0, 0, 1, 0) },
         { IndicatorState.Forward, IndicatorState.None, false, new(1, 1, 0, 0) },
-        { IndicatorState.Forward, IndicatorState.Forward, false, new(1, 0, 1, 0) },
-        { IndicatorState.Forward, IndicatorState.Reverse, false, new(1, 0, 1, 1) },
-        { IndicatorState.Reverse, IndicatorState.Forward, false, new(1, 0, 1, 1) },
+        { IndicatorState.Forward, IndicatorState.Forward, false, new(1, 0, 0, 0, 1, 0) },
+        { IndicatorState.Forward, IndicatorState.Reverse, false, new(1, 0, 0, 0, 1, 1) },
+        { IndicatorState.Reverse, IndicatorState.Forward, false, new(1, 0, 0, 0, 1, 1) },
         { IndicatorState.None, IndicatorState.Reverse, false, new(0, 0, 1, 1) },
         { IndicatorState.Fault, IndicatorState.Unknown, false, ReliabilityCounts.Zero },
         { IndicatorState.Unknown, IndicatorState.Fault, false, ReliabilityCounts.Zero },
@@ -110,7 +110,7 @@ public class IndicatorReliabilityLearningTests
     }
 
     [Fact]
-    public void A_wrong_direction_raises_the_false_report_rate()
+    public void A_wrong_direction_raises_the_wrong_direction_rate_and_not_the_false_report_rate()
     {
         // FI2 (directional remote): 2 wrong directions and 3 right ones, 5 quiet where nothing was expected.
         var observations = Enumerable.Repeat(new IndicatorObservation(Fi2, IndicatorState.Forward, IndicatorState.Reverse), 2)
@@ -119,10 +119,14 @@ public class IndicatorReliabilityLearningTests
 
         var learned = IndicatorReliabilityLearning.Learn(TestGrids.Brackenfold(), observations);
 
-        // 10 false-report trials, 2 false: kind Beta(0.4 + 2, 19.6 + 8) = Beta(2.4, 27.6), mean 2.4/30 = 0.08.
+        // 5 false-report trials, none false: kind Beta(0.4, 19.6 + 5) = Beta(0.4, 24.6).
         var kind = learned.Of(new IndicatorKind(Directional: true, Remote: true));
-        AssertBeta(2.4, 27.6, kind.FalseReport);
-        Assert.Equal(new ReliabilityCounts(5, 0, 10, 2), learned.Of(Fi2).Counts);
+        AssertBeta(0.4, 24.6, kind.FalseReport);
+        Assert.Equal(new ReliabilityCounts(5, 0, 5, 0, 5, 2), learned.Of(Fi2).Counts);
+        // 5 direction trials, 2 wrong: kind prior Beta(0.01·20, 0.99·20) = Beta(0.2, 19.8) → Beta(2.2, 22.8), mean 0.088;
+        // FI2 shrunk with s = 10: Beta(0.88 + 2, 9.12 + 3) = Beta(2.88, 12.12), mean 0.192.
+        Assert.Equal(2.2 / 25, kind.WrongDirectionChoice!.Mean, 1e-12);
+        AssertBeta(2.88, 12.12, learned.Of(Fi2).WrongDirection!);
         // 5 miss trials without a miss: Beta(1, 19 + 5) = Beta(1, 24).
         AssertBeta(1, 24, kind.Miss);
     }

@@ -131,6 +131,34 @@ public sealed class IncidentApiTests(ApiFixture app) : IClassFixture<ApiFixture>
     }
 
     [Fact]
+    public async Task The_learning_of_a_grid_gives_the_priors_chosen_from_its_history()
+    {
+        var id = await OpenSolidTrip();
+        var logged = await app.Client.PostAsync($"/api/incidents/{id}/outcome", Json("""{ "segment": "S109", "faultType": "LG" }"""));
+
+        var learning = await app.Client.GetFromJsonAsync<JsonElement>($"/api/learning?grid={Uri.EscapeDataString(SolidGrid)}");
+        var unknown = await app.Client.GetAsync("/api/learning?grid=Nowhere");
+
+        Assert.Equal(HttpStatusCode.Accepted, logged.StatusCode);
+        Assert.Equal(SolidGrid, learning.GetProperty("grid").GetString());
+        Assert.True(learning.GetProperty("outcomes").GetInt32() >= 1);
+        // S109's line type has history, so its prior is chosen by the data, within the stated bounds.
+        var s109 = learning.GetProperty("segments").EnumerateArray().Single(s => s.GetProperty("id").GetString() == "S109");
+        Assert.True(s109.GetProperty("faults").GetInt32() >= 1);
+        foreach (var type in learning.GetProperty("lineTypes").EnumerateArray().Where(t => t.GetProperty("faults").GetInt32() > 0))
+        {
+            Assert.True(type.GetProperty("chosenByData").GetBoolean());
+            var bounds = type.GetProperty("boundsKmYears");
+            Assert.InRange(type.GetProperty("strengthKmYears").GetDouble(), bounds[0].GetDouble(), bounds[1].GetDouble());
+        }
+
+        Assert.Contains(learning.GetProperty("lineTypes").EnumerateArray(), t => t.GetProperty("faults").GetInt32() > 0);
+        Assert.NotEmpty(learning.GetProperty("indicatorKinds").EnumerateArray());
+        Assert.Equal(SolidGrid, learning.GetProperty("measuredCurve").GetProperty("grid").GetString());
+        Assert.Equal(HttpStatusCode.BadRequest, unknown.StatusCode);
+    }
+
+    [Fact]
     public async Task An_unknown_incident_is_a_404_and_an_oversized_body_is_refused()
     {
         var missing = await app.Client.GetAsync("/api/incidents/999999/ranking");
@@ -149,6 +177,7 @@ public sealed class IncidentApiTests(ApiFixture app) : IClassFixture<ApiFixture>
         Assert.Contains("/api/incidents", paths);
         Assert.Contains("/api/incidents/{id}/indications", paths);
         Assert.Contains("/api/incidents/{id}/ranking", paths);
+        Assert.Contains("/api/learning", paths);
         Assert.DoesNotContain(paths, p => p.StartsWith("/account", StringComparison.Ordinal));
         var scheme = document.GetProperty("components").GetProperty("securitySchemes").GetProperty("apiToken");
         Assert.Equal(("http", "bearer"), (scheme.GetProperty("type").GetString(), scheme.GetProperty("scheme").GetString()));

@@ -1,0 +1,65 @@
+using CsCheck;
+using FeederLocate.Core.Evaluation;
+using FeederLocate.Core.Model;
+using FeederLocate.Core.Synthetic;
+using FeederLocate.Core.Topology;
+
+namespace FeederLocate.Core.Tests.Learning;
+
+/// <summary>
+/// The learning curve on generated grids of other shapes and sizes than the sample grids (one or two
+/// substations, 30 to 70 segments, switches every 2 to 6 segments, 15 to 35 % of segments with an indicator),
+/// on every grounding scheme: with a history where the longest overhead segment fails five times its line
+/// type's rate and a remote indicator reports falsely 80 % of the time (defects invented for the test, as the
+/// issue's scenario), the learned defects move toward their true values and section top-1 moves toward the
+/// ranking told the truth. Asserted only as "moves toward the truth", never by how much or how fast.
+/// </summary>
+/// <remarks>
+/// Section top-1 is counted on 150 test incidents shared by every point of the curve; where the truth itself
+/// gains little on a grid the difference is within the noise of those incidents, so the learned ranking may
+/// end up to 3 points further from the truth than it started (about one standard error of a paired
+/// difference of a few disagreeing incidents in 150).
+/// </remarks>
+public class LearningCurvePropertyTests
+{
+    private const double NoiseAllowance = 0.03;
+
+    [Theory]
+    [InlineData(GroundingScheme.Isolated)]
+    [InlineData(GroundingScheme.Resonant)]
+    [InlineData(GroundingScheme.Solid)]
+    [InlineData(GroundingScheme.Impedance)]
+    public void The_curve_moves_toward_the_truth_on_generated_grids(GroundingScheme scheme)
+    {
+        var shapes = Gen.Select(Gen.Int[30, 70], Gen.Int[0, 10_000], Gen.Int[1, 2], Gen.Int[2, 6], Gen.Double[0.15, 0.35]);
+        shapes.Sample((segments, seed, substations, perSwitch, share) =>
+        {
+            var grid = SyntheticGrid.Generate(new SyntheticGridOptions(segments, seed, scheme, share, SegmentsPerSwitch: perSwitch, Substations: substations));
+            var network = new NetworkGraph(grid).Energise(SwitchStates.Normal(grid));
+            // A remote indicator with at least ten energised segments not beyond it: faults there are where it can report falsely.
+            var energised = grid.Segments.Count(s => network.IsSegmentEnergised(s.Id));
+            var remote = grid.Indicators
+                .Where(i => i.Remote && network.IsSegmentEnergised(i.Segment) && network.FacesAwayFromSource(i) && network.ForwardRegion(i).Count <= energised - 10)
+                .ToList();
+            if (remote.Count == 0)
+            {
+                return;
+            }
+
+            var hot = grid.Segments.Where(s => grid.LineTypeOf(s).Construction == Construction.Overhead)
+                .OrderByDescending(s => s.LengthKm).FirstOrDefault() ?? grid.Segments.MaxBy(s => s.LengthKm)!;
+            var noisy = remote[new Random(seed).Next(remote.Count)];
+
+            var report = LearningEvaluation.Run(grid, [0, 150], 150, seed, hot.Id, noisy.Id, 5, 0.8);
+
+            var (start, end) = (report.Curve[0], report.Curve[^1]);
+            var where = $"{grid.Name}, {scheme}, {substations} substation(s), hot {hot.Id}, noisy {noisy.Id}";
+            Assert.True(Math.Abs(report.TruthSectionTop1 - end.SectionTop1) <= Math.Abs(report.TruthSectionTop1 - start.SectionTop1) + NoiseAllowance,
+                $"section top-1 {start.SectionTop1:P1} with no history, {end.SectionTop1:P1} after {end.Outcomes}; told the truth {report.TruthSectionTop1:P1} ({where})");
+            Assert.True(Math.Abs(end.HotSegmentFaultsPer100KmYear - report.HotSegmentTrueFaultsPer100KmYear) < Math.Abs(start.HotSegmentFaultsPer100KmYear - report.HotSegmentTrueFaultsPer100KmYear),
+                $"hot segment learned {end.HotSegmentFaultsPer100KmYear:F1} after {end.Outcomes} outcomes ({end.HotSegmentOutcomes} on it), true {report.HotSegmentTrueFaultsPer100KmYear:F1} ({where})");
+            Assert.True(Math.Abs(end.NoisyFalseReportProbability - report.NoisyFalseProbability) < Math.Abs(start.NoisyFalseReportProbability - report.NoisyFalseProbability),
+                $"noisy indicator learned {end.NoisyFalseReportProbability:P1}, true {report.NoisyFalseProbability:P0} ({where})");
+        }, iter: 2, threads: 1);
+    }
+}
