@@ -1,3 +1,4 @@
+using System.Collections.Immutable;
 using FeederLocate.Core.Evidence;
 using FeederLocate.Core.Model;
 using FeederLocate.Storage.Database;
@@ -20,10 +21,12 @@ public sealed class IncidentStore : IDisposable
     private readonly SqliteConnection _connection;
     private readonly TimeProvider _clock;
     private readonly IncidentCache _cache = new();
+    private readonly FileWatch _file;
 
     private IncidentStore(string path, SqliteConnection connection, TimeProvider clock, int schemaVersion)
     {
         Path = path;
+        _file = new FileWatch(path);
         _connection = connection;
         _clock = clock;
         SchemaVersion = schemaVersion;
@@ -45,11 +48,24 @@ public sealed class IncidentStore : IDisposable
     /// to date. <paramref name="clock"/> stamps the events (the system clock by default).
     /// Throws <see cref="SchemaVersionException"/> for a file written by a newer program.
     /// </summary>
-    public static IncidentStore Open(string path, TimeProvider? clock = null)
+    public static IncidentStore Open(string path, TimeProvider? clock = null) => Open(path, clock, create: true);
+
+    /// <summary>
+    /// Opens an existing database; throws <see cref="DatabaseMissingException"/>, creating nothing, when there is
+    /// no file at <paramref name="path"/> (commands that only read or check a database).
+    /// </summary>
+    public static IncidentStore OpenExisting(string path, TimeProvider? clock = null) => Open(path, clock, create: false);
+
+    private static IncidentStore Open(string path, TimeProvider? clock, bool create)
     {
         ArgumentException.ThrowIfNullOrWhiteSpace(path);
         clock ??= TimeProvider.System;
-        var connection = StoreConnection.Open(path);
+        if (!create && !File.Exists(path))
+        {
+            throw new DatabaseMissingException(path);
+        }
+
+        var connection = StoreConnection.Open(path, create);
         try
         {
             var version = SchemaMigrator.Migrate(connection, clock, path);
@@ -96,6 +112,11 @@ public sealed class IncidentStore : IDisposable
     {
         ArgumentNullException.ThrowIfNull(events);
         ArgumentNullException.ThrowIfNull(actor);
+        if (events.Any(e => e is OutcomeRetracted))
+        {
+            CheckRetractions(incident, events);
+        }
+
         return Write(transaction => AppendIn(transaction, incident, events, actor, grid));
     }
 
@@ -132,8 +153,33 @@ public sealed class IncidentStore : IDisposable
     /// <summary>Writes a consistent copy of the database to <paramref name="destinationPath"/> while it stays in use.</summary>
     public void BackupTo(string destinationPath) => DatabaseChecks.Backup(_connection, Path, destinationPath);
 
-    /// <summary>Runs SQLite's integrity and foreign key checks on the file.</summary>
-    public IntegrityReport CheckIntegrity() => DatabaseChecks.Check(_connection);
+    /// <summary>Runs SQLite's integrity and foreign key checks on the file, and names every quarantined event.</summary>
+    public IntegrityReport CheckIntegrity()
+    {
+        var report = DatabaseChecks.Check(_connection);
+        return report with { Quarantined = QuarantinedSafely() };
+    }
+
+    /// <summary>SQLite's quick check of every page (seconds on a large file, not minutes): the start-up check.</summary>
+    public IntegrityReport QuickCheck() => DatabaseChecks.QuickCheck(_connection);
+
+    /// <summary>
+    /// Every logged event left out of its incident's state because it cannot be read or cannot apply where it
+    /// stands; a whole incident when its opening event cannot be read. The rest is served as usual.
+    /// </summary>
+    public IReadOnlyList<QuarantinedEvent> Quarantine() => _cache.Quarantine(_connection);
+
+    private ImmutableArray<QuarantinedEvent> QuarantinedSafely()
+    {
+        try
+        {
+            return [.. Quarantine()];
+        }
+        catch (SqliteException)
+        {
+            return [];
+        }
+    }
 
     public void Dispose() => _connection.Dispose();
 
@@ -143,6 +189,7 @@ public sealed class IncidentStore : IDisposable
     {
         // BeginTransaction() is BEGIN IMMEDIATE: the write lock is taken (waiting up to the busy timeout)
         // before anything is read, so the sequence number read below cannot be taken by another process.
+        _file.EnsureUnchanged();
         using var transaction = _connection.BeginTransaction();
         var result = change(transaction);
         transaction.Commit();
@@ -179,16 +226,33 @@ public sealed class IncidentStore : IDisposable
         var now = _clock.GetUtcNow();
         foreach (var e in events)
         {
-            if (closed)
+            if (closed && e is not OutcomeRetracted)
             {
                 throw new IncidentClosedException(incident, EventPayload.KindOf(e));
             }
 
             stored.Add(EventTable.InsertEvent(_connection, transaction, incident, ++sequence, now, actor, e));
-            closed = e is IncidentClosed;
+            closed |= e is IncidentClosed;
         }
 
         return stored;
+    }
+
+    /// <summary>A retraction needs an outcome in force where it stands: the one logged, or one earlier in the batch.</summary>
+    private void CheckRetractions(IncidentId incident, IReadOnlyList<IncidentEvent> events)
+    {
+        var inForce = State(incident).Outcome is not null;
+        foreach (var e in events)
+        {
+            if (e is OutcomeRetracted)
+            {
+                inForce = inForce ? false : throw new OutcomeNotLoggedException(incident);
+            }
+            else if (e is OutcomeLogged)
+            {
+                inForce = true;
+            }
+        }
     }
 
     private static void CheckEvent(IncidentEvent e)
@@ -205,6 +269,11 @@ public sealed class IncidentStore : IDisposable
             case OutcomeLogged outcome:
                 ArgumentException.ThrowIfNullOrWhiteSpace(outcome.ConfirmedSegment.Value, nameof(outcome.ConfirmedSegment));
                 break;
+            case OutcomeRetracted retraction:
+                ArgumentException.ThrowIfNullOrWhiteSpace(retraction.Reason, nameof(retraction.Reason));
+                break;
+            case UnreadableEvent:
+                throw new ArgumentException("an unreadable event is never written", nameof(e));
         }
     }
 }

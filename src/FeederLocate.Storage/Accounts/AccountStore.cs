@@ -17,12 +17,14 @@ public sealed class AccountStore : IDisposable
 {
     private readonly SqliteConnection _connection;
     private readonly TimeProvider _clock;
+    private readonly FileWatch _file;
     private SqliteTransaction? _transaction;
 
-    private AccountStore(SqliteConnection connection, TimeProvider clock)
+    private AccountStore(SqliteConnection connection, TimeProvider clock, string path)
     {
         _connection = connection;
         _clock = clock;
+        _file = new FileWatch(path);
     }
 
     /// <summary>Opens (creating if absent) the database at <paramref name="path"/> and brings its schema up to date.</summary>
@@ -34,7 +36,7 @@ public sealed class AccountStore : IDisposable
         try
         {
             SchemaMigrator.Migrate(connection, clock, path);
-            return new AccountStore(connection, clock);
+            return new AccountStore(connection, clock, path);
         }
         catch
         {
@@ -316,6 +318,7 @@ public sealed class AccountStore : IDisposable
 
     private T Write<T>(Func<SqliteTransaction, T> change)
     {
+        _file.EnsureUnchanged();
         using var transaction = _connection.BeginTransaction();
         _transaction = transaction;
         try

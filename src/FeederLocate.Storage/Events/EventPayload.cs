@@ -22,6 +22,7 @@ internal static class EventPayload
     public const string OutcomeLoggedKind = "outcomeLogged";
     public const string IncidentClosedKind = "incidentClosed";
     public const string SubstationRecordAmendedKind = "substationRecordAmended";
+    public const string OutcomeRetractedKind = "outcomeRetracted";
 
     // Required constructor parameters and nullable annotations are enforced, so a payload missing a
     // non-optional field fails to read instead of yielding nulls; optional fields have defaults.
@@ -43,6 +44,8 @@ internal static class EventPayload
         OutcomeLogged => OutcomeLoggedKind,
         IncidentClosed => IncidentClosedKind,
         SubstationRecordAmended => SubstationRecordAmendedKind,
+        OutcomeRetracted => OutcomeRetractedKind,
+        UnreadableEvent u => u.StoredKind,
         _ => throw new ArgumentException($"unknown event type {e.GetType().Name}", nameof(e)),
     };
 
@@ -62,6 +65,8 @@ internal static class EventPayload
             OutcomeLogged o => new OutcomePayload(o.ConfirmedSegment.Value, IncidentFormat.Name(o.FaultType), o.Cause, o.Notes),
             IncidentClosed c => new ClosedPayload(c.Note),
             SubstationRecordAmended a => new AmendedPayload(IncidentFormat.Name(a.FaultType), a.TrippedDevice?.Value),
+            OutcomeRetracted r => new RetractedPayload(r.Reason),
+            UnreadableEvent => throw new ArgumentException("an unreadable event is never written", nameof(e)),
             _ => throw new ArgumentException($"unknown event type {e.GetType().Name}", nameof(e)),
         };
         return JsonSerializer.Serialize(payload, payload.GetType(), Options);
@@ -82,10 +87,15 @@ internal static class EventPayload
                 OutcomeLoggedKind => Read<OutcomePayload>(json).ToEvent(id),
                 IncidentClosedKind => new IncidentClosed(Read<ClosedPayload>(json).Note),
                 SubstationRecordAmendedKind => Read<AmendedPayload>(json).ToEvent(id),
+                OutcomeRetractedKind => new OutcomeRetracted(Read<RetractedPayload>(json).Reason),
                 _ => throw new CorruptEventException(id, $"has unknown kind \"{kind}\""),
             };
         }
         catch (JsonException e)
+        {
+            throw new CorruptEventException(id, $"has a {kind} payload that cannot be read: {e.Message}", e);
+        }
+        catch (Exception e) when (e is ArgumentException or FormatException or InvalidOperationException or NotSupportedException)
         {
             throw new CorruptEventException(id, $"has a {kind} payload that cannot be read: {e.Message}", e);
         }
@@ -156,6 +166,8 @@ internal static class EventPayload
     }
 
     private sealed record ClosedPayload(string? Note = null);
+
+    private sealed record RetractedPayload(string Reason);
 
     private sealed record AmendedPayload(string FaultType, string? TrippedDevice = null)
     {
