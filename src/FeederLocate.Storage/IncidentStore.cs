@@ -83,6 +83,21 @@ public sealed class IncidentStore : IDisposable
         Write(transaction => OpenIn(transaction, gridName, incident, actor));
 
     /// <summary>
+    /// Logs a new incident on <paramref name="grid"/>; switch states that give no radial network are refused
+    /// (<see cref="EvidenceNotRadialException"/>) and nothing is logged.
+    /// </summary>
+    public IncidentId OpenIncident(Grid grid, Incident incident, Actor actor)
+    {
+        ArgumentNullException.ThrowIfNull(grid);
+        return Write(transaction =>
+        {
+            var id = OpenIn(transaction, grid.Name, incident, actor);
+            RadialEvidence.Check(id, grid, incident);
+            return id;
+        });
+    }
+
+    /// <summary>
     /// Logs an incident with its confirmed fault location and closes it, all in one transaction: the
     /// <c>record</c> command. The outcome's segment must be in <paramref name="grid"/>.
     /// </summary>
@@ -93,6 +108,7 @@ public sealed class IncidentStore : IDisposable
         return Write(transaction =>
         {
             var id = OpenIn(transaction, grid.Name, incident, actor);
+            RadialEvidence.Check(id, grid, incident);
             AppendIn(transaction, id, [outcome, new IncidentClosed()], actor, grid);
             return id;
         });
@@ -105,7 +121,8 @@ public sealed class IncidentStore : IDisposable
     /// <summary>
     /// Appends events, in order, to an open incident in one transaction: all are logged or none.
     /// With <paramref name="grid"/> given, it must be the incident's grid and the events may name only its
-    /// elements (<see cref="IncidentGridMismatchException"/>). Throws <see cref="UnknownIncidentException"/>
+    /// elements (<see cref="IncidentGridMismatchException"/>), and switch states that close a loop or parallel two
+    /// substations, or an outcome on such states, are refused (<see cref="EvidenceNotRadialException"/>). Throws <see cref="UnknownIncidentException"/>
     /// for an id not logged and <see cref="IncidentClosedException"/> for a closed incident.
     /// </summary>
     public IReadOnlyList<StoredEvent> Append(IncidentId incident, IReadOnlyList<IncidentEvent> events, Actor actor, Grid? grid = null)
@@ -115,6 +132,13 @@ public sealed class IncidentStore : IDisposable
         if (events.Any(e => e is OutcomeRetracted))
         {
             CheckRetractions(incident, events);
+        }
+
+        if (grid is not null && RadialEvidence.Concerns(events) && State(incident) is { } state
+            && string.Equals(state.GridName, grid.Name, StringComparison.Ordinal))
+        {
+            GridReferences.Check(incident, state.GridName, grid, events);
+            RadialEvidence.Check(incident, grid, state.Incident, events);
         }
 
         return Write(transaction => AppendIn(transaction, incident, events, actor, grid));

@@ -30,7 +30,7 @@ internal static class HistoryCommands
         var command = new Command("history", "List the incidents in the history database") { db, json };
         command.SetAction(parse =>
         {
-            using var store = HistoryDatabase.Open(parse.GetValue(db)!);
+            using var store = ExistingDatabase.Open(parse.GetValue(db)!);
             var incidents = store.Incidents();
             if (parse.GetValue(json))
             {
@@ -64,7 +64,7 @@ internal static class HistoryCommands
         command.SetAction(parse =>
         {
             var model = InputFiles.LoadGrid(parse.GetValue(grid)!, console.Error);
-            using var store = HistoryDatabase.Open(parse.GetValue(db)!);
+            using var store = ExistingDatabase.Open(parse.GetValue(db)!);
             var graph = new NetworkGraph(model);
             var outcomes = HistoryDatabase.OutcomesFor(store, model);
             var learned = LearnedRankingPriors.Learn(graph, outcomes);
@@ -116,7 +116,7 @@ internal static class HistoryCommands
         var command = new Command("export", "Export incidents or indicator statistics as CSV") { db, what, grid, output };
         command.SetAction(parse =>
         {
-            using var store = HistoryDatabase.Open(parse.GetValue(db)!);
+            using var store = ExistingDatabase.Open(parse.GetValue(db)!);
             var text = new StringWriter(CultureInfo.InvariantCulture);
             switch (parse.GetValue(what))
             {
@@ -154,7 +154,7 @@ internal static class HistoryCommands
         var command = new Command("backup", "Copy the history database online to a file (SQLite online backup)") { db, output };
         command.SetAction(parse =>
         {
-            using var store = HistoryDatabase.Open(parse.GetValue(db)!);
+            using var store = ExistingDatabase.Open(parse.GetValue(db)!);
             store.BackupTo(parse.GetValue(output)!);
             console.Out.WriteLine($"backed up {parse.GetValue(db)} to {parse.GetValue(output)}");
             return CliApp.Success;
@@ -169,7 +169,7 @@ internal static class HistoryCommands
         var command = new Command("integrity", "Check the history database's integrity (exit 1 when it fails)") { db, json };
         command.SetAction(parse =>
         {
-            using var store = HistoryDatabase.Open(parse.GetValue(db)!);
+            using var store = ExistingDatabase.Open(parse.GetValue(db)!);
             var report = store.CheckIntegrity();
             if (parse.GetValue(json))
             {

@@ -10,6 +10,9 @@ namespace FeederLocate.Cli.Commands;
 /// <summary><c>record GRID INCIDENT --segment ID --db FILE</c>: logs an incident with its confirmed fault location.</summary>
 internal static class RecordCommand
 {
+    /// <summary>The environment variable holding an API token of the account named with --by.</summary>
+    public const string TokenVariable = "FEEDERLOCATE_TOKEN";
+
     public static Command Create(CliConsole console)
     {
         var grid = CliOptions.Grid();
@@ -19,7 +22,8 @@ internal static class RecordCommand
         var db = CliOptions.Database(required: true);
         var by = new Option<string?>("--by")
         {
-            Description = "The account logging it (an enabled operator or engineer of the database); default: the machine's user, as cli:NAME",
+            Description = "The account logging it (an enabled operator or engineer of the database), proven by one of its API tokens in the "
+                + $"environment variable {TokenVariable}; default: the machine's user, as cli:NAME",
         };
         var json = CliOptions.Json();
         var command = new Command("record", "Log an incident and where its fault was confirmed, so the next ranking learns") { grid, incident, segment, cause, db, by, json };
@@ -52,7 +56,10 @@ internal static class RecordCommand
         return CliApp.Success;
     }
 
-    /// <summary>Who the log names: the account given with --by (checked against the database's accounts), else the machine's user.</summary>
+    /// <summary>
+    /// Who the log names: the account given with --by, proven by one of its live API tokens (anyone at the
+    /// machine could type a name; only the account's holder has its token), else the machine's user.
+    /// </summary>
     private static Actor Logger(string dbPath, string? by)
     {
         if (by is null)
@@ -65,7 +72,18 @@ internal static class RecordCommand
             throw new BadInputException($"error: --by \"{by}\" must name an account of {dbPath}, which does not exist yet");
         }
 
+        var secret = Environment.GetEnvironmentVariable(TokenVariable);
+        if (string.IsNullOrWhiteSpace(secret))
+        {
+            throw new BadInputException($"error: --by \"{by}\" needs one of that account's API tokens in the environment variable {TokenVariable} (an engineer issues tokens on the Accounts page)");
+        }
+
         using var accounts = AccountStore.Open(dbPath);
+        if (accounts.Authenticate(secret.Trim()) is not { } proven || !string.Equals(proven.Account.Name, by, StringComparison.Ordinal))
+        {
+            throw new BadInputException($"error: the token in {TokenVariable} is not a live API token of account \"{by}\"");
+        }
+
         return accounts.Find(by) switch
         {
             null => throw new BadInputException($"error: --by \"{by}\" is not an account of {dbPath}"),

@@ -14,11 +14,35 @@ namespace FeederLocate.Web.Services;
 public sealed class IncidentBoard : IDisposable
 {
     private readonly IncidentStore _store;
+    private readonly Func<string, Grid?> _gridNamed;
     private readonly Lock _gate = new();
 
-    public IncidentBoard(IncidentStore store)
+    /// <param name="gridNamed">The loaded grid of a name, if any: every change is checked against it (elements, radial switch states).</param>
+    public IncidentBoard(IncidentStore store, Func<string, Grid?>? gridNamed = null)
     {
         _store = store;
+        _gridNamed = gridNamed ?? (_ => null);
+    }
+
+    /// <summary>The database file.</summary>
+    public string DatabasePath => _store.Path;
+
+    /// <summary>Every logged event left out of its incident's state (see <see cref="IncidentStore.Quarantine"/>).</summary>
+    public IReadOnlyList<QuarantinedEvent> Quarantine()
+    {
+        lock (_gate)
+        {
+            return _store.Quarantine();
+        }
+    }
+
+    /// <summary>SQLite's quick check of every page, and the quarantined events.</summary>
+    public Storage.Maintenance.IntegrityReport QuickCheck()
+    {
+        lock (_gate)
+        {
+            return _store.QuickCheck() with { Quarantined = [.. _store.Quarantine()] };
+        }
     }
 
     /// <summary>Raised after an incident changed, with its id.</summary>
@@ -78,7 +102,7 @@ public sealed class IncidentBoard : IDisposable
     {
         lock (_gate)
         {
-            _store.Append(id, changes, actor, grid);
+            _store.Append(id, changes, actor, grid ?? _gridNamed(_store.State(id).GridName));
         }
 
         Changed?.Invoke(id);
@@ -91,7 +115,7 @@ public sealed class IncidentBoard : IDisposable
         IncidentId id;
         lock (_gate)
         {
-            id = _store.OpenIncident(grid.Name, incident, actor);
+            id = _store.OpenIncident(grid.Grid, incident, actor);
         }
 
         Changed?.Invoke(id);

@@ -13,7 +13,7 @@ public static class ServiceRegistration
         services.AddSingleton(options);
         services.AddSingleton(_ => new GridCatalog(RepositoryPaths.Resolve(root, options.GridFolder), options.DefaultGrid));
         var databasePath = RepositoryPaths.Resolve(root, options.DatabasePath);
-        services.AddSingleton(_ => new IncidentBoard(IncidentStore.Open(databasePath)));
+        services.AddSingleton(sp => new IncidentBoard(IncidentStore.Open(databasePath), name => sp.GetRequiredService<GridCatalog>().Find(name)?.Grid));
         services.AddFeederLocateSecurity(databasePath);
         services.AddSingleton<IncidentAnalysis>();
         services.AddSingleton<IncidentHistory>();

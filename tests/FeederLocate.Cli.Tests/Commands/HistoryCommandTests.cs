@@ -22,22 +22,43 @@ public sealed class HistoryCommandTests : IDisposable
     }
 
     [Fact]
-    public void Record_names_the_account_given_with_by_and_refuses_one_that_may_not_log()
+    public void Record_names_the_account_given_with_by_only_with_one_of_its_tokens()
     {
+        string anaToken, veraToken;
         using (var accounts = Storage.Accounts.AccountStore.Open(Db))
         {
             accounts.Create("ana", "Ana Field", Storage.Accounts.AccountRole.Operator, "unused-hash", false, null, "admin");
             accounts.Create("vera", "Vera", Storage.Accounts.AccountRole.Viewer, "unused-hash", false, null, "admin");
+            anaToken = accounts.IssueToken("ana", "laptop", "admin").Secret;
+            veraToken = accounts.IssueToken("vera", "wall", "admin").Secret;
         }
 
-        var byOperator = CliRun.Of("record", CliRun.Sample("solid"), Incident("solid-lg-trip-a1.incident.json"), "--segment", "S109", "--db", Db, "--by", "ana", "--json");
-        var byViewer = CliRun.Of("record", CliRun.Sample("solid"), Incident("solid-lg-trip-a1.incident.json"), "--segment", "S109", "--db", Db, "--by", "vera");
-        var byNobody = CliRun.Of("record", CliRun.Sample("solid"), Incident("solid-lg-trip-a1.incident.json"), "--segment", "S109", "--db", Db, "--by", "nobody");
+        string[] Record(string by) => ["record", CliRun.Sample("solid"), Incident("solid-lg-trip-a1.incident.json"), "--segment", "S109", "--db", Db, "--by", by, "--json"];
+        CliRun WithToken(string? token, string[] args)
+        {
+            Environment.SetEnvironmentVariable("FEEDERLOCATE_TOKEN", token);
+            try
+            {
+                return CliRun.Of(args);
+            }
+            finally
+            {
+                Environment.SetEnvironmentVariable("FEEDERLOCATE_TOKEN", null);
+            }
+        }
+
+        var noToken = WithToken(null, Record("ana"));
+        var othersToken = WithToken(veraToken, Record("ana"));
+        var byOperator = WithToken(anaToken, Record("ana"));
+        var byViewer = WithToken(veraToken, Record("vera"));
+        var byNobody = WithToken(anaToken, Record("nobody"));
         var byDefault = CliRun.Of("record", CliRun.Sample("solid"), Incident("solid-lg-trip-a1.incident.json"), "--segment", "S109", "--db", Db, "--json");
 
-        Assert.Equal((0, 2, 2, 0), (byOperator.ExitCode, byViewer.ExitCode, byNobody.ExitCode, byDefault.ExitCode));
+        Assert.Equal((2, 2, 0, 2, 2, 0), (noToken.ExitCode, othersToken.ExitCode, byOperator.ExitCode, byViewer.ExitCode, byNobody.ExitCode, byDefault.ExitCode));
+        Assert.Contains("needs one of that account's API tokens in the environment variable FEEDERLOCATE_TOKEN", noToken.Error, StringComparison.Ordinal);
+        Assert.Contains("is not a live API token of account \"ana\"", othersToken.Error, StringComparison.Ordinal);
         Assert.Contains("--by \"vera\" is a viewer", byViewer.Error, StringComparison.Ordinal);
-        Assert.Contains("--by \"nobody\" is not an account", byNobody.Error, StringComparison.Ordinal);
+        Assert.Contains("is not a live API token of account \"nobody\"", byNobody.Error, StringComparison.Ordinal);
         using var store = Storage.IncidentStore.Open(Db);
         var incidents = store.Incidents();
         Assert.Equal(2, incidents.Count);
