@@ -1,3 +1,4 @@
+using FeederLocate.Storage.Maintenance;
 using FeederLocate.Web.Api;
 using FeederLocate.Web.Components;
 using FeederLocate.Web.Security;
@@ -26,12 +27,18 @@ public static class FeederLocateWebApp
         builder.Services.AddOpenApi(o => o.AddDocumentTransformer<BearerTokenDocument>());
 
         var app = builder.Build();
+        var options = app.Services.GetRequiredService<FeederLocateOptions>();
+        CheckDatabaseAtStart(app.Services);
+
+        app.UseForwardedHeaders(ProxyHeaders.Options(options.TrustedProxies));
+        app.UseSecurityHeaders();
         if (!app.Environment.IsDevelopment())
         {
             app.UseExceptionHandler("/Error", createScopeForErrors: true);
         }
 
         app.UseStatusCodePagesWithReExecute("/not-found", createScopeForStatusCodePages: true);
+        app.UseApiProblems();
         app.UseStaticFiles();
         app.UseAuthentication();
         app.UseAuthorization();
@@ -42,7 +49,6 @@ public static class FeederLocateWebApp
         app.MapIncidentApi();
         app.MapOpenApi().AllowAnonymous();
 
-        var options = app.Services.GetRequiredService<FeederLocateOptions>();
         var accounts = app.Services.GetRequiredService<AccountDirectory>();
         if (options.ResetAdministrator)
         {
@@ -56,5 +62,26 @@ public static class FeederLocateWebApp
         app.Lifetime.ApplicationStarted.Register(() =>
             Console.WriteLine($"FeederLocate is running at {string.Join(", ", app.Urls)} (advice only: verify on site; local switching rules govern)"));
         return app;
+    }
+
+    /// <summary>
+    /// Before serving: the database is claimed for this app alone (<see cref="InstanceLock"/>), and SQLite's quick
+    /// check reads every page. A damaged file is refused with <see cref="DatabaseDamagedException"/>; events that
+    /// cannot be read are only named (they are quarantined, the rest is served).
+    /// </summary>
+    private static void CheckDatabaseAtStart(IServiceProvider services)
+    {
+        services.GetRequiredService<InstanceLock>();
+        var board = services.GetRequiredService<IncidentBoard>();
+        var report = board.QuickCheck();
+        if (!report.Problems.IsEmpty)
+        {
+            throw new DatabaseDamagedException(board.DatabasePath, report);
+        }
+
+        foreach (var quarantined in report.Quarantined)
+        {
+            Console.Error.WriteLine($"warning: {quarantined}");
+        }
     }
 }

@@ -123,6 +123,10 @@ public sealed class AccountStore : IDisposable
         return Change(name, by, "set grids", json as string ?? "every grid", "grids = $grids", p => p.AddWithValue("$grids", json));
     }
 
+    /// <summary>Gives the account a new security stamp and nothing else: every open session of it ends (signing out).</summary>
+    public Account EndSessions(string name, string by) =>
+        Change(name, by, "end sessions", null, "failed_sign_ins = failed_sign_ins", _ => { });
+
     public Account Disable(string name, string by) =>
         Change(name, by, "disable", null, "disabled_at = $now", p => p.AddWithValue("$now", IsoTime.Format(_clock.GetUtcNow())));
 

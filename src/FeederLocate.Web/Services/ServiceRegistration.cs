@@ -14,7 +14,9 @@ public static class ServiceRegistration
         services.AddSingleton(_ => new GridCatalog(RepositoryPaths.Resolve(root, options.GridFolder), options.DefaultGrid));
         var databasePath = RepositoryPaths.Resolve(root, options.DatabasePath);
         services.AddSingleton(sp => new IncidentBoard(IncidentStore.Open(databasePath), name => sp.GetRequiredService<GridCatalog>().Find(name)?.Grid));
-        services.AddFeederLocateSecurity(databasePath);
+        // Claimed before the database is opened: a second web app on the same file is refused at start.
+        services.AddSingleton(_ => Storage.Maintenance.InstanceLock.Claim(databasePath));
+        services.AddFeederLocateSecurity(databasePath, options.SignInFreeFailuresPerClient);
         services.AddSingleton<IncidentAnalysis>();
         services.AddSingleton<IncidentHistory>();
         services.AddSingleton(TimeProvider.System);
