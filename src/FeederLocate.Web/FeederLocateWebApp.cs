@@ -69,11 +69,24 @@ public static class FeederLocateWebApp
     /// check reads every page. A damaged file is refused with <see cref="DatabaseDamagedException"/>; events that
     /// cannot be read are only named (they are quarantined, the rest is served).
     /// </summary>
+    private const int SqliteCorrupt = 11;      // SQLITE_CORRUPT, sqlite.org/rescode.html
+    private const int SqliteNotADatabase = 26; // SQLITE_NOTADB
+
     private static void CheckDatabaseAtStart(IServiceProvider services)
     {
         services.GetRequiredService<InstanceLock>();
-        var board = services.GetRequiredService<IncidentBoard>();
-        var report = board.QuickCheck();
+        IncidentBoard board;
+        IntegrityReport report;
+        try
+        {
+            board = services.GetRequiredService<IncidentBoard>();
+            report = board.QuickCheck();
+        }
+        catch (Microsoft.Data.Sqlite.SqliteException e) when (e.SqliteErrorCode is SqliteCorrupt or SqliteNotADatabase)
+        {
+            throw new DatabaseDamagedException(services.GetRequiredService<FeederLocateOptions>().DatabasePath, new IntegrityReport([e.Message]));
+        }
+
         if (!report.Problems.IsEmpty)
         {
             throw new DatabaseDamagedException(board.DatabasePath, report);

@@ -49,6 +49,7 @@ public static class ApiProblems
             BadHttpRequestException { StatusCode: StatusCodes.Status413PayloadTooLarge } =>
                 (StatusCodes.Status413PayloadTooLarge, "body too large", $"the body must be at most {IncidentApi.MaximumBodyBytes} bytes; nothing was saved"),
             BadHttpRequestException bad => (bad.StatusCode, "bad request", "the request could not be read; nothing was saved"),
+            IncidentStoreException refused => (StatusCodes.Status400BadRequest, "refused", refused.Message + "; nothing was saved"),
             DatabaseFileGoneException gone => (StatusCodes.Status503ServiceUnavailable, "not saved", gone.Message),
             SqliteException { SqliteErrorCode: SqliteFull } =>
                 (StatusCodes.Status507InsufficientStorage, "not saved", "the disk holding the incident log is full; nothing was saved"),
