@@ -1,3 +1,5 @@
+using FeederLocate.Web.Services;
+
 namespace FeederLocate.Web;
 
 /// <summary>The web app's static files live in the repository's top-level wwwroot/.</summary>
@@ -7,13 +9,9 @@ internal static class WebRoot
     {
         foreach (var start in starts)
         {
-            for (var dir = new DirectoryInfo(start); dir is not null; dir = dir.Parent)
+            if (RepositoryPaths.Find(start) is { } root && Directory.Exists(Path.Combine(root, "wwwroot")))
             {
-                var candidate = Path.Combine(dir.FullName, "wwwroot");
-                if (File.Exists(Path.Combine(dir.FullName, "FeederLocate.sln")) && Directory.Exists(candidate))
-                {
-                    return candidate;
-                }
+                return Path.Combine(root, "wwwroot");
             }
         }
 

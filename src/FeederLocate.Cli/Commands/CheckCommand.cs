@@ -44,7 +44,8 @@ internal static class CheckCommand
 
         var graph = new NetworkGraph(model);
         var network = graph.Energise(SwitchStates.Normal(model));
-        var substations = model.Substations.Select((s, i) => Summarise(model, network, s, i)).ToList();
+        var aggregates = NetworkAggregates.Of(network);
+        var substations = model.Substations.Select((s, i) => Summarise(model, network, aggregates, s, i)).ToList();
         var document = new CheckDocument(true, errors, warnings, model.Segments.Length, graph.Sections.All.Length, model.Indicators.Length, substations);
         if (json)
         {
@@ -71,12 +72,12 @@ internal static class CheckCommand
         return CliApp.Success;
     }
 
-    private static SubstationSummary Summarise(Grid grid, EnergisedNetwork network, Substation substation, int index)
+    private static SubstationSummary Summarise(Grid grid, EnergisedNetwork network, NetworkAggregates aggregates, Substation substation, int index)
     {
         var fed = grid.Segments.Where((_, i) => network.IsSegmentEnergised(i) && network.SubstationIndexOf(network.SuppliedEndOf(i)) == index).ToList();
         double Km(Construction c) => fed.Where(s => grid.LineTypeOf(s).Construction == c).Sum(s => s.LengthKm);
-        var e = SourceImpedance.VoltageFactorMaxMediumVoltage * substation.NominalVoltageKv * 1000 / Math.Sqrt(3);
-        var chargingA = 3 * grid.AngularFrequencyRadPerS * network.TotalCapacitanceF(index) * e;
+        var e = Units.PhaseVoltageV(substation.NominalVoltageKv, SourceImpedance.VoltageFactorMaxMediumVoltage);
+        var chargingA = 3 * grid.AngularFrequencyRadPerS * aggregates.TotalCapacitanceF(index) * e;
         var zq = SourceImpedance.AtBusbarOhm(substation, SourceImpedance.VoltageFactorMaxMediumVoltage);
         var ik3 = SequenceFault.Solve(FaultType.LLL, e, zq, System.Numerics.Complex.Zero, System.Numerics.Complex.Zero, 0).PositiveA.Magnitude;
         var feeders = grid.Switches.Count(s => s.Kind == SwitchKind.Breaker && (s.From == substation.BusNode || s.To == substation.BusNode));

@@ -25,14 +25,15 @@ public sealed class FaultResponseModel
         ArgumentNullException.ThrowIfNull(network);
         SourceImpedance.CheckVoltageFactor(voltageFactor);
         Network = network;
+        Aggregates = NetworkAggregates.Of(network);
         VoltageFactor = voltageFactor;
         var grid = network.Grid;
         var omega = grid.AngularFrequencyRadPerS;
         _substations = [.. grid.Substations.Select((s, i) => new SubstationTerms(
-            voltageFactor * s.NominalVoltageKv * 1000 / Math.Sqrt(3),
+            Units.PhaseVoltageV(s.NominalVoltageKv, voltageFactor),
             SourceImpedance.AtBusbarOhm(s, voltageFactor),
-            NeutralAdmittance.AtBus(s, network.TotalCapacitanceF(i), omega),
-            NeutralAdmittance.OfNeutral(s, network.TotalCapacitanceF(i), omega),
+            NeutralAdmittance.AtBus(s, Aggregates.TotalCapacitanceF(i), omega),
+            NeutralAdmittance.OfNeutral(s, Aggregates.TotalCapacitanceF(i), omega),
             s.Grounding.DampingPercent))];
         _indicators = [.. grid.Indicators.Select(Compile)];
         _segmentZ1Ohm = new Complex[grid.Segments.Length];
@@ -49,6 +50,9 @@ public sealed class FaultResponseModel
     }
 
     public EnergisedNetwork Network { get; }
+
+    /// <summary>The path impedances and capacitances of <see cref="Network"/>.</summary>
+    public NetworkAggregates Aggregates { get; }
 
     public double VoltageFactor { get; }
 
@@ -72,8 +76,8 @@ public sealed class FaultResponseModel
         var sub = Network.SubstationIndexOf(up);
         var terms = _substations[sub];
         var fromSupply = _suppliedFromFrom[segment] ? position : 1 - position;
-        var z1 = terms.SourceOhm + Network.PositiveSequencePathOhm(up) + (_segmentZ1Ohm[segment] * fromSupply);
-        var z0Path = Network.ZeroSequencePathOhm(up) + (_segmentZ0Ohm[segment] * fromSupply);
+        var z1 = terms.SourceOhm + Aggregates.PositiveSequencePathOhm(up) + (_segmentZ1Ohm[segment] * fromSupply);
+        var z0Path = Aggregates.ZeroSequencePathOhm(up) + (_segmentZ0Ohm[segment] * fromSupply);
         var currents = SequenceFault.Solve(type, terms.PhaseVoltageV, z1, z0Path, terms.ZeroSequenceBusS, faultResistanceOhm);
         return new FaultSolution(type, segment, up, sub, z1, z0Path, terms.PhaseVoltageV, currents,
             SequenceFault.FaultedPhaseCurrentA(type, currents));
@@ -103,7 +107,7 @@ public sealed class FaultResponseModel
 
         var sub = Network.SubstationIndexOf(far);
         var terms = _substations[sub];
-        var forward = NeutralAdmittance.OfCapacitance(Network.CapacitanceAtOrBeyondF(far), Grid.AngularFrequencyRadPerS, terms.DampingPercent);
+        var forward = NeutralAdmittance.OfCapacitance(Aggregates.CapacitanceAtOrBeyondF(far), Grid.AngularFrequencyRadPerS, terms.DampingPercent);
         return new MeasuringPoint(sub, far, true, -1, 3 * forward.Magnitude, 3 * (forward - terms.ZeroSequenceBusS).Magnitude, double.NaN, double.NaN, false);
     }
 
@@ -182,17 +186,8 @@ public sealed class FaultResponseModel
         // one gain per side, fixed by the topology, times the fault's neutral displacement.
         var residualA = fault.NeutralVoltageMagnitudeV * (faultBeyond ? p.BeyondGainS : p.NotBeyondGainS);
         var phaseA = onPath ? fault.FaultedPhaseCurrentA : 0;
-        var expected = ExpectedState(p, faultBeyond, onPath, phaseA, residualA);
+        var expected = p.ExpectedState(phaseA, residualA, faultBeyond);
         return new IndicatorReading(phaseA, residualA, faultBeyond, expected);
-    }
-
-    /// <summary>The state an indicator is expected to show for the currents it sees (reference model).</summary>
-    internal static IndicatorState ExpectedState(in MeasuringPoint p, bool faultBeyond, bool onPath, double phaseCurrentA, double residualCurrentA)
-    {
-        var picked = (onPath && phaseCurrentA >= p.PhasePickupA) || residualCurrentA >= p.EarthPickupA;
-        return !picked ? IndicatorState.None
-            : !p.Directional ? IndicatorState.Fault
-            : faultBeyond ? IndicatorState.Forward : IndicatorState.Reverse;
     }
 
     private MeasuringPoint Compile(Indicator indicator)
@@ -214,13 +209,13 @@ public sealed class FaultResponseModel
         Complex forward;
         if (away)
         {
-            forward = NeutralAdmittance.OfCapacitance(Network.CapacitanceAtOrBeyondF(far), omega, terms.DampingPercent);
+            forward = NeutralAdmittance.OfCapacitance(Aggregates.CapacitanceAtOrBeyondF(far), omega, terms.DampingPercent);
         }
         else
         {
             var seg = Grid.Segments[segment];
-            var own = Grid.LineTypeOf(seg).C0NfPerKm * 1e-9 * seg.LengthKm;
-            var capacitanceF = Network.TotalCapacitanceF(sub) - Network.CapacitanceAtOrBeyondF(far) + own;
+            var own = Units.FaradsPerKm(Grid.LineTypeOf(seg).C0NfPerKm) * seg.LengthKm;
+            var capacitanceF = Aggregates.TotalCapacitanceF(sub) - Aggregates.CapacitanceAtOrBeyondF(far) + own;
             forward = NeutralAdmittance.OfCapacitance(capacitanceF, omega, terms.DampingPercent) + terms.NeutralS;
         }
 

@@ -1,3 +1,6 @@
+using FeederLocate.Core.Evidence;
+using FeederLocate.Core.Model;
+
 namespace FeederLocate.Core.Electrical;
 
 /// <summary>
@@ -20,4 +23,11 @@ internal readonly record struct MeasuringPoint(
 {
     /// <summary>True where a fault beyond the point drives the faulted-phase current through it.</summary>
     public bool OnPath(bool faultBeyond) => AwayFromSource ? faultBeyond : !faultBeyond;
+
+    /// <summary>The indicator's state for the currents through it (<see cref="Indicator.ExpectedState(double, double, bool)"/>).</summary>
+    public IndicatorState ExpectedState(double phaseCurrentA, double residualCurrentA, bool faultBeyond) =>
+        Indicator.ExpectedState(PhasePickupA, EarthPickupA, Directional, phaseCurrentA, residualCurrentA, faultBeyond);
+
+    /// <summary>What the indicator reports once picked up (<see cref="Indicator.PickedUpState(bool)"/>).</summary>
+    public IndicatorState PickedUpState(bool faultBeyond) => Indicator.PickedUpState(Directional, faultBeyond);
 }

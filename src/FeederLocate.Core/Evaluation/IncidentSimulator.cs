@@ -115,8 +115,8 @@ public sealed class IncidentSimulator
             return IndicatorState.None;
         }
 
-        return !indicator.Directional ? IndicatorState.Fault
-            : random.Next(2) == 0 ? IndicatorState.Forward : IndicatorState.Reverse;
+        // A false flag's direction is drawn only for directional indicators, as before: the draw sequence is part of the seed.
+        return indicator.PickedUpState(indicator.Directional && random.Next(2) == 0);
     }
 
     /// <summary>The protective device nearest the fault on its path from the source: it clears the fault.</summary>

@@ -42,7 +42,7 @@ public static class LearningEvaluation
         ArgumentNullException.ThrowIfNull(grid);
         ArgumentNullException.ThrowIfNull(checkpoints);
         var graph = new NetworkGraph(grid);
-        var nominal = grid.LineTypeOf(grid.Segment(hotSegment)).EffectiveFaultsPer100KmYear / 100;
+        var nominal = Units.PerKmYear(grid.LineTypeOf(grid.Segment(hotSegment)).EffectiveFaultsPer100KmYear);
         var truePriorsForSimulation = new RankingPriors(
             ImmutableDictionary<SegmentId, double>.Empty.Add(hotSegment, nominal * hotSegmentRateFactor),
             ImmutableDictionary<IndicatorId, IndicatorErrorRates>.Empty);

@@ -1,7 +1,5 @@
 using FeederLocate.Core.Model;
-using QuikGraph;
-using QuikGraph.Algorithms;
-using QuikGraph.Collections;
+using FeederLocate.Core.Topology;
 
 namespace FeederLocate.Core.Formats;
 
@@ -64,10 +62,6 @@ internal static class GridChecks
             }
         }
 
-        if (!log.HasErrors)
-        {
-            NormalTopology(parts, log);
-        }
     }
 
     private static void UniqueIds<T>(IEnumerable<T> items, string kind, Func<T, string> id, IssueLog log)
@@ -98,63 +92,31 @@ internal static class GridChecks
 
     /// <summary>
     /// With every normally-open switch open: no closed loop, no node fed from two buses; nodes fed from
-    /// no bus are warned about. A loop is reported with the elements on it.
+    /// no bus are warned about. A loop is reported with the elements on it. Runs on a grid whose
+    /// elements passed <see cref="Run"/>.
     /// </summary>
-    private static void NormalTopology(GridParts parts, IssueLog log)
+    public static void NormalTopology(Grid grid, IssueLog log)
     {
-        var disjoint = new ForestDisjointSet<NodeId>(parts.Nodes.Count);
-        foreach (var node in parts.Nodes)
+        var graph = new NetworkGraph(grid);
+        var check = RadialCheck.Of(graph, SwitchStates.Normal(grid));
+        foreach (var loop in check.Loops)
         {
-            disjoint.MakeSet(node.Id);
+            var elements = string.Join(", ", loop.Path.Append(loop.Closing).Select(graph.Describe));
+            log.Error(NetworkGraph.KindName(loop.Closing), graph.IdOf(loop.Closing), string.Empty,
+                $"closes a loop in the normal state (every normally-open switch open); the loop is: {elements}");
         }
 
-        // The spanning forest so far, to name the elements of a loop when an edge closes one.
-        var forest = new UndirectedGraph<NodeId, TaggedEdge<NodeId, string>>(allowParallelEdges: true);
-        forest.AddVertexRange(parts.Nodes.Select(n => n.Id));
-        var closedEdges = parts.Segments.Select(s => (s.From, s.To, Name: $"segment {s.Id}"))
-            .Concat(parts.Switches.Where(s => !s.NormallyOpen).Select(s => (s.From, s.To, Name: $"switch {s.Id}")));
-        foreach (var (from, to, name) in closedEdges)
+        foreach (var paralleling in check.Parallelings)
         {
-            if (disjoint.AreInSameSet(from, to))
-            {
-                var path = PathBetween(forest, from, to);
-                var elements = string.Join(", ", path.Append(name));
-                var kind = name.Split(' ')[0];
-                log.Error(kind, name[(kind.Length + 1)..], string.Empty,
-                    $"closes a loop in the normal state (every normally-open switch open); the loop is: {elements}");
-                continue;
-            }
-
-            disjoint.Union(from, to);
-            forest.AddEdge(new TaggedEdge<NodeId, string>(from, to, name));
+            log.Error("substation", grid.Substations[paralleling.Second].Id.Value, "busNode",
+                $"is connected to the bus of substation {grid.Substations[paralleling.First].Id} in the normal state; each node must be fed from exactly one bus (open a tie between them)");
         }
 
-        var busOf = new Dictionary<NodeId, SubstationId>();
-        foreach (var substation in parts.Substations)
-        {
-            var root = disjoint.FindSet(substation.BusNode);
-            if (busOf.TryGetValue(root, out var other))
-            {
-                log.Error("substation", substation.Id.Value, "busNode",
-                    $"is connected to the bus of substation {other} in the normal state; each node must be fed from exactly one bus (open a tie between them)");
-            }
-            else
-            {
-                busOf[root] = substation.Id;
-            }
-        }
-
-        var unfed = parts.Nodes.Where(n => !busOf.ContainsKey(disjoint.FindSet(n.Id))).Select(n => n.Id.Value).ToList();
+        var unfed = Enumerable.Range(0, grid.Nodes.Length).Where(v => !check.IsFed(v)).Select(v => grid.Nodes[v].Id.Value).ToList();
         if (unfed.Count > 0)
         {
             log.Warning("grid", "file", "nodes",
                 $"{unfed.Count} node(s) are reached from no substation bus in the normal state: {string.Join(", ", unfed.Take(20))}{(unfed.Count > 20 ? ", ..." : string.Empty)}");
         }
-    }
-
-    private static IEnumerable<string> PathBetween(UndirectedGraph<NodeId, TaggedEdge<NodeId, string>> forest, NodeId from, NodeId to)
-    {
-        var tryGetPath = forest.ShortestPathsDijkstra(_ => 1.0, from);
-        return tryGetPath(to, out var path) ? path.Select(e => e.Tag) : [];
     }
 }

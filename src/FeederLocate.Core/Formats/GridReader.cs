@@ -72,7 +72,8 @@ public static class GridReader
 
         var grid = Grid.Create(name, frequencyHz!.Value, parts.LineTypes, parts.Substations, parts.Nodes,
             parts.Segments, parts.Switches, parts.Indicators);
-        return new LoadResult<Grid>(grid, log.Issues);
+        GridChecks.NormalTopology(grid, log);
+        return new LoadResult<Grid>(log.HasErrors ? null : grid, log.Issues);
     }
 
     private static List<T> Items<T>(ElementReader root, string field, string kind, IssueLog log, Func<ElementReader, T> read)

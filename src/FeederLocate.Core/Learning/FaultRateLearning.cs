@@ -95,7 +95,7 @@ public static class FaultRateLearning
         }
 
         var e0 = options.PriorExposureKmYears;
-        var prior = new GammaParameters(type.EffectiveFaultsPer100KmYear / 100 * e0, e0);
+        var prior = new GammaParameters(Units.PerKmYear(type.EffectiveFaultsPer100KmYear) * e0, e0);
         var exposure = lengthKm * years;
         return new LineTypeFaultRate(type.Id, lengthKm, prior, prior.Update(faults, exposure), faults, exposure);
     }

@@ -107,11 +107,12 @@ internal static class CrossCountryRanking
     private static double LoopCurrentA(FaultResponseModel model, int a, int b, double loopResistanceOhm)
     {
         var network = model.Network;
+        var sums = model.Aggregates;
         var grid = model.Grid;
         var upA = network.SuppliedEndOf(a);
         var upB = network.SuppliedEndOf(b);
         var substation = grid.Substations[network.SubstationIndexOf(upA)];
-        var e = model.VoltageFactor * substation.NominalVoltageKv * 1000 / Math.Sqrt(3);
+        var e = Units.PhaseVoltageV(substation.NominalVoltageKv, model.VoltageFactor);
         var source = SourceImpedance.AtBusbarOhm(substation, model.VoltageFactor);
         var ancestors = new HashSet<int>();
         for (var v = upA; v >= 0; v = network.ParentOf(v))
@@ -129,12 +130,12 @@ internal static class CrossCountryRanking
         {
             var seg = grid.Segments[segment];
             var type = grid.LineTypeOf(seg);
-            var z1 = network.PositiveSequencePathOhm(up) + (new Complex(type.R1OhmPerKm, type.X1OhmPerKm) * seg.LengthKm / 2) - network.PositiveSequencePathOhm(branch);
-            var z0 = network.ZeroSequencePathOhm(up) + (new Complex(type.R0OhmPerKm, type.X0OhmPerKm) * seg.LengthKm / 2) - network.ZeroSequencePathOhm(branch);
+            var z1 = sums.PositiveSequencePathOhm(up) + (new Complex(type.R1OhmPerKm, type.X1OhmPerKm) * seg.LengthKm / 2) - sums.PositiveSequencePathOhm(branch);
+            var z0 = sums.ZeroSequencePathOhm(up) + (new Complex(type.R0OhmPerKm, type.X0OhmPerKm) * seg.LengthKm / 2) - sums.ZeroSequencePathOhm(branch);
             return ((2 * z1) + z0) / 3;
         }
 
-        var loop = (2 * (source + network.PositiveSequencePathOhm(branch))) + EarthLoopBeyondBranch(a, upA) + EarthLoopBeyondBranch(b, upB) + (2 * loopResistanceOhm);
+        var loop = (2 * (source + sums.PositiveSequencePathOhm(branch))) + EarthLoopBeyondBranch(a, upA) + EarthLoopBeyondBranch(b, upB) + (2 * loopResistanceOhm);
         return Math.Sqrt(3) * e / loop.Magnitude;
     }
 
@@ -159,10 +160,7 @@ internal static class CrossCountryRanking
             var onPath = same && (o.Point.OnPath(beyondA) || o.Point.OnPath(beyondB));
             var phase = onPath ? currentA : 0;
             var residual = beyondA != beyondB ? currentA : 0;
-            var picked = phase >= o.Point.PhasePickupA || residual >= o.Point.EarthPickupA;
-            expected[i] = !picked ? IndicatorState.None
-                : !o.Point.Directional ? IndicatorState.Fault
-                : beyondA || beyondB ? IndicatorState.Forward : IndicatorState.Reverse;
+            expected[i] = o.Point.ExpectedState(phase, residual, beyondA || beyondB);
             log += o.LogProbability(expected[i]);
         }
 

@@ -58,7 +58,7 @@ internal sealed class IndicationSums
                     var threshold = p.NotBeyondGainS > 0 ? p.EarthPickupA / p.NotBeyondGainS : double.NaN;
                     if (!double.IsNaN(threshold))
                     {
-                        var picked = p.Directional ? IndicatorState.Reverse : IndicatorState.Fault;
+                        var picked = p.PickedUpState(faultBeyond: false);
                         steps.Add((threshold, o.LogProbability(picked) - o.LogProbability(IndicatorState.None)));
                     }
                 }
@@ -134,7 +134,7 @@ internal sealed class IndicationSums
             var beyond = _model.IsFaultBeyond(p, segment);
             var onPath = p.OnPath(beyond);
             var residual = u0 * (beyond ? p.BeyondGainS : p.NotBeyondGainS);
-            sum += _observed[i].LogProbability(FaultResponseModel.ExpectedState(p, beyond, onPath, onPath ? fault.FaultedPhaseCurrentA : 0, residual));
+            sum += _observed[i].LogProbability(p.ExpectedState(onPath ? fault.FaultedPhaseCurrentA : 0, residual, beyond));
         }
 
         return sum;
@@ -147,9 +147,9 @@ internal sealed class IndicationSums
         var p = o.Point;
         var u0 = fault.NeutralVoltageMagnitudeV;
         var counted = u0 * p.NotBeyondGainS >= p.EarthPickupA && p.NotBeyondGainS > 0
-            ? o.LogProbability(p.Directional ? IndicatorState.Reverse : IndicatorState.Fault)
+            ? o.LogProbability(p.PickedUpState(faultBeyond: false))
             : o.LogProbability(IndicatorState.None);
-        var actual = FaultResponseModel.ExpectedState(p, true, true, fault.FaultedPhaseCurrentA, u0 * p.BeyondGainS);
+        var actual = p.ExpectedState(fault.FaultedPhaseCurrentA, u0 * p.BeyondGainS, true);
         return o.LogProbability(actual) - counted;
     }
 

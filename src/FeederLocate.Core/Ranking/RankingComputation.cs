@@ -335,6 +335,6 @@ internal sealed class RankingComputation
         var onPath = point.OnPath(beyond);
         var phase = onPath ? fault.FaultedPhaseCurrentA : 0;
         var residual = fault.NeutralVoltageMagnitudeV * (beyond ? point.BeyondGainS : point.NotBeyondGainS);
-        return FaultResponseModel.ExpectedState(point, beyond, onPath, phase, residual);
+        return point.ExpectedState(phase, residual, beyond);
     }
 }

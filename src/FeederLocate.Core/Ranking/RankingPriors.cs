@@ -22,7 +22,7 @@ public sealed record RankingPriors(
         ArgumentNullException.ThrowIfNull(segment);
         var perKmYear = SegmentFaultsPerKmYear.TryGetValue(segment.Id, out var learned)
             ? learned
-            : grid.LineTypeOf(segment).EffectiveFaultsPer100KmYear / 100;
+            : Units.PerKmYear(grid.LineTypeOf(segment).EffectiveFaultsPer100KmYear);
         return perKmYear * segment.LengthKm;
     }
 }

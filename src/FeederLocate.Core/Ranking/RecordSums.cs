@@ -1,4 +1,5 @@
 using FeederLocate.Core.Electrical;
+using FeederLocate.Core.Model;
 
 namespace FeederLocate.Core.Ranking;
 
@@ -33,7 +34,7 @@ internal sealed class RecordSums
             }
 
             // |U0| of an earth fault stays below about 1.5·E even near resonance; above, values are computed directly.
-            var maximumV = 1.5 * model.VoltageFactor * substations[sub].NominalVoltageKv * 1000 / Math.Sqrt(3);
+            var maximumV = Units.PhaseVoltageV(substations[sub].NominalVoltageKv, 1.5 * model.VoltageFactor);
             _stepV[sub] = maximumV / TableSteps;
             var same = records.Where(r => r.Point.Substation == sub).ToList();
             _table[sub] = new double[TableSteps + 1];

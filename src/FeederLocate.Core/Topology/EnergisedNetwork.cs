@@ -1,13 +1,13 @@
 using System.Collections.Immutable;
-using System.Numerics;
 using FeederLocate.Core.Model;
 
 namespace FeederLocate.Core.Topology;
 
 /// <summary>
-/// The radial network energised for one switching state: per node its substation, the edge it is fed
-/// through and the series impedance from its bus; per segment its supplied end. Nodes are numbered in
-/// pre-order from each bus, so "lies beyond" is an interval test.
+/// The radial network energised for one switching state: per node its substation and the edge it is fed
+/// through; per segment its supplied end. Nodes are numbered in pre-order from each bus, so "lies beyond"
+/// is an interval test. Pure topology: <see cref="RadialCheck"/> decides whether the state is radial, and
+/// the electrical sums over the network are <see cref="Electrical.NetworkAggregates"/>.
 /// </summary>
 public sealed class EnergisedNetwork
 {
@@ -18,12 +18,8 @@ public sealed class EnergisedNetwork
     private readonly int[] _subtreeSize;
     private readonly int[] _upNodeOfSegment;
     private readonly int[] _downNodeOfSegment;
-    private readonly Complex[] _z1FromBusOhm;
-    private readonly Complex[] _z0FromBusOhm;
-    private readonly double[] _subtreeC0F;
-    private readonly double[] _totalC0F;
 
-    private EnergisedNetwork(NetworkGraph graph, SwitchStates states, int nodeCount, int segmentCount, int substationCount)
+    private EnergisedNetwork(NetworkGraph graph, SwitchStates states, int nodeCount, int segmentCount)
     {
         Graph = graph;
         States = states;
@@ -34,10 +30,6 @@ public sealed class EnergisedNetwork
         _subtreeSize = new int[nodeCount];
         _upNodeOfSegment = Enumerable.Repeat(-1, segmentCount).ToArray();
         _downNodeOfSegment = Enumerable.Repeat(-1, segmentCount).ToArray();
-        _z1FromBusOhm = new Complex[nodeCount];
-        _z0FromBusOhm = new Complex[nodeCount];
-        _subtreeC0F = new double[nodeCount];
-        _totalC0F = new double[substationCount];
     }
 
     public NetworkGraph Graph { get; }
@@ -56,11 +48,19 @@ public sealed class EnergisedNetwork
     {
         ArgumentNullException.ThrowIfNull(graph);
         ArgumentNullException.ThrowIfNull(states);
+        var check = RadialCheck.Of(graph, states);
+        if (!check.IsRadial)
+        {
+            network = null;
+            problem = Describe(graph, check);
+            return false;
+        }
+
         var grid = graph.Grid;
-        var n = new EnergisedNetwork(graph, states, grid.Nodes.Length, grid.Segments.Length, grid.Substations.Length);
-        problem = n.Feed();
-        network = problem is null ? n : null;
-        return problem is null;
+        network = new EnergisedNetwork(graph, states, grid.Nodes.Length, grid.Segments.Length);
+        network.Feed();
+        problem = null;
+        return true;
     }
 
     /// <summary>Index of the substation feeding the node, or -1 when the node is dead.</summary>
@@ -91,18 +91,6 @@ public sealed class EnergisedNetwork
     public bool IsAtOrBeyond(int ancestor, int node) =>
         _substationOfNode[ancestor] >= 0 && _substationOfNode[node] == _substationOfNode[ancestor]
         && _preorder[node] >= _preorder[ancestor] && _preorder[node] < _preorder[ancestor] + _subtreeSize[ancestor];
-
-    /// <summary>Sum of r1 + j·x1 over the energised path from the bus to the node, Ω (source excluded).</summary>
-    public Complex PositiveSequencePathOhm(int node) => _z1FromBusOhm[node];
-
-    /// <summary>Sum of r0 + j·x0 over the energised path from the bus to the node, Ω.</summary>
-    public Complex ZeroSequencePathOhm(int node) => _z0FromBusOhm[node];
-
-    /// <summary>Phase-to-earth capacitance, F per phase, of every segment fed through the node (including the edge into it).</summary>
-    public double CapacitanceAtOrBeyondF(int node) => _subtreeC0F[node];
-
-    /// <summary>Phase-to-earth capacitance, F per phase, of every energised segment galvanically connected to the substation's bus.</summary>
-    public double TotalCapacitanceF(int substation) => _totalC0F[substation];
 
     /// <summary>The edges from the node's bus to the node, in feeding order; empty for a bus or a dead node.</summary>
     public IReadOnlyList<EdgeRef> PathFromSource(NodeId node)
@@ -157,55 +145,23 @@ public sealed class EnergisedNetwork
         return region;
     }
 
-    private TopologyProblem? Feed()
+    /// <summary>Feeds the radial network breadth-first from each bus in turn (the radial check has passed).</summary>
+    private void Feed()
     {
         var grid = Grid;
-        var adjacency = Graph.Graph;
         var order = new List<int>(grid.Nodes.Length);
-        var reported = new HashSet<EdgeRef>();
-        var busOf = new Dictionary<int, int>();
-        for (var s = 0; s < grid.Substations.Length; s++)
-        {
-            busOf[grid.NodeIndex(grid.Substations[s].BusNode)] = s;
-        }
-
-        TopologyProblem? problem = null;
         for (var s = 0; s < grid.Substations.Length; s++)
         {
             var bus = grid.NodeIndex(grid.Substations[s].BusNode);
-            if (_substationOfNode[bus] >= 0)
-            {
-                return Paralleled(bus, bus, EdgeRef.None);
-            }
-
             _substationOfNode[bus] = s;
             order.Add(bus);
             for (var head = order.Count - 1; head < order.Count; head++)
             {
                 var u = order[head];
-                foreach (var edge in adjacency.AdjacentEdges(u))
+                foreach (var (tag, v) in Graph.EdgesAt(u))
                 {
-                    var tag = edge.Tag;
                     if (tag == _parentEdge[u] || (tag.Kind == EdgeKind.Switch && !States.IsClosed(tag.Index)))
                     {
-                        continue;
-                    }
-
-                    var v = edge.Source == u ? edge.Target : edge.Source;
-                    if (_substationOfNode[v] >= 0)
-                    {
-                        if (reported.Add(tag))
-                        {
-                            problem ??= _substationOfNode[v] == s ? Loop(u, v, tag) : Paralleled(u, v, tag);
-                        }
-
-                        continue;
-                    }
-
-                    if (busOf.TryGetValue(v, out var otherBus) && otherBus != s)
-                    {
-                        // Reaching another substation's bus: the two are paralleled through this path.
-                        problem ??= ParalleledWith(u, otherBus, tag);
                         continue;
                     }
 
@@ -215,34 +171,18 @@ public sealed class EnergisedNetwork
                     order.Add(v);
                     if (tag.Kind == EdgeKind.Segment)
                     {
-                        var segment = grid.Segments[tag.Index];
-                        var type = grid.LineTypeOf(segment);
                         _upNodeOfSegment[tag.Index] = u;
                         _downNodeOfSegment[tag.Index] = v;
-                        _z1FromBusOhm[v] = _z1FromBusOhm[u] + new Complex(type.R1OhmPerKm, type.X1OhmPerKm) * segment.LengthKm;
-                        _z0FromBusOhm[v] = _z0FromBusOhm[u] + new Complex(type.R0OhmPerKm, type.X0OhmPerKm) * segment.LengthKm;
-                        _subtreeC0F[v] = type.C0NfPerKm * 1e-9 * segment.LengthKm;
-                    }
-                    else
-                    {
-                        _z1FromBusOhm[v] = _z1FromBusOhm[u];
-                        _z0FromBusOhm[v] = _z0FromBusOhm[u];
                     }
                 }
-            }
-
-            if (problem is not null)
-            {
-                return problem;
             }
         }
 
         FeedOrder = [.. order];
         Number(order);
-        return null;
     }
 
-    /// <summary>Subtree sizes and capacitances bottom-up, then pre-order numbers top-down.</summary>
+    /// <summary>Subtree sizes bottom-up, then pre-order numbers top-down.</summary>
     private void Number(List<int> order)
     {
         for (var i = order.Count - 1; i >= 0; i--)
@@ -252,11 +192,6 @@ public sealed class EnergisedNetwork
             if (_parentNode[v] is var p and >= 0)
             {
                 _subtreeSize[p] += _subtreeSize[v];
-                _subtreeC0F[p] += _subtreeC0F[v];
-            }
-            else
-            {
-                _totalC0F[_substationOfNode[v]] = _subtreeC0F[v];
             }
         }
 
@@ -280,43 +215,21 @@ public sealed class EnergisedNetwork
         }
     }
 
-    private TopologyProblem Loop(int u, int v, EdgeRef closing)
+    /// <summary>The first reason the check fails: a paralleling of substations, else the first loop connected to a bus.</summary>
+    private static TopologyProblem Describe(NetworkGraph graph, RadialCheck check)
     {
-        var up = PathToRoot(u);
-        var vp = PathToRoot(v);
-        var common = up.Intersect(vp).First();
-        var elements = EdgesUpTo(u, common).Concat(EdgesUpTo(v, common).Reverse()).Append(Graph.Describe(closing)).ToImmutableArray();
-        return new TopologyProblem($"the switching state closes a loop: {string.Join(", ", elements)}", elements);
-    }
-
-    private TopologyProblem Paralleled(int u, int v, EdgeRef closing) => ParalleledWith(u, _substationOfNode[v], closing);
-
-    private TopologyProblem ParalleledWith(int u, int otherSubstation, EdgeRef closing)
-    {
-        var a = Grid.Substations[_substationOfNode[u]].Id;
-        var b = Grid.Substations[Math.Max(0, otherSubstation)].Id;
-        var elements = closing.IsNone ? [] : EdgesUpTo(u, -1).Reverse().Append(Graph.Describe(closing)).ToImmutableArray();
-        return new TopologyProblem(
-            $"the switching state parallels substations {a} and {b}{(closing.IsNone ? string.Empty : $" through {string.Join(", ", elements)}")}; a node must be fed from one bus only",
-            elements);
-    }
-
-    private List<int> PathToRoot(int v)
-    {
-        var path = new List<int>();
-        for (; v >= 0; v = _parentNode[v])
+        var grid = graph.Grid;
+        if (check.Parallelings.FirstOrDefault() is { } p)
         {
-            path.Add(v);
+            var elements = p.Path.Select(graph.Describe).ToImmutableArray();
+            var through = elements.IsEmpty ? string.Empty : $" through {string.Join(", ", elements)}";
+            return new TopologyProblem(
+                $"the switching state parallels substations {grid.Substations[p.First].Id} and {grid.Substations[p.Second].Id}{through}; a node must be fed from one bus only",
+                elements);
         }
 
-        return path;
-    }
-
-    private IEnumerable<string> EdgesUpTo(int v, int ancestor)
-    {
-        for (; v >= 0 && v != ancestor && !_parentEdge[v].IsNone; v = _parentNode[v])
-        {
-            yield return Graph.Describe(_parentEdge[v]);
-        }
+        var loop = check.Loops.First(l => l.Fed);
+        var onLoop = loop.Path.Append(loop.Closing).Select(graph.Describe).ToImmutableArray();
+        return new TopologyProblem($"the switching state closes a loop: {string.Join(", ", onLoop)}", onLoop);
     }
 }

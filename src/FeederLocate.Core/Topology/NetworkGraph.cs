@@ -5,37 +5,52 @@ namespace FeederLocate.Core.Topology;
 
 /// <summary>
 /// The one graph model of a grid: every node a vertex (by its index), every segment and switching
-/// device an edge, whatever the switch states. Views for a switching state are built over it.
+/// device an edge, whatever the switch states. Read-only; views for a switching state are built over it.
 /// </summary>
 public sealed class NetworkGraph
 {
+    private readonly UndirectedGraph<int, TaggedEdge<int, EdgeRef>> _graph;
+    private readonly (int From, int To)[] _segmentEnds;
+    private readonly (int From, int To)[] _switchEnds;
+
     public NetworkGraph(Grid grid)
     {
         ArgumentNullException.ThrowIfNull(grid);
         Grid = grid;
-        Graph = new UndirectedGraph<int, TaggedEdge<int, EdgeRef>>(allowParallelEdges: true);
-        Graph.AddVertexRange(Enumerable.Range(0, grid.Nodes.Length));
-        for (var i = 0; i < grid.Segments.Length; i++)
+        _segmentEnds = [.. grid.Segments.Select(s => (grid.NodeIndex(s.From), grid.NodeIndex(s.To)))];
+        _switchEnds = [.. grid.Switches.Select(s => (grid.NodeIndex(s.From), grid.NodeIndex(s.To)))];
+        _graph = new UndirectedGraph<int, TaggedEdge<int, EdgeRef>>(allowParallelEdges: true);
+        _graph.AddVertexRange(Enumerable.Range(0, grid.Nodes.Length));
+        _graph.AddEdgeRange(Edges.Select(e =>
         {
-            var s = grid.Segments[i];
-            Graph.AddEdge(new TaggedEdge<int, EdgeRef>(grid.NodeIndex(s.From), grid.NodeIndex(s.To), new EdgeRef(EdgeKind.Segment, i)));
-        }
+            var (from, to) = EndsOf(e);
+            return new TaggedEdge<int, EdgeRef>(from, to, e);
+        }));
 
-        for (var i = 0; i < grid.Switches.Length; i++)
-        {
-            var s = grid.Switches[i];
-            Graph.AddEdge(new TaggedEdge<int, EdgeRef>(grid.NodeIndex(s.From), grid.NodeIndex(s.To), new EdgeRef(EdgeKind.Switch, i)));
-        }
-
-        Sections = SectionMap.Build(grid, Graph);
+        SwitchFreeParts = NodePartition.Of(grid.Nodes.Length, _segmentEnds);
+        Sections = SectionMap.Build(grid, SwitchFreeParts);
     }
 
     public Grid Grid { get; }
 
-    /// <summary>The QuikGraph graph: vertices are node indices, edge tags say which element an edge is.</summary>
-    public UndirectedGraph<int, TaggedEdge<int, EdgeRef>> Graph { get; }
+    public int NodeCount => Grid.Nodes.Length;
+
+    /// <summary>Every edge: the segments in grid order, then the switching devices in grid order.</summary>
+    public IEnumerable<EdgeRef> Edges =>
+        Enumerable.Range(0, Grid.Segments.Length).Select(i => new EdgeRef(EdgeKind.Segment, i))
+            .Concat(Enumerable.Range(0, Grid.Switches.Length).Select(i => new EdgeRef(EdgeKind.Switch, i)));
+
+    /// <summary>Nodes grouped by "connected without crossing a switch", whatever the switch states: sections and switching zones.</summary>
+    public NodePartition SwitchFreeParts { get; }
 
     public SectionMap Sections { get; }
+
+    /// <summary>The edges at node index <paramref name="node"/>, each with the node at its other end.</summary>
+    public IEnumerable<(EdgeRef Edge, int Neighbour)> EdgesAt(int node) =>
+        _graph.AdjacentEdges(node).Select(e => (e.Tag, e.Source == node ? e.Target : e.Source));
+
+    /// <summary>The node indices of an edge's from and to ends.</summary>
+    public (int From, int To) EndsOf(EdgeRef edge) => edge.Kind == EdgeKind.Segment ? _segmentEnds[edge.Index] : _switchEnds[edge.Index];
 
     /// <summary>The radial network energised in <paramref name="states"/>; throws <see cref="TopologyException"/> on a loop.</summary>
     public EnergisedNetwork Energise(SwitchStates states) => EnergisedNetwork.Build(this, states);
@@ -45,7 +60,13 @@ public sealed class NetworkGraph
         EnergisedNetwork.TryBuild(this, states, out network, out problem);
 
     /// <summary>The name of an edge's element, e.g. "segment S7" or "switch LB2".</summary>
-    public string Describe(EdgeRef edge) => edge.Kind == EdgeKind.Segment
-        ? $"segment {Grid.Segments[edge.Index].Id}"
-        : $"switch {Grid.Switches[edge.Index].Id}";
+    public string Describe(EdgeRef edge) => $"{KindName(edge)} {IdOf(edge)}";
+
+    /// <summary>The element kind as files and messages name it: "segment" or "switch".</summary>
+    public static string KindName(EdgeRef edge) => edge.Kind == EdgeKind.Segment ? "segment" : "switch";
+
+    /// <summary>The id of an edge's element.</summary>
+    public string IdOf(EdgeRef edge) => edge.Kind == EdgeKind.Segment
+        ? Grid.Segments[edge.Index].Id.Value
+        : Grid.Switches[edge.Index].Id.Value;
 }

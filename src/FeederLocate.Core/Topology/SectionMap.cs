@@ -1,7 +1,5 @@
 using System.Collections.Immutable;
 using FeederLocate.Core.Model;
-using QuikGraph;
-using QuikGraph.Collections;
 
 namespace FeederLocate.Core.Topology;
 
@@ -39,28 +37,16 @@ public sealed class SectionMap
 
     public bool Contains(SectionId id) => _index.ContainsKey(id);
 
-    internal static SectionMap Build(Grid grid, UndirectedGraph<int, TaggedEdge<int, EdgeRef>> network)
+    internal static SectionMap Build(Grid grid, NodePartition switchFreeParts)
     {
-        // Sections are the connected components of the graph with only its segment edges. A disjoint
-        // set is near-linear; QuikGraph's depth-first component search grows much faster on long feeders.
-        var components = new ForestDisjointSet<int>(network.VertexCount);
-        foreach (var vertex in network.Vertices)
-        {
-            components.MakeSet(vertex);
-        }
-
-        foreach (var edge in network.Edges.Where(e => e.Tag.Kind == EdgeKind.Segment))
-        {
-            components.Union(edge.Source, edge.Target);
-        }
-
+        // Sections are the parts of the graph with only its segment edges that hold a segment.
         // Number sections in grid order of their first segment, so ids and order are stable.
         var sectionOfComponent = new Dictionary<int, int>();
         var sectionOfSegment = new int[grid.Segments.Length];
         var members = new List<List<int>>();
         for (var i = 0; i < grid.Segments.Length; i++)
         {
-            var component = components.FindSet(grid.NodeIndex(grid.Segments[i].From));
+            var component = switchFreeParts.PartOf(grid.NodeIndex(grid.Segments[i].From));
             if (!sectionOfComponent.TryGetValue(component, out var section))
             {
                 section = members.Count;

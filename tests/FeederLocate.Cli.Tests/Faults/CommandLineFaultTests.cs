@@ -39,7 +39,7 @@ public sealed class CommandLineFaultTests : IDisposable
     public void A_file_that_is_not_utf8_is_refused_not_repaired()
     {
         var path = InFolder("latin1.grid.json");
-        var text = File.ReadAllBytes(CliRun.Sample("solid"));
+        var text = File.ReadAllBytes(SampleGrids.Path("solid"));
         // 0xE9 alone (é in Latin-1) is not a UTF-8 sequence (RFC 3629).
         var bytes = text.Take(40).Concat(new byte[] { 0xE9 }).Concat(text.Skip(40)).ToArray();
         File.WriteAllBytes(path, bytes);
@@ -67,7 +67,7 @@ public sealed class CommandLineFaultTests : IDisposable
     public void Writing_to_a_full_device_reports_it_and_leaves_the_device_in_place()
     {
         var db = InFolder("history.db");
-        Assert.Equal(0, CliRun.Of("record", CliRun.Sample("solid"), CliRun.Repo("sample-grid", "incidents", "solid-lg-trip-a1.incident.json"), "--segment", "S109", "--db", db).ExitCode);
+        Assert.Equal(0, CliRun.Of("record", SampleGrids.Path("solid"), RepositoryFiles.Path("sample-grid", "incidents", "solid-lg-trip-a1.incident.json"), "--segment", "S109", "--db", db).ExitCode);
 
         var run = CliRun.Of("export", "--db", db, "--output", "/dev/full");
 
@@ -100,12 +100,12 @@ public sealed class CommandLineFaultTests : IDisposable
         var db = InFolder("history.db");
         var incident = InFolder("loop.incident.json");
         // The sample incident with its tie NO-A1-B1 closed, and LB-A1-4 closed too: feeder A1's tail is fed from both ends.
-        var text = File.ReadAllText(CliRun.Repo("sample-grid", "incidents", "solid-ll-a1-tail-fed-from-b1.incident.json"));
+        var text = File.ReadAllText(RepositoryFiles.Path("sample-grid", "incidents", "solid-ll-a1-tail-fed-from-b1.incident.json"));
         File.WriteAllText(incident, text.Replace("\"LB-A1-4\": \"open\"", "\"LB-A1-4\": \"closed\"", StringComparison.Ordinal)
-            .Replace("\"../marrowdell-solid.grid.json\"", $"\"{CliRun.Sample("solid")}\"", StringComparison.Ordinal));
+            .Replace("\"../marrowdell-solid.grid.json\"", $"\"{SampleGrids.Path("solid")}\"", StringComparison.Ordinal));
 
-        var rank = CliRun.Of("rank", CliRun.Sample("solid"), incident);
-        var record = CliRun.Of("record", CliRun.Sample("solid"), incident, "--segment", "S109", "--db", db);
+        var rank = CliRun.Of("rank", SampleGrids.Path("solid"), incident);
+        var record = CliRun.Of("record", SampleGrids.Path("solid"), incident, "--segment", "S109", "--db", db);
 
         Assert.NotEqual(0, rank.ExitCode);
         Assert.Equal(2, record.ExitCode);

@@ -200,7 +200,7 @@ public class EarthFaultRelationTests
             foreach (var position in new[] { 0.0, 0.5, 1.0 })
             {
                 var solution = model.Solve(s, position, FaultType.LG, 0);
-                var y0 = NeutralAdmittance.AtBus(grid.Substations[solution.Substation], model.Network.TotalCapacitanceF(solution.Substation), grid.AngularFrequencyRadPerS);
+                var y0 = NeutralAdmittance.AtBus(grid.Substations[solution.Substation], model.Aggregates.TotalCapacitanceF(solution.Substation), grid.AngularFrequencyRadPerS);
                 var z0 = solution.ZeroSequencePathOhm + (1 / y0);
                 var x1 = solution.PositiveSequenceOhm.Imaginary;
                 if (z0.Imaginary / x1 > 3 || z0.Real / x1 > 1 || z0.Imaginary < x1)

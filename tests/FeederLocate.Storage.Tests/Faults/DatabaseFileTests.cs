@@ -16,8 +16,8 @@ public class DatabaseFileTests
     public void Once_the_file_is_deleted_every_write_is_refused_naming_the_file()
     {
         using var db = new TempDatabase();
-        using var store = IncidentStore.Open(db.Path, new ManualClock());
-        using var accounts = AccountStore.Open(db.Path, new ManualClock());
+        using var store = IncidentStore.Open(db.Path, TestClock.Manual());
+        using var accounts = AccountStore.Open(db.Path, TestClock.Manual());
         var id = store.OpenIncident(TestGrids.BrackenfoldName, TestIncidents.EarthFault(), Operator);
         foreach (var file in Directory.GetFiles(db.Folder))
         {
@@ -37,7 +37,7 @@ public class DatabaseFileTests
     public void A_file_renamed_over_the_database_is_not_written_to()
     {
         using var db = new TempDatabase();
-        using var store = IncidentStore.Open(db.Path, new ManualClock());
+        using var store = IncidentStore.Open(db.Path, TestClock.Manual());
         var id = store.OpenIncident(TestGrids.BrackenfoldName, TestIncidents.EarthFault(), Operator);
         store.BackupTo(db.Sibling("copy.db"));
         File.Move(db.Sibling("copy.db"), db.Path, overwrite: true);
@@ -62,7 +62,7 @@ public class DatabaseFileTests
     public void A_damaged_page_fails_the_quick_check()
     {
         using var db = new TempDatabase();
-        using (var store = IncidentStore.Open(db.Path, new ManualClock()))
+        using (var store = IncidentStore.Open(db.Path, TestClock.Manual()))
         {
             var id = store.OpenIncident(TestGrids.BrackenfoldName, TestIncidents.EarthFault(), Operator);
             store.Append(id, [.. Enumerable.Range(1, 60).Select(i => (IncidentEvent)new PlanStepCompleted(i, "open " + new string('x', 500), "SW1"))], Operator);
@@ -76,7 +76,7 @@ public class DatabaseFileTests
             file.Write(Enumerable.Repeat((byte)0xA5, 4096).ToArray());
         }
 
-        using var damaged = IncidentStore.Open(db.Path, new ManualClock());
+        using var damaged = IncidentStore.Open(db.Path, TestClock.Manual());
         var report = damaged.QuickCheck();
 
         Assert.False(report.IsOk);

@@ -1,6 +1,5 @@
 using FeederLocate.Core.Model;
 using FeederLocate.Storage.Events;
-using FeederLocate.Storage.Tests.Support;
 using Microsoft.Data.Sqlite;
 
 namespace FeederLocate.Storage.Tests.Faults;
@@ -17,7 +16,7 @@ public class DiskFullTests
         using var disk = SmallDisk.TryMount();
         using var elsewhere = new TempDatabase();
         var path = disk?.Path("history.db") ?? elsewhere.Path;
-        using var store = IncidentStore.Open(path, new ManualClock());
+        using var store = IncidentStore.Open(path, TestClock.Manual());
         var id = store.OpenIncident(TestGrids.BrackenfoldName, TestIncidents.EarthFault(), Operator);
         string? filler = null;
         if (disk is not null)

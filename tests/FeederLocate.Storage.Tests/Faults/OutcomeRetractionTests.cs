@@ -1,7 +1,6 @@
 using FeederLocate.Core.Model;
 using FeederLocate.Storage.Errors;
 using FeederLocate.Storage.Events;
-using FeederLocate.Storage.Tests.Support;
 
 namespace FeederLocate.Storage.Tests.Faults;
 
@@ -14,7 +13,7 @@ public class OutcomeRetractionTests
     public void A_retracted_outcome_is_no_longer_in_force_nor_learned_from_even_after_closing()
     {
         using var db = new TempDatabase();
-        using var store = IncidentStore.Open(db.Path, new ManualClock());
+        using var store = IncidentStore.Open(db.Path, TestClock.Manual());
         var id = store.Record(TestGrids.Brackenfold(), TestIncidents.EarthFault(), new OutcomeLogged(new SegmentId("S1")), Engineer);
 
         store.Append(id, new OutcomeRetracted("the crew found the fault on S2"), Engineer);
@@ -29,7 +28,7 @@ public class OutcomeRetractionTests
     public void A_retraction_without_an_outcome_in_force_is_refused_and_nothing_is_logged()
     {
         using var db = new TempDatabase();
-        using var store = IncidentStore.Open(db.Path, new ManualClock());
+        using var store = IncidentStore.Open(db.Path, TestClock.Manual());
         var id = store.OpenIncident(TestGrids.BrackenfoldName, TestIncidents.EarthFault(), Engineer);
 
         Assert.Throws<OutcomeNotLoggedException>(() => store.Append(id, new OutcomeRetracted("typo"), Engineer));
@@ -44,7 +43,7 @@ public class OutcomeRetractionTests
     public void After_closing_only_a_retraction_is_accepted()
     {
         using var db = new TempDatabase();
-        using var store = IncidentStore.Open(db.Path, new ManualClock());
+        using var store = IncidentStore.Open(db.Path, TestClock.Manual());
         var id = store.Record(TestGrids.Brackenfold(), TestIncidents.EarthFault(), new OutcomeLogged(new SegmentId("S1")), Engineer);
 
         Assert.Throws<IncidentClosedException>(() => store.Append(id, new OutcomeLogged(new SegmentId("S2")), Engineer));

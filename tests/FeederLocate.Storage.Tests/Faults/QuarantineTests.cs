@@ -26,7 +26,7 @@ public class QuarantineTests
     public void A_damaged_event_is_quarantined_and_the_rest_of_its_incident_is_served(string kind, string payload)
     {
         using var db = new TempDatabase();
-        using var store = IncidentStore.Open(db.Path, new ManualClock());
+        using var store = IncidentStore.Open(db.Path, TestClock.Manual());
         var damaged = store.OpenIncident(TestGrids.BrackenfoldName, TestIncidents.EarthFault(), Operator);
         var healthy = store.OpenIncident(TestGrids.BrackenfoldName, TestIncidents.EarthFault(), Operator);
         store.Append(damaged, new SwitchStateChanged(new SwitchId("SW2"), SwitchPosition.Open), Operator);
@@ -49,7 +49,7 @@ public class QuarantineTests
     public void An_incident_whose_opening_cannot_be_read_is_left_out_and_named()
     {
         using var db = new TempDatabase();
-        using var store = IncidentStore.Open(db.Path, new ManualClock());
+        using var store = IncidentStore.Open(db.Path, TestClock.Manual());
         var first = store.OpenIncident(TestGrids.BrackenfoldName, TestIncidents.EarthFault(), Operator);
         var second = store.OpenIncident(TestGrids.BrackenfoldName, TestIncidents.EarthFault(), Operator);
         using (var raw = RawDatabase.Open(db.Path))
@@ -69,7 +69,7 @@ public class QuarantineTests
     public void An_event_with_a_time_that_is_not_a_time_is_quarantined()
     {
         using var db = new TempDatabase();
-        using var store = IncidentStore.Open(db.Path, new ManualClock());
+        using var store = IncidentStore.Open(db.Path, TestClock.Manual());
         var id = store.OpenIncident(TestGrids.BrackenfoldName, TestIncidents.EarthFault(), Operator);
         using (var raw = RawDatabase.Open(db.Path))
         {
@@ -88,7 +88,7 @@ public class QuarantineTests
     public void Integrity_names_every_quarantined_event_and_is_not_ok()
     {
         using var db = new TempDatabase();
-        using var store = IncidentStore.Open(db.Path, new ManualClock());
+        using var store = IncidentStore.Open(db.Path, TestClock.Manual());
         var id = store.OpenIncident(TestGrids.BrackenfoldName, TestIncidents.EarthFault(), Operator);
         Insert(db.Path, id, sequence: 2, "indicationEntered", "[]", id: 61);
 
@@ -103,7 +103,7 @@ public class QuarantineTests
     public void A_sound_file_has_nothing_quarantined()
     {
         using var db = new TempDatabase();
-        using var store = IncidentStore.Open(db.Path, new ManualClock());
+        using var store = IncidentStore.Open(db.Path, TestClock.Manual());
         var id = store.OpenIncident(TestGrids.BrackenfoldName, TestIncidents.EarthFault(), Operator);
         store.Append(id, [new OutcomeLogged(new SegmentId("S1")), new IncidentClosed()], Operator);
 

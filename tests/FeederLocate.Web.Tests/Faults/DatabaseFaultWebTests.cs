@@ -25,7 +25,7 @@ public sealed class DatabaseFaultWebTests : IDisposable
     private string[] Args(string db) =>
     [
         $"--FeederLocate:DatabasePath={db}",
-        $"--FeederLocate:GridFolder={Path.Combine(TestGrids.Root, "sample-grid")}",
+        $"--FeederLocate:GridFolder={Path.Combine(RepositoryFiles.Root, "sample-grid")}",
         $"--FeederLocate:AdministratorPassword={ApiFixture.AdministratorPassword}",
         "--urls=http://127.0.0.1:0",
     ];
@@ -89,7 +89,7 @@ public sealed class DatabaseFaultWebTests : IDisposable
         using var factory = new WebApplicationFactory<Program>().WithWebHostBuilder(b =>
         {
             b.UseSetting("FeederLocate:DatabasePath", db);
-            b.UseSetting("FeederLocate:GridFolder", Path.Combine(TestGrids.Root, "sample-grid"));
+            b.UseSetting("FeederLocate:GridFolder", Path.Combine(RepositoryFiles.Root, "sample-grid"));
             b.UseSetting("FeederLocate:AdministratorPassword", ApiFixture.AdministratorPassword);
         });
         var accounts = factory.Services.GetRequiredService<Web.Security.AccountDirectory>();

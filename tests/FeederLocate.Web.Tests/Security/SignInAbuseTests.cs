@@ -13,7 +13,7 @@ public sealed class SignInAbuseTests : IDisposable
     private static readonly SignInClient Colleague = new("198.51.100.8", false);
     private static readonly SignInClient ThisMachine = new("127.0.0.1", true);
     private readonly string _folder = Directory.CreateTempSubdirectory("feederlocate-sign-in-abuse-").FullName;
-    private readonly SteppedClock _clock = new();
+    private readonly Microsoft.Extensions.Time.Testing.FakeTimeProvider _clock = TestClock.Manual();
     private readonly AccountDirectory _accounts;
 
     public SignInAbuseTests()
@@ -66,7 +66,7 @@ public sealed class SignInAbuseTests : IDisposable
             _accounts.SignIn("chief", "the-chief-password", From(13)),
         };
 
-        Assert.True(_accounts.Find("chief")!.IsLockedAt(_clock.Now));
+        Assert.True(_accounts.Find("chief")!.IsLockedAt(_clock.GetUtcNow()));
         Assert.All(answers, a => Assert.Equal(new SignInOutcome(SignInVerdict.WrongNameOrPassword), a));
     }
 

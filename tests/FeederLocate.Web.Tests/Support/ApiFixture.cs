@@ -25,7 +25,7 @@ public sealed class ApiFixture : IDisposable
         Factory = new WebApplicationFactory<Program>().WithWebHostBuilder(b =>
         {
             b.UseSetting("FeederLocate:DatabasePath", Path.Combine(_folder, "incidents.db"));
-            b.UseSetting("FeederLocate:GridFolder", Path.Combine(TestGrids.Root, "sample-grid"));
+            b.UseSetting("FeederLocate:GridFolder", Path.Combine(RepositoryFiles.Root, "sample-grid"));
             b.UseSetting("FeederLocate:AdministratorPassword", AdministratorPassword);
             // Every test client here has one address: the sign-in throttle has tests of its own (SignInAbuseTests).
             b.UseSetting("FeederLocate:SignInFreeFailuresPerClient", "1000");

@@ -1,5 +1,6 @@
 using System.Collections.Immutable;
 using System.Numerics;
+using FeederLocate.Core.Model;
 using FeederLocate.Core.Topology;
 
 namespace FeederLocate.Core.Switching;
@@ -45,7 +46,7 @@ public static class RadialLoadFlow
         foreach (var v in order)
         {
             var substation = grid.Substations[network.SubstationIndexOf(v)];
-            baseV[v] = substation.NominalVoltageKv * 1e3 / Math.Sqrt(3);
+            baseV[v] = Units.PhaseVoltageV(substation.NominalVoltageKv);
             voltage[v] = baseV[v];
             var node = grid.Nodes[v];
             var factor = loadFactors?[v] ?? 1.0;

@@ -13,45 +13,10 @@ internal sealed class ZoneMap
     public ZoneMap(NetworkGraph graph)
     {
         var grid = graph.Grid;
-        var parent = Enumerable.Range(0, grid.Nodes.Length).ToArray();
-        int Find(int v)
-        {
-            while (parent[v] != v)
-            {
-                parent[v] = parent[parent[v]];
-                v = parent[v];
-            }
-
-            return v;
-        }
-
-        foreach (var s in grid.Segments)
-        {
-            var a = Find(grid.NodeIndex(s.From));
-            var b = Find(grid.NodeIndex(s.To));
-            if (a != b)
-            {
-                parent[a] = b;
-            }
-        }
-
-        _zoneOfNode = new int[grid.Nodes.Length];
-        var rootToZone = new Dictionary<int, int>();
-        var nodes = new List<List<int>>();
-        for (var v = 0; v < grid.Nodes.Length; v++)
-        {
-            var root = Find(v);
-            if (!rootToZone.TryGetValue(root, out var z))
-            {
-                z = nodes.Count;
-                rootToZone[root] = z;
-                nodes.Add([]);
-            }
-
-            _zoneOfNode[v] = z;
-            nodes[z].Add(v);
-        }
-
+        // Zones are the parts connected without crossing a switch, numbered by their lowest node.
+        var parts = graph.SwitchFreeParts;
+        _zoneOfNode = [.. Enumerable.Range(0, grid.Nodes.Length).Select(parts.PartOf)];
+        var nodes = parts.Parts;
         var segments = nodes.Select(_ => new List<int>()).ToList();
         for (var i = 0; i < grid.Segments.Length; i++)
         {

@@ -1,6 +1,6 @@
 using System.Diagnostics;
 
-namespace FeederLocate.Storage.Tests.Faults;
+namespace FeederLocate.Testing;
 
 /// <summary>
 /// A 1 MB tmpfs mounted on a fresh folder, for filling the disk under a database; unmounted on dispose.
