@@ -170,7 +170,7 @@ public sealed class IncidentStore : IDisposable
         ArgumentNullException.ThrowIfNull(gridName);
         return States(gridName)
             .Where(s => s.Outcome is not null)
-            .Select(s => new RecordedOutcome(s.Id, s.Incident, s.Outcome!.Outcome.ConfirmedSegment, s.ReportedAt))
+            .Select(s => new RecordedOutcome(s.Id, s.Incident, s.Outcome!.Outcome.ConfirmedSegment, s.ReportedAt) { LastEvent = s.LastEvent })
             .ToList();
     }
 

@@ -2,7 +2,7 @@ using System.CommandLine;
 using System.Globalization;
 using FeederLocate.Cli.Input;
 using FeederLocate.Cli.Output;
-using FeederLocate.Core.Ranking;
+using FeederLocate.Application.History;
 using FeederLocate.Core.Topology;
 using FeederLocate.Storage.Export;
 
@@ -30,8 +30,8 @@ internal static class HistoryCommands
         var command = new Command("history", "List the incidents in the history database") { db, json };
         command.SetAction(parse =>
         {
-            using var store = ExistingDatabase.Open(parse.GetValue(db)!);
-            var incidents = store.Incidents();
+            using var log = HistoryDatabase.OpenExistingLog(parse.GetValue(db)!);
+            var incidents = log.List().OrderBy(i => i.Id.Value).ToList();
             if (parse.GetValue(json))
             {
                 JsonOutput.Write(console.Out, incidents.Select(i => new
@@ -64,10 +64,11 @@ internal static class HistoryCommands
         command.SetAction(parse =>
         {
             var model = InputFiles.LoadGrid(parse.GetValue(grid)!, console.Error);
-            using var store = ExistingDatabase.Open(parse.GetValue(db)!);
+            using var log = HistoryDatabase.OpenExistingLog(parse.GetValue(db)!);
             var graph = new NetworkGraph(model);
-            var outcomes = HistoryDatabase.OutcomesFor(store, model);
-            var learned = LearnedRankingPriors.Learn(graph, outcomes);
+            var learning = new GridLearning(log);
+            var outcomes = learning.ConfirmedIncidents(graph);
+            var learned = learning.Learned(graph);
             var segments = learned.FaultRates.Segments.OrderByDescending(s => s.Faults).ThenByDescending(s => s.FaultsPerKmYear).ToList();
             var indicators = learned.Indicators.Indicators.OrderByDescending(i => i.FalseReportProbability + i.MissProbability).ToList();
             if (parse.GetValue(json))
@@ -116,18 +117,18 @@ internal static class HistoryCommands
         var command = new Command("export", "Export incidents or indicator statistics as CSV") { db, what, grid, output };
         command.SetAction(parse =>
         {
-            using var store = ExistingDatabase.Open(parse.GetValue(db)!);
+            using var log = HistoryDatabase.OpenExistingLog(parse.GetValue(db)!);
             var text = new StringWriter(CultureInfo.InvariantCulture);
             switch (parse.GetValue(what))
             {
                 case "incidents":
-                    CsvExport.WriteIncidents(store.Incidents(), text);
+                    CsvExport.WriteIncidents([.. log.List().OrderBy(i => i.Id.Value)], text);
                     break;
                 case "indicators":
                     var gridPath = parse.GetValue(grid) ?? throw new BadInputException("error: --what indicators needs --grid GRID");
                     var model = InputFiles.LoadGrid(gridPath, console.Error);
-                    var learned = LearnedRankingPriors.Learn(new NetworkGraph(model), HistoryDatabase.OutcomesFor(store, model));
-                    CsvExport.WriteIndicatorStatistics(learned.Indicators, text);
+                    CsvExport.WriteIndicatorStatistics(new GridLearning(log).Learned(new NetworkGraph(model)).Indicators, text);
+
                     break;
                 default:
                     throw new BadInputException($"error: --what must be incidents or indicators, got \"{parse.GetValue(what)}\"");

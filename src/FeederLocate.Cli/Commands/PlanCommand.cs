@@ -3,6 +3,7 @@ using System.Globalization;
 using FeederLocate.Cli.Input;
 using FeederLocate.Cli.Output;
 using FeederLocate.Core.Formats.Documents;
+using FeederLocate.Application.Analysis;
 using FeederLocate.Core.Ranking;
 using FeederLocate.Core.Switching;
 using FeederLocate.Core.Topology;
@@ -58,23 +59,20 @@ internal static class PlanCommand
         var grid = InputFiles.LoadGrid(gridPath, console.Error);
         var incident = InputFiles.LoadIncident(incidentPath, grid, console.Error);
         var graph = new NetworkGraph(grid);
-        RankingResult ranking;
-        try
+        var ranked = EvidenceAnalysis.Rank(graph, incident, HistoryDatabase.PriorsFor(dbPath, graph));
+        if (ranked.Result is not { } ranking)
         {
-            ranking = FaultRanking.Rank(graph, incident, priors: HistoryDatabase.PriorsFor(dbPath, graph));
-        }
-        catch (RankingException e)
-        {
-            throw new BadInputException($"error: {e.Message}");
+            throw new BadInputException($"error: {ranked.Problem}");
         }
 
         var options = SwitchingOptions.Default with { ColdLoadFactor = coldLoadFactor, VoltageLimitPu = voltageLimitPu };
-        if (!SwitchingPlanner.TryPlan(graph, incident, ranking, out var plan, out var problem, options))
+        var planned = EvidenceAnalysis.Plan(graph, incident, ranking, options);
+        if (planned.Plan is not { } plan)
         {
-            throw new BadInputException($"error: {problem}");
+            throw new BadInputException($"error: {planned.Problem}");
         }
 
-        var document = PlanDocument.From(plan!, ranking);
+        var document = PlanDocument.From(plan, ranking);
         if (json)
         {
             JsonOutput.Write(console.Out, document);

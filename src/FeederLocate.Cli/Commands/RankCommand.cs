@@ -3,7 +3,7 @@ using System.Globalization;
 using FeederLocate.Cli.Input;
 using FeederLocate.Cli.Output;
 using FeederLocate.Core.Formats.Documents;
-using FeederLocate.Core.Ranking;
+using FeederLocate.Application.Analysis;
 
 namespace FeederLocate.Cli.Commands;
 
@@ -29,13 +29,13 @@ internal static class RankCommand
         var grid = InputFiles.LoadGrid(gridPath, console.Error);
         var incident = InputFiles.LoadIncident(incidentPath, grid, console.Error);
         var graph = new Core.Topology.NetworkGraph(grid);
-        var priors = HistoryDatabase.PriorsFor(dbPath, graph);
-        if (!FaultRanking.TryRank(grid, incident, out var result, out var problem, priors: priors))
+        var ranking = EvidenceAnalysis.Rank(graph, incident, HistoryDatabase.PriorsFor(dbPath, graph));
+        if (ranking.Result is not { } result)
         {
-            throw new BadInputException($"error: {problem}");
+            throw new BadInputException($"error: {ranking.Problem}");
         }
 
-        var document = RankingDocument.From(result!);
+        var document = RankingDocument.From(result);
         if (json)
         {
             JsonOutput.Write(console.Out, document);

@@ -42,8 +42,8 @@ internal static class RecordCommand
         }
 
         var actor = Logger(dbPath, by);
-        using var store = HistoryDatabase.Open(dbPath);
-        var id = store.Record(grid, incident, new OutcomeLogged(segment, incident.FaultType, cause), actor);
+        using var log = HistoryDatabase.OpenLog(dbPath);
+        var id = log.Record(grid, incident, new OutcomeLogged(segment, incident.FaultType, cause), actor);
         if (json)
         {
             JsonOutput.Write(console.Out, new { incidentId = id.Value });

@@ -1,4 +1,5 @@
-using FeederLocate.Core.Model;
+using FeederLocate.Application.History;
+using FeederLocate.Application.Incidents;
 using FeederLocate.Core.Ranking;
 using FeederLocate.Core.Topology;
 using FeederLocate.Storage;
@@ -22,7 +23,13 @@ public static class HistoryDatabase
         }
     }
 
-    /// <summary>The ranking's priors learned from every outcome recorded for a grid of the same name.</summary>
+    /// <summary>The incident log of the database (closed with it).</summary>
+    public static IncidentLog OpenLog(string path) => new(Open(path));
+
+    /// <summary>The incident log of a database that must exist: a mistyped path is bad input and creates nothing.</summary>
+    public static IncidentLog OpenExistingLog(string path) => new(ExistingDatabase.Open(path));
+
+    /// <summary>The ranking's priors learned from the outcomes of the grid in the database; none without a database.</summary>
     public static RankingPriors PriorsFor(string? path, NetworkGraph graph)
     {
         if (path is null)
@@ -30,15 +37,7 @@ public static class HistoryDatabase
             return RankingPriors.None;
         }
 
-        using var store = Open(path);
-        var grid = graph.Grid;
-        var outcomes = store.Outcomes(grid.Name)
-            .Where(o => grid.HasSegment(o.ConfirmedSegment))
-            .Select(o => new ConfirmedIncident(o.Incident, o.ConfirmedSegment))
-            .ToList();
-        return LearnedRankingPriors.From(graph, outcomes);
+        using var log = OpenExistingLog(path);
+        return new GridLearning(log).Priors(graph);
     }
-
-    public static IReadOnlyList<ConfirmedIncident> OutcomesFor(IncidentStore store, Grid grid) =>
-        [.. store.Outcomes(grid.Name).Where(o => grid.HasSegment(o.ConfirmedSegment)).Select(o => new ConfirmedIncident(o.Incident, o.ConfirmedSegment))];
 }

@@ -31,6 +31,52 @@ public static class IncidentReader
         }
     }
 
+    /// <summary>
+    /// Reads indications given on their own (one indication object, or an array of them, as in an incident
+    /// file's <c>indications</c>) and checks them against <paramref name="grid"/> when given. Every problem is
+    /// reported with the same element and field as in a file; no indication is returned while any error remains.
+    /// </summary>
+    public static LoadResult<IReadOnlyList<Indication>> ParseIndications(string json, Grid? grid) =>
+        ParseItems<Indication>(json, "indications", (items, log) => IndicationItems(items, grid, log));
+
+    /// <summary>
+    /// Reads substation measurements given on their own (one object or an array, as in an incident file's
+    /// <c>measurements</c>), with the same messages as in a file; none is returned while any error remains.
+    /// </summary>
+    public static LoadResult<IReadOnlyList<SubstationMeasurement>> ParseMeasurements(string json, Grid? grid) =>
+        ParseItems<SubstationMeasurement>(json, "measurements", (items, log) => MeasurementItems(items, grid, log));
+
+    private static LoadResult<IReadOnlyList<T>> ParseItems<T>(string json, string kind, Func<IEnumerable<JsonElement>, IssueLog, ImmutableArray<T>> read)
+    {
+        try
+        {
+            var log = new IssueLog();
+            using var document = JsonText.ParseAny(json, kind, log);
+            if (document is null)
+            {
+                return new LoadResult<IReadOnlyList<T>>(null, log.Issues);
+            }
+
+            var root = document.RootElement;
+            if (root.ValueKind is not (JsonValueKind.Object or JsonValueKind.Array))
+            {
+                log.Error(kind, "body", string.Empty, $"must be one object or an array of them, got {ElementReader.Describe(root)}");
+                return new LoadResult<IReadOnlyList<T>>(null, log.Issues);
+            }
+
+            var items = read(root.ValueKind == JsonValueKind.Array ? root.EnumerateArray() : [root], log);
+            return new LoadResult<IReadOnlyList<T>>(log.HasErrors ? null : items, log.Issues);
+        }
+        catch (InvalidOperationException e) when (e.Message.Contains("UTF", StringComparison.OrdinalIgnoreCase) || e.Message.Contains("surrogate", StringComparison.OrdinalIgnoreCase) || e.InnerException is System.Text.DecoderFallbackException)
+        {
+            return new LoadResult<IReadOnlyList<T>>(null, [GridReader.NotText(kind)]);
+        }
+        catch (ArgumentException)
+        {
+            return new LoadResult<IReadOnlyList<T>>(null, [GridReader.NotText(kind)]);
+        }
+    }
+
     private static LoadResult<Incident> Read(string json, Grid? grid)
     {
         var log = new IssueLog();
@@ -161,16 +207,16 @@ public static class IncidentReader
 
     private static ImmutableArray<SubstationMeasurement> Measurements(ElementReader root, Grid? grid, IssueLog log)
     {
-        var measurements = ImmutableArray.CreateBuilder<SubstationMeasurement>();
-        if (root.Array("measurements", required: false) is not { } array)
-        {
-            return measurements.ToImmutable();
-        }
+        return root.Array("measurements", required: false) is { } array ? MeasurementItems(array, grid, log) : [];
+    }
 
+    private static ImmutableArray<SubstationMeasurement> MeasurementItems(IEnumerable<JsonElement> array, Grid? grid, IssueLog log)
+    {
+        var measurements = ImmutableArray.CreateBuilder<SubstationMeasurement>();
         var count = array.Count();
         if (count > EvidenceLimits.MaxMeasurementsPerIncident)
         {
-            root.Error("measurements", $"holds {count} records; at most {EvidenceLimits.MaxMeasurementsPerIncident} are accepted");
+            log.Error("incident", "file", "measurements", $"holds {count} records; at most {EvidenceLimits.MaxMeasurementsPerIncident} are accepted");
             return measurements.ToImmutable();
         }
 
@@ -208,12 +254,12 @@ public static class IncidentReader
 
     private static ImmutableArray<Indication> Indications(ElementReader root, Grid? grid, IssueLog log)
     {
-        var indications = ImmutableArray.CreateBuilder<Indication>();
-        if (root.Array("indications", required: true) is not { } array)
-        {
-            return indications.ToImmutable();
-        }
+        return root.Array("indications", required: true) is { } array ? IndicationItems(array, grid, log) : [];
+    }
 
+    private static ImmutableArray<Indication> IndicationItems(IEnumerable<JsonElement> array, Grid? grid, IssueLog log)
+    {
+        var indications = ImmutableArray.CreateBuilder<Indication>();
         var seen = new HashSet<string>(StringComparer.Ordinal);
         var index = 0;
         foreach (var item in array)

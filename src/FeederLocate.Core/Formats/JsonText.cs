@@ -15,23 +15,29 @@ internal static class JsonText
 
     public static JsonDocument? Parse(string text, string kind, IssueLog log)
     {
+        var document = ParseAny(text, kind, log, "file");
+        if (document is not null && document.RootElement.ValueKind != JsonValueKind.Object)
+        {
+            log.Error(kind, "file", string.Empty, $"must hold one JSON object, got {ElementReader.Describe(document.RootElement)}");
+            document.Dispose();
+            return null;
+        }
+
+        return document;
+    }
+
+    /// <summary>Any JSON value (the caller checks its shape); a syntax error is reported against <paramref name="id"/>.</summary>
+    public static JsonDocument? ParseAny(string text, string kind, IssueLog log, string id = "body")
+    {
         ArgumentNullException.ThrowIfNull(text);
         try
         {
-            var document = JsonDocument.Parse(text, Options);
-            if (document.RootElement.ValueKind != JsonValueKind.Object)
-            {
-                log.Error(kind, "file", string.Empty, $"must hold one JSON object, got {ElementReader.Describe(document.RootElement)}");
-                document.Dispose();
-                return null;
-            }
-
-            return document;
+            return JsonDocument.Parse(text, Options);
         }
         catch (JsonException e)
         {
             var where = e.LineNumber is { } line ? $" at line {line + 1}, position {e.BytePositionInLine + 1}" : string.Empty;
-            log.Error(kind, "file", string.Empty, $"is not valid JSON{where}: {FirstSentence(e.Message)}");
+            log.Error(kind, id, string.Empty, $"is not valid JSON{where}: {FirstSentence(e.Message)}");
             return null;
         }
     }

@@ -9,6 +9,9 @@ namespace FeederLocate.Core.Ranking;
 /// <summary>A logged incident with the segment where its fault was confirmed.</summary>
 public sealed record ConfirmedIncident(Incident Incident, SegmentId Segment);
 
+/// <summary>A confirmed incident with what it teaches about its indicators (see <see cref="LearnedRankingPriors.ObservationsOf"/>).</summary>
+public sealed record ObservedIncident(ConfirmedIncident Outcome, IReadOnlyList<IndicatorObservation> Observations);
+
 /// <summary>
 /// Turns logged outcomes into priors for the ranking: each confirmed fault counts for its segment's
 /// fault rate; each indication is compared with what the engine says the indicator should have shown
@@ -35,9 +38,30 @@ public static class LearnedRankingPriors
         options ??= Options;
         ArgumentNullException.ThrowIfNull(graph);
         ArgumentNullException.ThrowIfNull(outcomes);
-        var faults = outcomes.Select(o => new ConfirmedFault(o.Segment, o.Incident.ReportedAt)).ToList();
-        var observations = outcomes.SelectMany(o => IndicatorObservation.ForIncident(o.Incident, ExpectedAtConfirmed(graph, o.Incident, o.Segment))).ToList();
-        return HistoryLearning.Learn(graph.Grid, faults, observations, options);
+        return Learn(graph.Grid, [.. outcomes.Select(o => new ObservedIncident(o, ObservationsOf(graph, o)))], options);
+    }
+
+    /// <summary>
+    /// Learning from incidents whose observations are already known: the same as <see cref="Learn(NetworkGraph, IReadOnlyList{ConfirmedIncident}, LearningOptions?)"/>
+    /// without refining a fault per incident again, for callers that learn from many subsets of one history.
+    /// </summary>
+    public static LearnedPriors Learn(Grid grid, IReadOnlyList<ObservedIncident> observed, LearningOptions? options = null)
+    {
+        options ??= Options;
+        ArgumentNullException.ThrowIfNull(grid);
+        ArgumentNullException.ThrowIfNull(observed);
+        var faults = observed.Select(o => new ConfirmedFault(o.Outcome.Segment, o.Outcome.Incident.ReportedAt)).ToList();
+        return HistoryLearning.Learn(grid, faults, observed.SelectMany(o => o.Observations).ToList(), options);
+    }
+
+    /// <summary>
+    /// What one confirmed incident teaches about its indicators: each listed indicator's state against the one
+    /// expected for the best-fitting fault on the confirmed segment. The costly part of learning (one refined fault per incident).
+    /// </summary>
+    public static IReadOnlyList<IndicatorObservation> ObservationsOf(NetworkGraph graph, ConfirmedIncident outcome)
+    {
+        ArgumentNullException.ThrowIfNull(outcome);
+        return IndicatorObservation.ForIncident(outcome.Incident, ExpectedAtConfirmed(graph, outcome.Incident, outcome.Segment));
     }
 
     /// <summary>The ranking's priors: learned fault rates for every segment; learned error rates once history exists.</summary>

@@ -28,7 +28,7 @@ internal static class IncidentFold
         }
 
         var first = events[0];
-        var start = new IncidentState(first.Incident, opened.GridName, opened.Incident, IncidentStatus.Open, [], null, first.Actor, first.Time, null, 1);
+        var start = new IncidentState(first.Incident, opened.GridName, opened.Incident, IncidentStatus.Open, [], null, first.Actor, first.Time, null, 1) { LastEvent = first.Id };
         return Continue(start, events, 1);
     }
 
@@ -136,6 +136,7 @@ internal static class IncidentFold
             ClosedAt = closedAt,
             EventCount = state.EventCount + Math.Max(0, events.Count - from),
             Quarantined = quarantined.ToImmutable(),
+            LastEvent = events.Count > from ? events[^1].Id : state.LastEvent,
         };
     }
 

@@ -27,4 +27,10 @@ public sealed record IncidentState(
 
     /// <summary>The incident's events left out of this state because they cannot be read or cannot apply.</summary>
     public ImmutableArray<QuarantinedEvent> Quarantined { get; init; } = [];
+
+    /// <summary>
+    /// The id of the incident's latest event. Ids increase in commit order across the whole log, so a state
+    /// with a greater id is a later one: what caches of anything derived from the incident key on.
+    /// </summary>
+    public EventId LastEvent { get; init; }
 }

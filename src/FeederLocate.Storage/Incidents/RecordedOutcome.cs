@@ -1,6 +1,7 @@
 using FeederLocate.Core.Evidence;
 using FeederLocate.Core.Learning;
 using FeederLocate.Core.Model;
+using FeederLocate.Storage.Events;
 
 namespace FeederLocate.Storage.Incidents;
 
@@ -9,4 +10,7 @@ namespace FeederLocate.Storage.Incidents;
 public sealed record RecordedOutcome(IncidentId Id, Incident Incident, SegmentId ConfirmedSegment, DateTimeOffset ReportedAt)
 {
     public ConfirmedFault ToConfirmedFault() => new(ConfirmedSegment, ReportedAt);
+
+    /// <summary>The id of the incident's latest event (its evidence or its outcome may have changed since an earlier read).</summary>
+    public EventId LastEvent { get; init; }
 }

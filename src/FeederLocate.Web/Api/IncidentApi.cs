@@ -1,4 +1,7 @@
 using System.Text.Json;
+using FeederLocate.Application.Analysis;
+using FeederLocate.Application.Evidence;
+using FeederLocate.Application.Switching;
 using FeederLocate.Core.Evidence;
 using FeederLocate.Core.Formats;
 using FeederLocate.Core.Formats.Documents;
@@ -33,22 +36,40 @@ public static class IncidentApi
         api.MapPost("/incidents", OpenIncident).RequireAuthorization(AccessPolicies.ApiWrite);
         api.MapGet("/incidents/{id:long}", (long id, ClaimsPrincipal user, IncidentBoard board) =>
             WithIncident(board, user, id, state => Results.Ok(IncidentEntry.Of(IncidentSummary.Of(state)))));
-        api.MapPost("/incidents/{id:long}/indications", (long id, ClaimsPrincipal user, HttpRequest request, IncidentBoard board, GridCatalog grids) =>
-            PostEvidence(id, user, request, board, grids, "indications")).RequireAuthorization(AccessPolicies.ApiWrite);
-        api.MapPost("/incidents/{id:long}/measurements", (long id, ClaimsPrincipal user, HttpRequest request, IncidentBoard board, GridCatalog grids) =>
-            PostEvidence(id, user, request, board, grids, "measurements")).RequireAuthorization(AccessPolicies.ApiWrite);
+        api.MapPost("/incidents/{id:long}/indications", (long id, ClaimsPrincipal user, HttpRequest request, IncidentBoard board, GridCatalog grids, EvidenceIntake intake) =>
+            PostEvidence(id, user, request, board, grids, "indications", intake.AddIndications)).RequireAuthorization(AccessPolicies.ApiWrite);
+        api.MapPost("/incidents/{id:long}/measurements", (long id, ClaimsPrincipal user, HttpRequest request, IncidentBoard board, GridCatalog grids, EvidenceIntake intake) =>
+            PostEvidence(id, user, request, board, grids, "measurements", intake.AddMeasurements)).RequireAuthorization(AccessPolicies.ApiWrite);
+        api.MapGet("/incidents/{id:long}/switches", (long id, ClaimsPrincipal user, IncidentBoard board, GridCatalog grids) =>
+            WithIncident(board, user, id, state => grids.Find(state.GridName) is not { } grid
+                ? GridNotLoaded(id, state)
+                : Results.Ok(SwitchEntry.Of(grid.Grid, IncidentSwitching.Current(grid.Grid, state)))));
         api.MapGet("/incidents/{id:long}/ranking", (long id, ClaimsPrincipal user, IncidentBoard board, GridCatalog grids, IncidentAnalysis analysis) =>
-            WithIncident(board, user, id, state => grids.Find(state.GridName) is not { } grid
-                ? GridNotLoaded(id, state)
-                : analysis.Rank(grid, state) is { Result: { } ranking }
-                    ? Results.Json(RankingDocument.From(ranking), DocumentJson.Options)
-                    : Results.UnprocessableEntity(ApiError.Single("cannot rank", "incident", Text(id), "switchStates", analysis.Rank(grid, state).Problem ?? "no ranking"))));
+            WithIncidentAsync(board, user, id, async state =>
+            {
+                if (grids.Find(state.GridName) is not { } grid)
+                {
+                    return GridNotLoaded(id, state);
+                }
+
+                var ranking = await analysis.RankAsync(grid.Graph, state);
+                return ranking.Result is { } result
+                    ? Results.Json(RankingDocument.From(result), DocumentJson.Options)
+                    : Results.UnprocessableEntity(ApiError.Single("cannot rank", "incident", Text(id), "switchStates", ranking.Problem ?? "no ranking"));
+            }));
         api.MapGet("/incidents/{id:long}/plan", (long id, ClaimsPrincipal user, IncidentBoard board, GridCatalog grids, IncidentAnalysis analysis) =>
-            WithIncident(board, user, id, state => grids.Find(state.GridName) is not { } grid
-                ? GridNotLoaded(id, state)
-                : analysis.Plan(grid, state) is { Plan: { } plan } && analysis.Rank(grid, state).Result is { } ranking
-                    ? Results.Json(PlanDocument.From(plan, ranking), DocumentJson.Options)
-                    : Results.UnprocessableEntity(ApiError.Single("cannot plan", "incident", Text(id), "plan", analysis.Plan(grid, state).Problem ?? "no plan"))));
+            WithIncidentAsync(board, user, id, async state =>
+            {
+                if (grids.Find(state.GridName) is not { } grid)
+                {
+                    return GridNotLoaded(id, state);
+                }
+
+                var (ranking, plan) = await analysis.AnalyseAsync(grid.Graph, state);
+                return plan.Plan is { } found && ranking.Result is { } result
+                    ? Results.Json(PlanDocument.From(found, result), DocumentJson.Options)
+                    : Results.UnprocessableEntity(ApiError.Single("cannot plan", "incident", Text(id), "plan", plan.Problem ?? "no plan"));
+            }));
         api.MapPost("/incidents/{id:long}/outcome", PostOutcome).RequireAuthorization(AccessPolicies.ApiWrite);
         return app;
     }
@@ -76,8 +97,9 @@ public static class IncidentApi
         return Results.Created($"/api/incidents/{id}", IncidentEntry.Of(IncidentSummary.Of(board.State(id))));
     }
 
-    /// <summary>Indications or measurements, one object or an array, read by the incident reader itself so the messages are its own.</summary>
-    private static async Task<IResult> PostEvidence(long id, ClaimsPrincipal user, HttpRequest request, IncidentBoard board, GridCatalog grids, string field)
+    /// <summary>Indications or measurements, one object or an array, read by the incident reader so the messages are its own.</summary>
+    private static async Task<IResult> PostEvidence(long id, ClaimsPrincipal user, HttpRequest request, IncidentBoard board, GridCatalog grids, string field,
+        Func<IncidentId, Core.Model.Grid, string, Actor, EvidenceResult> add)
     {
         if (await ReadBody(request) is not { } text)
         {
@@ -91,36 +113,10 @@ public static class IncidentApi
                 return GridNotLoaded(id, state);
             }
 
-            JsonValueKind kind;
-            try
-            {
-                using var document = JsonDocument.Parse(text);
-                kind = document.RootElement.ValueKind;
-            }
-            catch (JsonException e)
-            {
-                return Results.BadRequest(ApiError.Single("not JSON", "request", "body", string.Empty, $"is not valid JSON: {e.Message}"));
-            }
-
-            // The body is one complete JSON value, so it goes into the wrapper as it is: its text, read by the
-            // incident reader, gives the reader's own messages (a lone surrogate, a duplicate key, ...).
-            var items = kind == JsonValueKind.Array ? text : $"[{text}]";
-            var reportedAt = state.ReportedAt.UtcDateTime.ToString("yyyy-MM-dd'T'HH:mm:ss'Z'", System.Globalization.CultureInfo.InvariantCulture);
-            var wrapper = field == "indications"
-                ? $$"""{ "format": "{{IncidentFormat.FormatTag}}", "reportedAt": "{{reportedAt}}", "faultType": "unknown", "indications": {{items}} }"""
-                : $$"""{ "format": "{{IncidentFormat.FormatTag}}", "reportedAt": "{{reportedAt}}", "faultType": "unknown", "indications": [], "measurements": {{items}} }""";
-
-            var read = IncidentReader.Parse(wrapper, grid.Grid);
-            if (read.Value is not { } parsed)
-            {
-                return Results.BadRequest(ApiError.From($"the {field} have errors", read.Issues));
-            }
-
-            IReadOnlyList<IncidentEvent> events = field == "indications"
-                ? [.. parsed.Indications.Select(i => new IndicationEntered(i))]
-                : [.. parsed.Measurements.Select(m => new MeasurementRecorded(m))];
-            board.RecordAll(new IncidentId(id), events, AccountClaims.ActorOf(user), grid.Grid);
-            return Results.Accepted($"/api/incidents/{id}", new { accepted = events.Count });
+            var result = add(new IncidentId(id), grid.Grid, text, AccountClaims.ActorOf(user));
+            return result.IsAccepted
+                ? Results.Accepted($"/api/incidents/{id}", new { accepted = result.Accepted })
+                : Results.BadRequest(ApiError.From($"the {field} have errors", result.Issues));
         });
     }
 
@@ -197,6 +193,18 @@ public static class IncidentApi
         }
     }
 
+    /// <summary><see cref="WithIncident"/> for an action that awaits.</summary>
+    private static async Task<IResult> WithIncidentAsync(IncidentBoard board, ClaimsPrincipal user, long id, Func<IncidentState, Task<IResult>> action)
+    {
+        IncidentState? found = null;
+        var checkedResult = WithIncident(board, user, id, state =>
+        {
+            found = state;
+            return Results.Empty;
+        });
+        return found is null ? checkedResult : await action(found);
+    }
+
     /// <summary>The body as text, or null when it is over the limit (whatever the server in front enforces).</summary>
     private static async Task<string?> ReadBody(HttpRequest request)
     {
@@ -227,6 +235,14 @@ public static class IncidentApi
     {
         public static IncidentEntry Of(IncidentSummary s) =>
             new(s.Id.Value, s.GridName, s.ReportedAt, s.Status.ToString(), IncidentFormat.Name(s.FaultType), s.ConfirmedSegment?.Value, s.EventCount);
+    }
+
+    /// <summary>The incident's switch positions now, and those that differ from normal.</summary>
+    public sealed record SwitchEntry(IReadOnlyDictionary<string, string> Positions, IReadOnlyDictionary<string, string> Deviations)
+    {
+        public static SwitchEntry Of(Core.Model.Grid grid, Core.Topology.SwitchStates states) => new(
+            grid.Switches.ToDictionary(s => s.Id.Value, s => IncidentFormat.Name(states.PositionOf(s.Id))),
+            states.Deviations().ToDictionary(d => d.Key.Value, d => IncidentFormat.Name(d.Value)));
     }
 
     public sealed record OutcomeBody(string? Segment, string? FaultType, string? Cause, string? Notes);

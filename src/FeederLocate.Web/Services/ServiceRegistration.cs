@@ -1,3 +1,7 @@
+using FeederLocate.Application.Analysis;
+using FeederLocate.Application.Evidence;
+using FeederLocate.Application.History;
+using FeederLocate.Application.Incidents;
 using FeederLocate.Storage;
 using FeederLocate.Web.Security;
 
@@ -13,12 +17,16 @@ public static class ServiceRegistration
         services.AddSingleton(options);
         services.AddSingleton(_ => new GridCatalog(RepositoryPaths.Resolve(root, options.GridFolder), options.DefaultGrid));
         var databasePath = RepositoryPaths.Resolve(root, options.DatabasePath);
-        services.AddSingleton(sp => new IncidentBoard(IncidentStore.Open(databasePath), name => sp.GetRequiredService<GridCatalog>().Find(name)?.Grid));
         // Claimed before the database is opened: a second web app on the same file is refused at start.
         services.AddSingleton(_ => Storage.Maintenance.InstanceLock.Claim(databasePath));
+        services.AddSingleton(sp => new IncidentBoard(IncidentStore.Open(databasePath), name => sp.GetRequiredService<GridCatalog>().Find(name)?.Grid));
+        services.AddSingleton<IncidentLog>(provider => provider.GetRequiredService<IncidentBoard>());
         services.AddFeederLocateSecurity(databasePath, options.SignInFreeFailuresPerClient);
-        services.AddSingleton<IncidentAnalysis>();
+        services.AddSingleton<IFaultRanker, CoreFaultRanker>();
+        services.AddSingleton(provider => new GridLearning(provider.GetRequiredService<IncidentLog>()));
+        services.AddSingleton(provider => new IncidentAnalysis(provider.GetRequiredService<GridLearning>(), provider.GetRequiredService<IFaultRanker>()));
         services.AddSingleton<IncidentHistory>();
+        services.AddSingleton<EvidenceIntake>();
         services.AddSingleton(TimeProvider.System);
         return services;
     }

@@ -1,0 +1,80 @@
+using BitFaster.Caching;
+using BitFaster.Caching.Lru;
+using FeederLocate.Application.History;
+using FeederLocate.Core.Topology;
+using FeederLocate.Storage.Incidents;
+
+namespace FeederLocate.Application.Analysis;
+
+/// <summary>
+/// The ranking of an incident's evidence, with priors learned from the other outcomes of its grid, and the
+/// switching order for its most likely section. A logged incident's results are kept per grid, incident and the
+/// last event among the ranking's inputs (the incident's own events and those of every incident of the grid with
+/// an outcome); event ids only grow, so any change to an input makes a new key. The cache is bounded (least
+/// recently used goes) and shared: concurrent requests for one key wait for one computation, which runs on the
+/// thread pool, never on the caller's thread.
+/// </summary>
+public sealed class IncidentAnalysis
+{
+    private readonly GridLearning _learning;
+    private readonly IFaultRanker _ranker;
+    private readonly IAsyncCache<AnalysisKey, RankingOutcome> _rankings;
+    private readonly IAsyncCache<AnalysisKey, PlanOutcome> _plans;
+
+    public IncidentAnalysis(GridLearning learning, IFaultRanker ranker, int capacity = 256)
+    {
+        ArgumentNullException.ThrowIfNull(learning);
+        ArgumentNullException.ThrowIfNull(ranker);
+        ArgumentOutOfRangeException.ThrowIfLessThan(capacity, 3);
+        _learning = learning;
+        _ranker = ranker;
+        _rankings = new ConcurrentLruBuilder<AnalysisKey, RankingOutcome>().WithCapacity(capacity).AsAsyncCache().WithAtomicGetOrAdd().Build();
+        _plans = new ConcurrentLruBuilder<AnalysisKey, PlanOutcome>().WithCapacity(capacity).AsAsyncCache().WithAtomicGetOrAdd().Build();
+    }
+
+    /// <summary>The ranking of a logged incident as it stands in <paramref name="state"/>.</summary>
+    public Task<RankingOutcome> RankAsync(NetworkGraph graph, IncidentState state)
+    {
+        var (key, outcomes) = KeyOf(graph, state);
+        return RankAsync(key, graph, state, outcomes);
+    }
+
+    /// <summary>The switching order for the ranking's most likely section of a logged incident.</summary>
+    public Task<PlanOutcome> PlanAsync(NetworkGraph graph, IncidentState state)
+    {
+        var (key, outcomes) = KeyOf(graph, state);
+        return PlanAsync(key, graph, state, outcomes);
+    }
+
+    /// <summary>The ranking and the plan of a logged incident together.</summary>
+    public async Task<IncidentAnalysisResult> AnalyseAsync(NetworkGraph graph, IncidentState state)
+    {
+        var (key, outcomes) = KeyOf(graph, state);
+        var ranking = await RankAsync(key, graph, state, outcomes).ConfigureAwait(false);
+        var plan = await PlanAsync(key, graph, state, outcomes).ConfigureAwait(false);
+        return new IncidentAnalysisResult(ranking, plan);
+    }
+
+    private (AnalysisKey Key, GridOutcomes Outcomes) KeyOf(NetworkGraph graph, IncidentState state)
+    {
+        ArgumentNullException.ThrowIfNull(graph);
+        ArgumentNullException.ThrowIfNull(state);
+        var outcomes = _learning.Outcomes(graph);
+        return (new AnalysisKey(graph, state.Id, Math.Max(state.LastEvent.Value, outcomes.Through)), outcomes);
+    }
+
+    private async Task<RankingOutcome> RankAsync(AnalysisKey key, NetworkGraph graph, IncidentState state, GridOutcomes outcomes) =>
+        await _rankings.GetOrAddAsync(key, _ => Task.Run(() => EvidenceAnalysis.Rank(graph, state.Incident, _learning.Priors(graph, outcomes, state.Id), _ranker))).ConfigureAwait(false);
+
+    private async Task<PlanOutcome> PlanAsync(AnalysisKey key, NetworkGraph graph, IncidentState state, GridOutcomes outcomes) =>
+        await _plans.GetOrAddAsync(key, async _ =>
+        {
+            var ranking = await RankAsync(key, graph, state, outcomes).ConfigureAwait(false);
+            return ranking.Result is { } result
+                ? await Task.Run(() => EvidenceAnalysis.Plan(graph, state.Incident, result)).ConfigureAwait(false)
+                : new PlanOutcome(null, ranking.Problem);
+        }).ConfigureAwait(false);
+
+    /// <summary>The grid (as loaded: a reloaded grid is a new key), the incident, and the last event among the inputs.</summary>
+    private readonly record struct AnalysisKey(NetworkGraph Graph, IncidentId Incident, long InputsThrough);
+}

@@ -1,0 +1,31 @@
+using FeederLocate.Core.Evidence;
+using FeederLocate.Core.Model;
+using FeederLocate.Core.Topology;
+using FeederLocate.Storage.Incidents;
+
+namespace FeederLocate.Application.Switching;
+
+/// <summary>The one place an incident's switch positions of the moment are worked out.</summary>
+public static class IncidentSwitching
+{
+    /// <summary>
+    /// Every device's position now: normal positions, then the positions recorded for the incident, then its
+    /// tripped device open, then the open and close steps of the switching order ticked as done, in the order
+    /// they were ticked. A step naming a device not in <paramref name="grid"/> is passed over.
+    /// </summary>
+    public static SwitchStates Current(Grid grid, IncidentState state)
+    {
+        ArgumentNullException.ThrowIfNull(grid);
+        ArgumentNullException.ThrowIfNull(state);
+        var states = SwitchStates.AfterTrip(grid, state.Incident);
+        foreach (var done in state.CompletedSteps)
+        {
+            if (done.Step is { Device: { } device, Action: "open" or "close" } && grid.HasSwitch(new SwitchId(device)))
+            {
+                states = states.With(new SwitchId(device), done.Step.Action == "close" ? SwitchPosition.Closed : SwitchPosition.Open);
+            }
+        }
+
+        return states;
+    }
+}

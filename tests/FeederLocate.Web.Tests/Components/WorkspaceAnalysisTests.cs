@@ -1,0 +1,65 @@
+using System.Security.Claims;
+using Bunit;
+using FeederLocate.Application.Analysis;
+using FeederLocate.Application.History;
+using FeederLocate.Core.Evidence;
+using FeederLocate.Core.Model;
+using FeederLocate.Storage;
+using FeederLocate.Storage.Events;
+using FeederLocate.Web.Components.Pages.Workspace;
+using FeederLocate.Web.Security;
+using FeederLocate.Web.Services;
+using FeederLocate.Web.Tests.Support;
+using Microsoft.Extensions.DependencyInjection;
+
+namespace FeederLocate.Web.Tests.Components;
+
+/// <summary>The incident page with the real services over a fresh SQLite file (registered before bUnit's own setup reads any).</summary>
+public sealed class WorkspaceAnalysisTests : BunitContext
+{
+    private readonly TempDatabase _database = new();
+    private readonly HeldRanker _ranker = new();
+    private readonly IncidentBoard _board;
+    private readonly GridCatalog _grids = new(RepositoryFiles.Path("sample-grid"), SampleGrids.FileName("solid"));
+
+    public WorkspaceAnalysisTests()
+    {
+        _board = new IncidentBoard(IncidentStore.Open(_database.Path));
+        Services.AddSingleton(_grids);
+        Services.AddSingleton(_board);
+        Services.AddSingleton(new IncidentAnalysis(new GridLearning(_board), _ranker));
+        Services.AddSingleton(TimeProvider.System);
+        var access = AddAuthorization();
+        access.SetAuthorized("ana");
+        access.SetRoles("operator");
+        access.SetClaims(new Claim(AccountClaims.EveryGrid, "true"));
+        SetRendererInfo(new Microsoft.AspNetCore.Components.RendererInfo("Server", isInteractive: true));
+        JSInterop.Mode = JSRuntimeMode.Loose;
+    }
+
+    [Fact]
+    public void The_incident_page_says_it_is_computing_until_the_ranking_is_ready_then_shows_it()
+    {
+        var id = _board.Open(_grids.Default!, new SwitchId("CB-A1"), FaultType.LG, new DateTimeOffset(2026, 11, 30, 6, 12, 0, TimeSpan.Zero), new Actor("ana", "operator"));
+
+        _ranker.Hold();
+        var cut = Render<IncidentWorkspace>(p => p.Add(c => c.Id, id.Value));
+        var busy = cut.Find("[data-testid=analysis-busy]");
+        _ranker.Release();
+
+        busy.MarkupMatches("""<p class="busy" role="status" data-testid="analysis-busy">Computing ranking…</p>""");
+        cut.WaitForAssertion(() => Assert.Empty(cut.FindAll("[data-testid=analysis-busy]")), TimeSpan.FromMinutes(1));
+        Assert.NotEmpty(cut.FindAll("li[data-section]"));
+    }
+
+    protected override void Dispose(bool disposing)
+    {
+        base.Dispose(disposing);
+        if (disposing)
+        {
+            _board.Dispose();
+            _ranker.Dispose();
+            _database.Dispose();
+        }
+    }
+}
