@@ -134,6 +134,11 @@ public sealed class IncidentStore : IDisposable
             CheckRetractions(incident, events);
         }
 
+        if (events.Any(e => e is MeasurementRecorded))
+        {
+            CheckMeasurementCount(incident, events);
+        }
+
         if (grid is not null && RadialEvidence.Concerns(events) && State(incident) is { } state
             && string.Equals(state.GridName, grid.Name, StringComparison.Ordinal))
         {
@@ -228,6 +233,12 @@ public sealed class IncidentStore : IDisposable
         var now = _clock.GetUtcNow();
         var id = EventTable.InsertIncident(_connection, transaction, gridName, incident.ReportedAt, now);
         EventTable.InsertEvent(_connection, transaction, id, 1, now, actor, new IncidentOpened(gridName, incident));
+        if (incident.Measurements.Length > EvidenceLimits.MaxMeasurementsPerIncident)
+        {
+            throw new EvidenceLimitException(id, "measurements",
+                $"holds {incident.Measurements.Length} records; at most {EvidenceLimits.MaxMeasurementsPerIncident} are accepted in one incident");
+        }
+
         return id;
     }
 
@@ -235,7 +246,7 @@ public sealed class IncidentStore : IDisposable
     {
         foreach (var e in events)
         {
-            CheckEvent(e);
+            CheckEvent(incident, e);
         }
 
         var head = EventTable.ReadHead(_connection, transaction, incident) ?? throw new UnknownIncidentException(incident, Path);
@@ -279,7 +290,29 @@ public sealed class IncidentStore : IDisposable
         }
     }
 
-    private static void CheckEvent(IncidentEvent e)
+    private static void CheckLength(IncidentId incident, string field, string? text, int maxChars)
+    {
+        if (text is not null && text.Length > maxChars)
+        {
+            throw new EvidenceLimitException(incident, field, $"holds {text.Length} characters; at most {maxChars} are accepted");
+        }
+    }
+
+    /// <summary>At most <see cref="EvidenceLimits.MaxMeasurementsPerIncident"/> devices with a substation measurement, however many posts bring them.</summary>
+    private void CheckMeasurementCount(IncidentId incident, IReadOnlyList<IncidentEvent> events)
+    {
+        var devices = State(incident).Incident.Measurements.Select(m => m.Device)
+            .Concat(events.OfType<MeasurementRecorded>().Select(m => m.Measurement.Device))
+            .Distinct()
+            .Count();
+        if (devices > EvidenceLimits.MaxMeasurementsPerIncident)
+        {
+            throw new EvidenceLimitException(incident, "measurements",
+                $"would hold {devices} devices' records; at most {EvidenceLimits.MaxMeasurementsPerIncident} are accepted in one incident");
+        }
+    }
+
+    private static void CheckEvent(IncidentId incident, IncidentEvent e)
     {
         ArgumentNullException.ThrowIfNull(e);
         switch (e)
@@ -292,9 +325,12 @@ public sealed class IncidentStore : IDisposable
                 break;
             case OutcomeLogged outcome:
                 ArgumentException.ThrowIfNullOrWhiteSpace(outcome.ConfirmedSegment.Value, nameof(outcome.ConfirmedSegment));
+                CheckLength(incident, "cause", outcome.Cause, EvidenceLimits.MaxCauseChars);
+                CheckLength(incident, "notes", outcome.Notes, EvidenceLimits.MaxNoteChars);
                 break;
             case OutcomeRetracted retraction:
                 ArgumentException.ThrowIfNullOrWhiteSpace(retraction.Reason, nameof(retraction.Reason));
+                CheckLength(incident, "reason", retraction.Reason, EvidenceLimits.MaxCauseChars);
                 break;
             case UnreadableEvent:
                 throw new ArgumentException("an unreadable event is never written", nameof(e));

@@ -10,11 +10,15 @@ namespace FeederLocate.Application.History;
 /// <summary>How the ranking did on one incident: where the confirmed section stood.</summary>
 public sealed record IncidentReview(IncidentSummary Summary, SectionId? ConfirmedSection, int? RankOfConfirmedSection);
 
-/// <summary>The history of a grid: incidents reviewed, indicator performance and faults per section.</summary>
+/// <summary>
+/// The history of a grid: incidents reviewed, indicator performance and faults per section, and the logged
+/// outcomes the learning skips (<see cref="GridLearning.Unusable"/>).
+/// </summary>
 public sealed record GridHistory(
     IReadOnlyList<IncidentReview> Incidents,
     IReadOnlyList<IndicatorReliability> Indicators,
-    IReadOnlyDictionary<SectionId, int> FaultsPerSection);
+    IReadOnlyDictionary<SectionId, int> FaultsPerSection,
+    IReadOnlyList<UnusableOutcome> Unusable);
 
 /// <summary>
 /// A grid's history from the incident log: each confirmed incident ranked as the ranking would have ranked it
@@ -45,6 +49,6 @@ public sealed class IncidentHistory(IncidentLog log, GridLearning learning, Inci
         var perSection = learning.ConfirmedIncidents(graph)
             .GroupBy(o => graph.Sections.OfSegment(grid.SegmentIndex(o.Segment)).Id)
             .ToDictionary(g => g.Key, g => g.Count());
-        return new GridHistory(reviews, [.. learning.Learned(graph).Indicators.Indicators], perSection);
+        return new GridHistory(reviews, [.. learning.Learned(graph).Indicators.Indicators], perSection, learning.Unusable(graph));
     }
 }

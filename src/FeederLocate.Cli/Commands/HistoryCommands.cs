@@ -69,6 +69,7 @@ internal static class HistoryCommands
             var learning = new GridLearning(log);
             var outcomes = learning.ConfirmedIncidents(graph);
             var learned = learning.Learned(graph);
+            var unusable = learning.Unusable(graph);
             var segments = learned.FaultRates.Segments.OrderByDescending(s => s.Faults).ThenByDescending(s => s.FaultsPerKmYear).ToList();
             var indicators = learned.Indicators.Indicators.OrderByDescending(i => i.FalseReportProbability + i.MissProbability).ToList();
             if (parse.GetValue(json))
@@ -77,6 +78,7 @@ internal static class HistoryCommands
                 {
                     grid = model.Name,
                     outcomes = outcomes.Count,
+                    notLearnedFrom = unusable.Select(u => new { incidentId = u.Incident.Value, confirmedSegment = u.ConfirmedSegment.Value, problem = u.Problem }),
                     observationYears = learned.FaultRates.ObservationYears,
                     segments = segments.Select(s => new { id = s.Segment.Value, faults = s.Faults, faultsPer100KmYear = s.FaultsPer100KmYear, expectedFaultsPerYear = s.ExpectedFaultsPerYear }),
                     indicators = indicators.Select(i => new
@@ -89,6 +91,11 @@ internal static class HistoryCommands
             }
 
             console.Out.WriteLine($"{model.Name}: {outcomes.Count} recorded outcomes over {learned.FaultRates.ObservationYears.ToString("F2", CultureInfo.InvariantCulture)} years");
+            foreach (var u in unusable)
+            {
+                console.Out.WriteLine($"not learned from: {u}");
+            }
+
             var seg = TableOutput.Table("segment", "faults", "learned faults/100 km·year", "expected faults/year");
             foreach (var s in segments.Take(15))
             {

@@ -59,7 +59,7 @@ internal static class PlanCommand
         var grid = InputFiles.LoadGrid(gridPath, console.Error);
         var incident = InputFiles.LoadIncident(incidentPath, grid, console.Error);
         var graph = new NetworkGraph(grid);
-        var ranked = EvidenceAnalysis.Rank(graph, incident, HistoryDatabase.PriorsFor(dbPath, graph));
+        var ranked = EvidenceAnalysis.Rank(graph, incident, HistoryDatabase.PriorsFor(dbPath, graph, console.Error));
         if (ranked.Result is not { } ranking)
         {
             throw new BadInputException($"error: {ranked.Problem}");

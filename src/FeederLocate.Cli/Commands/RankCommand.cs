@@ -29,7 +29,7 @@ internal static class RankCommand
         var grid = InputFiles.LoadGrid(gridPath, console.Error);
         var incident = InputFiles.LoadIncident(incidentPath, grid, console.Error);
         var graph = new Core.Topology.NetworkGraph(grid);
-        var ranking = EvidenceAnalysis.Rank(graph, incident, HistoryDatabase.PriorsFor(dbPath, graph));
+        var ranking = EvidenceAnalysis.Rank(graph, incident, HistoryDatabase.PriorsFor(dbPath, graph, console.Error));
         if (ranking.Result is not { } result)
         {
             throw new BadInputException($"error: {ranking.Problem}");
