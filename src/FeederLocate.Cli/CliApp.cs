@@ -28,6 +28,7 @@ public static class CliApp
             PlanCommand.Create(console),
             EvaluateCommand.Create(console),
             RecordCommand.Create(console),
+            RetractCommand.Create(console),
             SwitchesCommand.Create(console),
             GenerateCommand.Create(console),
             BenchCommand.Create(console),

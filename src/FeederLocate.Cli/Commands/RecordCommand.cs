@@ -11,7 +11,7 @@ namespace FeederLocate.Cli.Commands;
 internal static class RecordCommand
 {
     /// <summary>The environment variable holding an API token of the account named with --by.</summary>
-    public const string TokenVariable = "FEEDERLOCATE_TOKEN";
+    public const string TokenVariable = ProvenAccount.TokenVariable;
 
     public static Command Create(CliConsole console)
     {
@@ -56,40 +56,8 @@ internal static class RecordCommand
         return CliApp.Success;
     }
 
-    /// <summary>
-    /// Who the log names: the account given with --by, proven by one of its live API tokens (anyone at the
-    /// machine could type a name; only the account's holder has its token), else the machine's user.
-    /// </summary>
-    private static Actor Logger(string dbPath, string? by)
-    {
-        if (by is null)
-        {
-            return new Actor($"cli:{Environment.UserName}", "system");
-        }
-
-        if (!File.Exists(dbPath))
-        {
-            throw new BadInputException($"error: --by \"{by}\" must name an account of {dbPath}, which does not exist yet");
-        }
-
-        var secret = Environment.GetEnvironmentVariable(TokenVariable);
-        if (string.IsNullOrWhiteSpace(secret))
-        {
-            throw new BadInputException($"error: --by \"{by}\" needs one of that account's API tokens in the environment variable {TokenVariable} (an engineer issues tokens on the Accounts page)");
-        }
-
-        using var accounts = AccountStore.Open(dbPath);
-        if (accounts.Authenticate(secret.Trim()) is not { } proven || !string.Equals(proven.Account.Name, by, StringComparison.Ordinal))
-        {
-            throw new BadInputException($"error: the token in {TokenVariable} is not a live API token of account \"{by}\"");
-        }
-
-        return accounts.Find(by) switch
-        {
-            null => throw new BadInputException($"error: --by \"{by}\" is not an account of {dbPath}"),
-            { IsDisabled: true } => throw new BadInputException($"error: --by \"{by}\" is a disabled account"),
-            { Role: AccountRole.Viewer } => throw new BadInputException($"error: --by \"{by}\" is a viewer; logging outcomes needs an operator or engineer"),
-            var account => new Actor(account.Name, AccountRoles.Name(account.Role)),
-        };
-    }
+    /// <summary>Who the log names: the account given with --by, proven by its token (<see cref="ProvenAccount"/>), else the machine's user.</summary>
+    private static Actor Logger(string dbPath, string? by) => by is null
+        ? new Actor($"cli:{Environment.UserName}", "system")
+        : ProvenAccount.Of(dbPath, by, AccountRole.Operator, "logging outcomes");
 }

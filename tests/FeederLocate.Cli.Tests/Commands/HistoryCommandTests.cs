@@ -67,6 +67,77 @@ public sealed class HistoryCommandTests : IDisposable
     }
 
     [Fact]
+    public void Retract_withdraws_an_outcome_only_for_an_engineer_proven_by_a_token_and_the_learning_leaves_it_out()
+    {
+        string engineerToken, operatorToken;
+        using (var accounts = Storage.Accounts.AccountStore.Open(Db))
+        {
+            accounts.Create("eli", "Eli", Storage.Accounts.AccountRole.Engineer, "unused-hash", false, null, "admin");
+            accounts.Create("ana", "Ana Field", Storage.Accounts.AccountRole.Operator, "unused-hash", false, null, "admin");
+            engineerToken = accounts.IssueToken("eli", "desk", "admin").Secret;
+            operatorToken = accounts.IssueToken("ana", "laptop", "admin").Secret;
+        }
+
+        Assert.Equal(0, CliRun.Of("record", SampleGrids.Path("solid"), Incident("solid-lg-trip-a1.incident.json"), "--segment", "S109", "--db", Db).ExitCode);
+        string[] Retract(string by) => ["retract", "--db", Db, "--incident", "1", "--reason", "crew found the fault on S108", "--by", by, "--json"];
+        CliRun WithToken(string? token, string[] args)
+        {
+            Environment.SetEnvironmentVariable("FEEDERLOCATE_TOKEN", token);
+            try
+            {
+                return CliRun.Of(args);
+            }
+            finally
+            {
+                Environment.SetEnvironmentVariable("FEEDERLOCATE_TOKEN", null);
+            }
+        }
+
+        var noToken = WithToken(null, Retract("eli"));
+        var byOperator = WithToken(operatorToken, Retract("ana"));
+        var byEngineer = WithToken(engineerToken, Retract("eli"));
+        var again = WithToken(engineerToken, Retract("eli"));
+        var stats = CliRun.Of("stats", SampleGrids.Path("solid"), "--db", Db, "--json");
+        var missing = WithToken(engineerToken, ["retract", "--db", Db + ".typo", "--incident", "1", "--reason", "x", "--by", "eli"]);
+
+        Assert.Equal((2, 2, 0, 2, 2), (noToken.ExitCode, byOperator.ExitCode, byEngineer.ExitCode, again.ExitCode, missing.ExitCode));
+        Assert.Contains("--by \"ana\" is an operator; retracting an outcome needs an engineer", byOperator.Error, StringComparison.Ordinal);
+        Assert.Equal("S109", byEngineer.Json().GetProperty("retractedSegment").GetString());
+        Assert.Contains("nothing to retract", again.Error, StringComparison.Ordinal);
+        Assert.Equal(0, stats.Json().GetProperty("outcomes").GetInt32());
+        Assert.False(File.Exists(Db + ".typo"));
+        using var store = Storage.IncidentStore.Open(Db);
+        Assert.Equal(["incidentOpened", "outcomeLogged", "incidentClosed", "outcomeRetracted"], store.Events(new Storage.Incidents.IncidentId(1)).Select(e => e.Kind));
+        Assert.Equal(new Storage.Events.Actor("eli", "engineer"), store.Events(new Storage.Incidents.IncidentId(1))[^1].Actor);
+    }
+
+    [Fact]
+    public void An_outcome_logged_on_a_loop_before_loops_were_refused_is_named_and_rank_plan_and_stats_go_on()
+    {
+        var grid = SampleGrids.Grid("solid");
+        var evidence = Core.Formats.IncidentReader.Parse(File.ReadAllText(Incident("solid-lg-trip-a1.incident.json")), grid).ValueOrThrow();
+        using (var store = Storage.IncidentStore.Open(Db))
+        {
+            // Written without the grid, as the log was before such evidence was refused: NO-A1-A2 closes a loop.
+            var id = store.OpenIncident(grid.Name, evidence, new Storage.Events.Actor("old", "operator"));
+            store.Append(id, new Storage.Events.SwitchStateChanged(new Core.Model.SwitchId("NO-A1-A2"), Core.Evidence.SwitchPosition.Closed), new Storage.Events.Actor("old", "operator"));
+            store.Append(id, new Storage.Events.OutcomeLogged(new Core.Model.SegmentId("S109")), new Storage.Events.Actor("old", "operator"));
+        }
+
+        Assert.Equal(0, CliRun.Of("record", SampleGrids.Path("solid"), Incident("solid-lg-trip-a1.incident.json"), "--segment", "S108", "--db", Db).ExitCode);
+        var rank = CliRun.Of("rank", SampleGrids.Path("solid"), Incident("solid-lg-trip-a1.incident.json"), "--db", Db, "--json");
+        var plan = CliRun.Of("plan", SampleGrids.Path("solid"), Incident("solid-lg-trip-a1.incident.json"), "--db", Db, "--json");
+        var stats = CliRun.Of("stats", SampleGrids.Path("solid"), "--db", Db, "--json");
+
+        Assert.Equal((0, 0, 0), (rank.ExitCode, plan.ExitCode, stats.ExitCode));
+        Assert.Contains("warning: incident 1: outcome on S109 not learned from", rank.Error, StringComparison.Ordinal);
+        Assert.Contains("radial", rank.Error, StringComparison.Ordinal);
+        Assert.Equal(1, stats.Json().GetProperty("outcomes").GetInt32());
+        var skipped = stats.Json().GetProperty("notLearnedFrom").EnumerateArray().Single();
+        Assert.Equal((1, "S109"), (skipped.GetProperty("incidentId").GetInt64(), skipped.GetProperty("confirmedSegment").GetString()));
+    }
+
+    [Fact]
     public void Rank_with_the_database_uses_recorded_outcomes()
     {
         // Ten outcomes on S109 make its learned fault rate, and so its prior, higher than without history.
