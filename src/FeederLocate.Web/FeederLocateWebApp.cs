@@ -24,7 +24,7 @@ public static class FeederLocateWebApp
         builder.WebHost.UseStaticWebAssets();
         builder.Services.AddRazorComponents().AddInteractiveServerComponents();
         builder.Services.AddFeederLocate(builder.Configuration, builder.Environment.ContentRootPath);
-        builder.Services.AddOpenApi(o => o.AddDocumentTransformer<BearerTokenDocument>());
+        builder.Services.AddOpenApi(o => o.AddDocumentTransformer<BearerTokenDocument>().AddDocumentTransformer<EvidenceLimitsDocument>());
 
         var app = builder.Build();
         var options = app.Services.GetRequiredService<FeederLocateOptions>();

@@ -49,6 +49,8 @@ public static class ApiProblems
             BadHttpRequestException { StatusCode: StatusCodes.Status413PayloadTooLarge } =>
                 (StatusCodes.Status413PayloadTooLarge, "body too large", $"the body must be at most {IncidentApi.MaximumBodyBytes} bytes; nothing was saved"),
             BadHttpRequestException bad => (bad.StatusCode, "bad request", "the request could not be read; nothing was saved"),
+            BodyNotUtf8Exception notUtf8 => (StatusCodes.Status400BadRequest, "not UTF-8", notUtf8.Message),
+            EvidenceNotRadialException notRadial => (StatusCodes.Status422UnprocessableEntity, "not radial", notRadial.Message + "; nothing was saved"),
             IncidentStoreException refused => (StatusCodes.Status400BadRequest, "refused", refused.Message + "; nothing was saved"),
             DatabaseFileGoneException gone => (StatusCodes.Status503ServiceUnavailable, "not saved", gone.Message),
             SqliteException { SqliteErrorCode: SqliteFull } =>
