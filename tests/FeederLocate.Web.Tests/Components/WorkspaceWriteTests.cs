@@ -1,0 +1,122 @@
+using System.Security.Claims;
+using Bunit;
+using Bunit.TestDoubles;
+using FeederLocate.Storage.Incidents;
+using FeederLocate.Application.Analysis;
+using FeederLocate.Application.History;
+using FeederLocate.Core.Evidence;
+using FeederLocate.Core.Model;
+using FeederLocate.Storage;
+using FeederLocate.Storage.Events;
+using FeederLocate.Web.Components.Pages.Workspace;
+using FeederLocate.Web.Security;
+using FeederLocate.Web.Services;
+using Microsoft.Extensions.DependencyInjection;
+
+namespace FeederLocate.Web.Tests.Components;
+
+/// <summary>
+/// The incident page's writes: a refused or failed change is shown as not saved and the controls go back to what
+/// the log holds; an engineer retracts a wrong outcome. Real services over a fresh SQLite file.
+/// </summary>
+public sealed class WorkspaceWriteTests : BunitContext
+{
+    private static readonly DateTimeOffset Reported = new(2026, 11, 30, 6, 12, 0, TimeSpan.Zero);
+    private readonly TempDatabase _database = new();
+    private readonly IncidentBoard _board;
+    private readonly GridCatalog _grids = new(RepositoryFiles.Path("sample-grid"), SampleGrids.FileName("solid"));
+    private readonly BunitAuthorizationContext _access;
+
+    public WorkspaceWriteTests()
+    {
+        _board = new IncidentBoard(IncidentStore.Open(_database.Path), name => _grids.Find(name)?.Grid);
+        Services.AddSingleton(_grids);
+        Services.AddSingleton(_board);
+        Services.AddSingleton(new IncidentAnalysis(new GridLearning(_board), new CoreFaultRanker()));
+        Services.AddSingleton(TimeProvider.System);
+        _access = AddAuthorization();
+        _access.SetAuthorized("ana");
+        _access.SetRoles("operator");
+        _access.SetClaims(new Claim(AccountClaims.EveryGrid, "true"));
+        SetRendererInfo(new Microsoft.AspNetCore.Components.RendererInfo("Server", isInteractive: true));
+        JSInterop.Mode = JSRuntimeMode.Loose;
+    }
+
+    private IncidentId OpenIncident() =>
+        _board.Open(_grids.Default!, new SwitchId("CB-A1"), FaultType.LG, Reported, new Actor("ana", "operator"));
+
+    [Fact]
+    public void Closing_a_normally_open_tie_into_a_loop_is_refused_on_the_page_and_the_switch_stays_open()
+    {
+        var id = OpenIncident();
+        var cut = Render<IncidentWorkspace>(p => p.Add(c => c.Id, id.Value));
+        cut.WaitForAssertion(() => Assert.NotEmpty(cut.FindAll("li[data-section]")), TimeSpan.FromMinutes(1));
+
+        // NO-A1-A2 ties feeders A1 and A2 of the demo grid; both are fed, so closing it makes a loop.
+        cut.InvokeAsync(() => cut.Find("g[data-switch='NO-A1-A2']").Click());
+
+        cut.WaitForAssertion(() => Assert.Contains("radial", cut.Find("[data-testid=not-saved]").TextContent, StringComparison.Ordinal));
+        Assert.Contains("open", cut.Find("g[data-switch='NO-A1-A2']").ClassName, StringComparison.Ordinal);
+        Assert.Equal(["incidentOpened"], _board.Events(id).Select(e => e.Kind));
+    }
+
+    [Fact]
+    public void When_the_log_cannot_be_written_the_page_says_not_saved_and_the_control_shows_the_stored_state()
+    {
+        var id = OpenIncident();
+        var cut = Render<IncidentWorkspace>(p => p.Add(c => c.Id, id.Value));
+        cut.WaitForAssertion(() => Assert.NotEmpty(cut.FindAll("li[data-section]")), TimeSpan.FromMinutes(1));
+        File.Delete(_database.Path);
+
+        cut.InvokeAsync(() => cut.Find("select[data-testid='state-FPI-A1-04']").Change("fault"));
+
+        cut.WaitForAssertion(() => Assert.Contains("nothing more is saved", cut.Find("[data-testid=not-saved]").TextContent, StringComparison.Ordinal));
+        // What the page renders is the stored state (the browser's own select is checked in WritesInTheBrowserTests).
+        Assert.Equal("unknown", cut.Find("select[data-testid='state-FPI-A1-04']").GetAttribute("value"));
+        Assert.Equal(["incidentOpened"], _board.Events(id).Select(e => e.Kind));
+    }
+
+    [Fact]
+    public void An_operator_is_not_offered_the_retraction()
+    {
+        var id = OpenIncident();
+        _board.Record(id, new OutcomeLogged(new SegmentId("S109")), new Actor("ana", "operator"));
+
+        var cut = Render<IncidentWorkspace>(p => p.Add(c => c.Id, id.Value));
+
+        cut.WaitForAssertion(() => Assert.NotEmpty(cut.FindAll("[data-testid=logged-outcome]")), TimeSpan.FromMinutes(1));
+        Assert.Empty(cut.FindAll("[data-testid=retraction]"));
+    }
+
+    [Fact]
+    public void An_engineer_retracts_the_outcome_in_force_with_a_reason()
+    {
+        var id = OpenIncident();
+        _board.Record(id, new OutcomeLogged(new SegmentId("S109")), new Actor("ana", "operator"));
+        // An engineer's sign-in carries every role up to its own (AccountClaims.For).
+        _access.SetAuthorized("eli");
+        _access.SetRoles("viewer", "operator", "engineer");
+        _access.SetClaims(new Claim(AccountClaims.EveryGrid, "true"));
+
+        var cut = Render<IncidentWorkspace>(p => p.Add(c => c.Id, id.Value));
+        cut.WaitForAssertion(() => Assert.NotEmpty(cut.FindAll("[data-testid=retraction]")), TimeSpan.FromMinutes(1));
+        Assert.True(cut.Find("[data-testid=retract-outcome]").HasAttribute("disabled"));
+        cut.InvokeAsync(() => cut.Find("input[aria-label='reason for retracting']").Input("crew found the fault on S108"));
+        cut.InvokeAsync(() => cut.Find("[data-testid=retract-outcome]").Click());
+
+        cut.WaitForAssertion(() => Assert.Empty(cut.FindAll("[data-testid=logged-outcome]")));
+        Assert.Null(_board.State(id).Outcome);
+        var last = _board.Events(id)[^1];
+        Assert.Equal(("outcomeRetracted", "eli"), (last.Kind, last.Actor.Name));
+    }
+
+    protected override void Dispose(bool disposing)
+    {
+        base.Dispose(disposing);
+        if (disposing)
+        {
+            _board.Dispose();
+            _database.Dispose();
+        }
+    }
+}
