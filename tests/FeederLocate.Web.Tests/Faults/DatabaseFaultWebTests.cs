@@ -197,7 +197,7 @@ public sealed class DatabaseFaultWebTests : IDisposable
 
         public static void LimitPages(IncidentBoard board, bool grow)
         {
-            var store = (IncidentStore)typeof(IncidentBoard).GetField("_store", System.Reflection.BindingFlags.NonPublic | System.Reflection.BindingFlags.Instance)!.GetValue(board)!;
+            var store = (IncidentStore)typeof(Application.Incidents.IncidentLog).GetField("_store", System.Reflection.BindingFlags.NonPublic | System.Reflection.BindingFlags.Instance)!.GetValue(board)!;
             using var command = store.Connection.CreateCommand();
             command.CommandText = "PRAGMA page_count";
             var pages = Convert.ToInt64(command.ExecuteScalar(), System.Globalization.CultureInfo.InvariantCulture);
