@@ -69,7 +69,7 @@ public sealed class ApiProblemTests(ApiFixture app) : IClassFixture<ApiFixture>
 
         var answer = await app.Client.PostAsync($"/api/incidents?grid={Uri.EscapeDataString(ApiFixture.SolidGrid)}", Json(body));
 
-        var text = await AssertProblem(answer, HttpStatusCode.BadRequest);
+        var text = await AssertProblem(answer, HttpStatusCode.UnprocessableEntity);
         Assert.Contains("radial operation only", text, StringComparison.Ordinal);
         Assert.Contains("NO-A1-B1", text, StringComparison.Ordinal);
         Assert.Equal(before, (await app.Client.GetStringAsync("/api/incidents")).Length);
