@@ -2,6 +2,7 @@ using System.CommandLine;
 using FeederLocate.Cli.Commands;
 using FeederLocate.Cli.Input;
 using FeederLocate.Core.Formats;
+using FeederLocate.Storage.Errors;
 
 namespace FeederLocate.Cli;
 
@@ -27,6 +28,7 @@ public static class CliApp
             PlanCommand.Create(console),
             EvaluateCommand.Create(console),
             RecordCommand.Create(console),
+            RetractCommand.Create(console),
             SwitchesCommand.Create(console),
             GenerateCommand.Create(console),
             BenchCommand.Create(console),
@@ -60,6 +62,11 @@ public static class CliApp
                 error.WriteLine(line);
             }
 
+            return BadInput;
+        }
+        catch (Exception e) when (e is IncidentStoreException or DatabaseMissingException)
+        {
+            error.WriteLine($"error: {e.Message}");
             return BadInput;
         }
         catch (GridDataException e)

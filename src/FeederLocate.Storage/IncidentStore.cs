@@ -1,3 +1,4 @@
+using System.Collections.Immutable;
 using FeederLocate.Core.Evidence;
 using FeederLocate.Core.Model;
 using FeederLocate.Storage.Database;
@@ -20,10 +21,12 @@ public sealed class IncidentStore : IDisposable
     private readonly SqliteConnection _connection;
     private readonly TimeProvider _clock;
     private readonly IncidentCache _cache = new();
+    private readonly FileWatch _file;
 
     private IncidentStore(string path, SqliteConnection connection, TimeProvider clock, int schemaVersion)
     {
         Path = path;
+        _file = new FileWatch(path);
         _connection = connection;
         _clock = clock;
         SchemaVersion = schemaVersion;
@@ -45,11 +48,24 @@ public sealed class IncidentStore : IDisposable
     /// to date. <paramref name="clock"/> stamps the events (the system clock by default).
     /// Throws <see cref="SchemaVersionException"/> for a file written by a newer program.
     /// </summary>
-    public static IncidentStore Open(string path, TimeProvider? clock = null)
+    public static IncidentStore Open(string path, TimeProvider? clock = null) => Open(path, clock, create: true);
+
+    /// <summary>
+    /// Opens an existing database; throws <see cref="DatabaseMissingException"/>, creating nothing, when there is
+    /// no file at <paramref name="path"/> (commands that only read or check a database).
+    /// </summary>
+    public static IncidentStore OpenExisting(string path, TimeProvider? clock = null) => Open(path, clock, create: false);
+
+    private static IncidentStore Open(string path, TimeProvider? clock, bool create)
     {
         ArgumentException.ThrowIfNullOrWhiteSpace(path);
         clock ??= TimeProvider.System;
-        var connection = StoreConnection.Open(path);
+        if (!create && !File.Exists(path))
+        {
+            throw new DatabaseMissingException(path);
+        }
+
+        var connection = StoreConnection.Open(path, create);
         try
         {
             var version = SchemaMigrator.Migrate(connection, clock, path);
@@ -67,6 +83,21 @@ public sealed class IncidentStore : IDisposable
         Write(transaction => OpenIn(transaction, gridName, incident, actor));
 
     /// <summary>
+    /// Logs a new incident on <paramref name="grid"/>; switch states that give no radial network are refused
+    /// (<see cref="EvidenceNotRadialException"/>) and nothing is logged.
+    /// </summary>
+    public IncidentId OpenIncident(Grid grid, Incident incident, Actor actor)
+    {
+        ArgumentNullException.ThrowIfNull(grid);
+        return Write(transaction =>
+        {
+            var id = OpenIn(transaction, grid.Name, incident, actor);
+            RadialEvidence.Check(id, grid, incident);
+            return id;
+        });
+    }
+
+    /// <summary>
     /// Logs an incident with its confirmed fault location and closes it, all in one transaction: the
     /// <c>record</c> command. The outcome's segment must be in <paramref name="grid"/>.
     /// </summary>
@@ -77,6 +108,7 @@ public sealed class IncidentStore : IDisposable
         return Write(transaction =>
         {
             var id = OpenIn(transaction, grid.Name, incident, actor);
+            RadialEvidence.Check(id, grid, incident);
             AppendIn(transaction, id, [outcome, new IncidentClosed()], actor, grid);
             return id;
         });
@@ -89,13 +121,31 @@ public sealed class IncidentStore : IDisposable
     /// <summary>
     /// Appends events, in order, to an open incident in one transaction: all are logged or none.
     /// With <paramref name="grid"/> given, it must be the incident's grid and the events may name only its
-    /// elements (<see cref="IncidentGridMismatchException"/>). Throws <see cref="UnknownIncidentException"/>
+    /// elements (<see cref="IncidentGridMismatchException"/>), and switch states that close a loop or parallel two
+    /// substations, or an outcome on such states, are refused (<see cref="EvidenceNotRadialException"/>). Throws <see cref="UnknownIncidentException"/>
     /// for an id not logged and <see cref="IncidentClosedException"/> for a closed incident.
     /// </summary>
     public IReadOnlyList<StoredEvent> Append(IncidentId incident, IReadOnlyList<IncidentEvent> events, Actor actor, Grid? grid = null)
     {
         ArgumentNullException.ThrowIfNull(events);
         ArgumentNullException.ThrowIfNull(actor);
+        if (events.Any(e => e is OutcomeRetracted))
+        {
+            CheckRetractions(incident, events);
+        }
+
+        if (events.Any(e => e is MeasurementRecorded))
+        {
+            CheckMeasurementCount(incident, events);
+        }
+
+        if (grid is not null && RadialEvidence.Concerns(events) && State(incident) is { } state
+            && string.Equals(state.GridName, grid.Name, StringComparison.Ordinal))
+        {
+            GridReferences.Check(incident, state.GridName, grid, events);
+            RadialEvidence.Check(incident, grid, state.Incident, events);
+        }
+
         return Write(transaction => AppendIn(transaction, incident, events, actor, grid));
     }
 
@@ -132,8 +182,33 @@ public sealed class IncidentStore : IDisposable
     /// <summary>Writes a consistent copy of the database to <paramref name="destinationPath"/> while it stays in use.</summary>
     public void BackupTo(string destinationPath) => DatabaseChecks.Backup(_connection, Path, destinationPath);
 
-    /// <summary>Runs SQLite's integrity and foreign key checks on the file.</summary>
-    public IntegrityReport CheckIntegrity() => DatabaseChecks.Check(_connection);
+    /// <summary>Runs SQLite's integrity and foreign key checks on the file, and names every quarantined event.</summary>
+    public IntegrityReport CheckIntegrity()
+    {
+        var report = DatabaseChecks.Check(_connection);
+        return report with { Quarantined = QuarantinedSafely() };
+    }
+
+    /// <summary>SQLite's quick check of every page (seconds on a large file, not minutes): the start-up check.</summary>
+    public IntegrityReport QuickCheck() => DatabaseChecks.QuickCheck(_connection);
+
+    /// <summary>
+    /// Every logged event left out of its incident's state because it cannot be read or cannot apply where it
+    /// stands; a whole incident when its opening event cannot be read. The rest is served as usual.
+    /// </summary>
+    public IReadOnlyList<QuarantinedEvent> Quarantine() => _cache.Quarantine(_connection);
+
+    private ImmutableArray<QuarantinedEvent> QuarantinedSafely()
+    {
+        try
+        {
+            return [.. Quarantine()];
+        }
+        catch (SqliteException)
+        {
+            return [];
+        }
+    }
 
     public void Dispose() => _connection.Dispose();
 
@@ -143,6 +218,7 @@ public sealed class IncidentStore : IDisposable
     {
         // BeginTransaction() is BEGIN IMMEDIATE: the write lock is taken (waiting up to the busy timeout)
         // before anything is read, so the sequence number read below cannot be taken by another process.
+        _file.EnsureUnchanged();
         using var transaction = _connection.BeginTransaction();
         var result = change(transaction);
         transaction.Commit();
@@ -157,6 +233,12 @@ public sealed class IncidentStore : IDisposable
         var now = _clock.GetUtcNow();
         var id = EventTable.InsertIncident(_connection, transaction, gridName, incident.ReportedAt, now);
         EventTable.InsertEvent(_connection, transaction, id, 1, now, actor, new IncidentOpened(gridName, incident));
+        if (incident.Measurements.Length > EvidenceLimits.MaxMeasurementsPerIncident)
+        {
+            throw new EvidenceLimitException(id, "measurements",
+                $"holds {incident.Measurements.Length} records; at most {EvidenceLimits.MaxMeasurementsPerIncident} are accepted in one incident");
+        }
+
         return id;
     }
 
@@ -164,7 +246,7 @@ public sealed class IncidentStore : IDisposable
     {
         foreach (var e in events)
         {
-            CheckEvent(e);
+            CheckEvent(incident, e);
         }
 
         var head = EventTable.ReadHead(_connection, transaction, incident) ?? throw new UnknownIncidentException(incident, Path);
@@ -179,19 +261,58 @@ public sealed class IncidentStore : IDisposable
         var now = _clock.GetUtcNow();
         foreach (var e in events)
         {
-            if (closed)
+            if (closed && e is not OutcomeRetracted)
             {
                 throw new IncidentClosedException(incident, EventPayload.KindOf(e));
             }
 
             stored.Add(EventTable.InsertEvent(_connection, transaction, incident, ++sequence, now, actor, e));
-            closed = e is IncidentClosed;
+            closed |= e is IncidentClosed;
         }
 
         return stored;
     }
 
-    private static void CheckEvent(IncidentEvent e)
+    /// <summary>A retraction needs an outcome in force where it stands: the one logged, or one earlier in the batch.</summary>
+    private void CheckRetractions(IncidentId incident, IReadOnlyList<IncidentEvent> events)
+    {
+        var inForce = State(incident).Outcome is not null;
+        foreach (var e in events)
+        {
+            if (e is OutcomeRetracted)
+            {
+                inForce = inForce ? false : throw new OutcomeNotLoggedException(incident);
+            }
+            else if (e is OutcomeLogged)
+            {
+                inForce = true;
+            }
+        }
+    }
+
+    private static void CheckLength(IncidentId incident, string field, string? text, int maxChars)
+    {
+        if (text is not null && text.Length > maxChars)
+        {
+            throw new EvidenceLimitException(incident, field, $"holds {text.Length} characters; at most {maxChars} are accepted");
+        }
+    }
+
+    /// <summary>At most <see cref="EvidenceLimits.MaxMeasurementsPerIncident"/> devices with a substation measurement, however many posts bring them.</summary>
+    private void CheckMeasurementCount(IncidentId incident, IReadOnlyList<IncidentEvent> events)
+    {
+        var devices = State(incident).Incident.Measurements.Select(m => m.Device)
+            .Concat(events.OfType<MeasurementRecorded>().Select(m => m.Measurement.Device))
+            .Distinct()
+            .Count();
+        if (devices > EvidenceLimits.MaxMeasurementsPerIncident)
+        {
+            throw new EvidenceLimitException(incident, "measurements",
+                $"would hold {devices} devices' records; at most {EvidenceLimits.MaxMeasurementsPerIncident} are accepted in one incident");
+        }
+    }
+
+    private static void CheckEvent(IncidentId incident, IncidentEvent e)
     {
         ArgumentNullException.ThrowIfNull(e);
         switch (e)
@@ -204,7 +325,15 @@ public sealed class IncidentStore : IDisposable
                 break;
             case OutcomeLogged outcome:
                 ArgumentException.ThrowIfNullOrWhiteSpace(outcome.ConfirmedSegment.Value, nameof(outcome.ConfirmedSegment));
+                CheckLength(incident, "cause", outcome.Cause, EvidenceLimits.MaxCauseChars);
+                CheckLength(incident, "notes", outcome.Notes, EvidenceLimits.MaxNoteChars);
                 break;
+            case OutcomeRetracted retraction:
+                ArgumentException.ThrowIfNullOrWhiteSpace(retraction.Reason, nameof(retraction.Reason));
+                CheckLength(incident, "reason", retraction.Reason, EvidenceLimits.MaxCauseChars);
+                break;
+            case UnreadableEvent:
+                throw new ArgumentException("an unreadable event is never written", nameof(e));
         }
     }
 }

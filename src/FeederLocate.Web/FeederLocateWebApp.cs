@@ -1,3 +1,4 @@
+using FeederLocate.Storage.Maintenance;
 using FeederLocate.Web.Api;
 using FeederLocate.Web.Components;
 using FeederLocate.Web.Security;
@@ -23,15 +24,21 @@ public static class FeederLocateWebApp
         builder.WebHost.UseStaticWebAssets();
         builder.Services.AddRazorComponents().AddInteractiveServerComponents();
         builder.Services.AddFeederLocate(builder.Configuration, builder.Environment.ContentRootPath);
-        builder.Services.AddOpenApi(o => o.AddDocumentTransformer<BearerTokenDocument>());
+        builder.Services.AddOpenApi(o => o.AddDocumentTransformer<BearerTokenDocument>().AddDocumentTransformer<EvidenceLimitsDocument>());
 
         var app = builder.Build();
+        var options = app.Services.GetRequiredService<FeederLocateOptions>();
+        CheckDatabaseAtStart(app.Services);
+
+        app.UseForwardedHeaders(ProxyHeaders.Options(options.TrustedProxies));
+        app.UseSecurityHeaders();
         if (!app.Environment.IsDevelopment())
         {
             app.UseExceptionHandler("/Error", createScopeForErrors: true);
         }
 
         app.UseStatusCodePagesWithReExecute("/not-found", createScopeForStatusCodePages: true);
+        app.UseApiProblems();
         app.UseStaticFiles();
         app.UseAuthentication();
         app.UseAuthorization();
@@ -42,7 +49,6 @@ public static class FeederLocateWebApp
         app.MapIncidentApi();
         app.MapOpenApi().AllowAnonymous();
 
-        var options = app.Services.GetRequiredService<FeederLocateOptions>();
         var accounts = app.Services.GetRequiredService<AccountDirectory>();
         if (options.ResetAdministrator)
         {
@@ -56,5 +62,39 @@ public static class FeederLocateWebApp
         app.Lifetime.ApplicationStarted.Register(() =>
             Console.WriteLine($"FeederLocate is running at {string.Join(", ", app.Urls)} (advice only: verify on site; local switching rules govern)"));
         return app;
+    }
+
+    /// <summary>
+    /// Before serving: the database is claimed for this app alone (<see cref="InstanceLock"/>), and SQLite's quick
+    /// check reads every page. A damaged file is refused with <see cref="DatabaseDamagedException"/>; events that
+    /// cannot be read are only named (they are quarantined, the rest is served).
+    /// </summary>
+    private const int SqliteCorrupt = 11;      // SQLITE_CORRUPT, sqlite.org/rescode.html
+    private const int SqliteNotADatabase = 26; // SQLITE_NOTADB
+
+    private static void CheckDatabaseAtStart(IServiceProvider services)
+    {
+        services.GetRequiredService<InstanceLock>();
+        IncidentBoard board;
+        IntegrityReport report;
+        try
+        {
+            board = services.GetRequiredService<IncidentBoard>();
+            report = board.QuickCheck();
+        }
+        catch (Microsoft.Data.Sqlite.SqliteException e) when (e.SqliteErrorCode is SqliteCorrupt or SqliteNotADatabase)
+        {
+            throw new DatabaseDamagedException(services.GetRequiredService<FeederLocateOptions>().DatabasePath, new IntegrityReport([e.Message]));
+        }
+
+        if (!report.Problems.IsEmpty)
+        {
+            throw new DatabaseDamagedException(board.DatabasePath, report);
+        }
+
+        foreach (var quarantined in report.Quarantined)
+        {
+            Console.Error.WriteLine($"warning: {quarantined}");
+        }
     }
 }

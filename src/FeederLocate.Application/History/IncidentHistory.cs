@@ -10,11 +10,15 @@ namespace FeederLocate.Application.History;
 /// <summary>How the ranking did on one incident: where the confirmed section stood.</summary>
 public sealed record IncidentReview(IncidentSummary Summary, SectionId? ConfirmedSection, int? RankOfConfirmedSection);
 
-/// <summary>The history of a grid: incidents reviewed, indicator performance and faults per section.</summary>
+/// <summary>
+/// The history of a grid: incidents reviewed, indicator performance and faults per section, and the logged
+/// outcomes the learning skips (<see cref="GridLearning.Unusable"/>).
+/// </summary>
 public sealed record GridHistory(
     IReadOnlyList<IncidentReview> Incidents,
     IReadOnlyList<IndicatorReliability> Indicators,
-    IReadOnlyDictionary<SectionId, int> FaultsPerSection)
+    IReadOnlyDictionary<SectionId, int> FaultsPerSection,
+    IReadOnlyList<UnusableOutcome> Unusable)
 {
     /// <summary>Everything learned from the grid's history: chosen prior strengths, skipped outcomes.</summary>
     public LearnedPriors? Learned { get; init; }
@@ -50,6 +54,6 @@ public sealed class IncidentHistory(IncidentLog log, GridLearning learning, Inci
             .GroupBy(o => graph.Sections.OfSegment(grid.SegmentIndex(o.Segment)).Id)
             .ToDictionary(g => g.Key, g => g.Count());
         var learned = learning.Learned(graph);
-        return new GridHistory(reviews, [.. learned.Indicators.Indicators], perSection) { Learned = learned };
+        return new GridHistory(reviews, [.. learned.Indicators.Indicators], perSection, learning.Unusable(graph)) { Learned = learned };
     }
 }

@@ -15,12 +15,36 @@ namespace FeederLocate.Application.Incidents;
 public class IncidentLog : IDisposable
 {
     private readonly IncidentStore _store;
+    private readonly Func<string, Grid?> _gridNamed;
     private readonly Lock _gate = new();
 
-    public IncidentLog(IncidentStore store)
+    /// <param name="gridNamed">The loaded grid of a name, if any: every change is checked against it (its elements, radial switch states).</param>
+    public IncidentLog(IncidentStore store, Func<string, Grid?>? gridNamed = null)
     {
         ArgumentNullException.ThrowIfNull(store);
         _store = store;
+        _gridNamed = gridNamed ?? (_ => null);
+    }
+
+    /// <summary>The database file.</summary>
+    public string DatabasePath => _store.Path;
+
+    /// <summary>Every logged event left out of its incident's state (see <see cref="IncidentStore.Quarantine"/>).</summary>
+    public IReadOnlyList<QuarantinedEvent> Quarantine()
+    {
+        lock (_gate)
+        {
+            return _store.Quarantine();
+        }
+    }
+
+    /// <summary>SQLite's quick check of every page, and the quarantined events.</summary>
+    public Storage.Maintenance.IntegrityReport QuickCheck()
+    {
+        lock (_gate)
+        {
+            return _store.QuickCheck() with { Quarantined = [.. _store.Quarantine()] };
+        }
     }
 
     /// <summary>Raised after an incident changed, with its id.</summary>
@@ -61,14 +85,14 @@ public class IncidentLog : IDisposable
         }
     }
 
-    /// <summary>Opens an incident as given in the incident format.</summary>
+    /// <summary>Opens an incident as given in the incident format; switch states that give no radial network are refused.</summary>
     public IncidentId Open(Grid grid, Incident incident, Actor actor)
     {
         ArgumentNullException.ThrowIfNull(grid);
         IncidentId id;
         lock (_gate)
         {
-            id = _store.OpenIncident(grid.Name, incident, actor);
+            id = _store.OpenIncident(grid, incident, actor);
         }
 
         Changed?.Invoke(id);
@@ -95,12 +119,15 @@ public class IncidentLog : IDisposable
     /// <summary>Appends one change; see <see cref="AppendAll"/>.</summary>
     public void Append(IncidentId id, IncidentEvent change, Actor actor, Grid? grid = null) => AppendAll(id, [change], actor, grid);
 
-    /// <summary>Appends every change in one transaction (all or none), checked against the grid when given.</summary>
+    /// <summary>
+    /// Appends every change in one transaction (all or none), checked against the grid given or else the loaded
+    /// grid of the incident's name: its elements, and switch states that give a radial network.
+    /// </summary>
     public void AppendAll(IncidentId id, IReadOnlyList<IncidentEvent> changes, Actor actor, Grid? grid = null)
     {
         lock (_gate)
         {
-            _store.Append(id, changes, actor, grid);
+            _store.Append(id, changes, actor, grid ?? _gridNamed(_store.State(id).GridName));
         }
 
         Changed?.Invoke(id);

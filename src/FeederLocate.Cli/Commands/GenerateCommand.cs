@@ -29,9 +29,9 @@ internal static class GenerateCommand
     private static int Run(CliConsole console, int segments, int seed, string schemeText, double share, int substations, string? output)
     {
         var problems = new List<string>();
-        if (segments < 1)
+        if (segments is < 1 or > InputLimits.MaxGeneratedSegments)
         {
-            problems.Add($"error: --segments must be >= 1, got {segments}");
+            problems.Add($"error: --segments must be between 1 and {InputLimits.MaxGeneratedSegments}, got {segments}");
         }
 
         if (!GridFormat.Schemes.TryGetValue(schemeText, out var scheme))

@@ -32,7 +32,7 @@ internal static class HistoryCommands
         var command = new Command("history", "List the incidents in the history database") { db, json };
         command.SetAction(parse =>
         {
-            using var log = HistoryDatabase.OpenLog(parse.GetValue(db)!);
+            using var log = HistoryDatabase.OpenExistingLog(parse.GetValue(db)!);
             var incidents = log.List().OrderBy(i => i.Id.Value).ToList();
             if (parse.GetValue(json))
             {
@@ -66,11 +66,12 @@ internal static class HistoryCommands
         command.SetAction(parse =>
         {
             var model = InputFiles.LoadGrid(parse.GetValue(grid)!, console.Error);
-            using var log = HistoryDatabase.OpenLog(parse.GetValue(db)!);
+            using var log = HistoryDatabase.OpenExistingLog(parse.GetValue(db)!);
             var graph = new NetworkGraph(model);
             var learning = new GridLearning(log);
             var outcomes = learning.OutcomesForLearning(graph);
             var learned = learning.Learned(graph);
+            var unusable = learning.Unusable(graph);
             var segments = learned.FaultRates.Segments.OrderByDescending(s => s.Faults).ThenByDescending(s => s.FaultsPerKmYear).ToList();
             var indicators = learned.Indicators.Indicators.OrderByDescending(i => i.FalseReportProbability + i.MissProbability).ToList();
             if (parse.GetValue(json))
@@ -79,6 +80,7 @@ internal static class HistoryCommands
                 {
                     grid = model.Name,
                     outcomes = outcomes.Count,
+                    notLearnedFrom = unusable.Select(u => new { incidentId = u.Incident.Value, confirmedSegment = u.ConfirmedSegment.Value, problem = u.Problem }),
                     observationYears = learned.FaultRates.ObservationYears,
                     lineTypes = learned.FaultRates.LineTypes.Select(t => new
                     {
@@ -140,6 +142,10 @@ internal static class HistoryCommands
             }
 
             TableOutput.Write(console.Out, kinds);
+            foreach (var u in unusable)
+            {
+                console.Out.WriteLine($"not learned from: {u}");
+            }
             var seg = TableOutput.Table("segment", "faults", "learned faults/100 km·year", "expected faults/year");
             foreach (var s in segments.Take(15))
             {
@@ -195,7 +201,7 @@ internal static class HistoryCommands
         var command = new Command("export", "Export incidents or indicator statistics as CSV") { db, what, grid, output };
         command.SetAction(parse =>
         {
-            using var log = HistoryDatabase.OpenLog(parse.GetValue(db)!);
+            using var log = HistoryDatabase.OpenExistingLog(parse.GetValue(db)!);
             var text = new StringWriter(CultureInfo.InvariantCulture);
             switch (parse.GetValue(what))
             {
@@ -233,7 +239,7 @@ internal static class HistoryCommands
         var command = new Command("backup", "Copy the history database online to a file (SQLite online backup)") { db, output };
         command.SetAction(parse =>
         {
-            using var store = HistoryDatabase.Open(parse.GetValue(db)!);
+            using var store = ExistingDatabase.Open(parse.GetValue(db)!);
             store.BackupTo(parse.GetValue(output)!);
             console.Out.WriteLine($"backed up {parse.GetValue(db)} to {parse.GetValue(output)}");
             return CliApp.Success;
@@ -248,7 +254,7 @@ internal static class HistoryCommands
         var command = new Command("integrity", "Check the history database's integrity (exit 1 when it fails)") { db, json };
         command.SetAction(parse =>
         {
-            using var store = HistoryDatabase.Open(parse.GetValue(db)!);
+            using var store = ExistingDatabase.Open(parse.GetValue(db)!);
             var report = store.CheckIntegrity();
             if (parse.GetValue(json))
             {

@@ -68,7 +68,7 @@ internal static class PlanCommand
         var incident = InputFiles.LoadIncident(incidentPath, grid, console.Error);
         InputFiles.CheckGridReference(incident, incidentPath, gridPath);
         var graph = new NetworkGraph(grid);
-        var ranked = EvidenceAnalysis.Rank(graph, incident, HistoryDatabase.PriorsFor(dbPath, graph));
+        var ranked = EvidenceAnalysis.Rank(graph, incident, HistoryDatabase.PriorsFor(dbPath, graph, console.Error));
         if (ranked.Result is not { } ranking)
         {
             throw new BadInputException($"error: {ranked.Problem}");

@@ -30,7 +30,7 @@ internal static class RankCommand
         var incident = InputFiles.LoadIncident(incidentPath, grid, console.Error);
         InputFiles.CheckGridReference(incident, incidentPath, gridPath);
         var graph = new Core.Topology.NetworkGraph(grid);
-        var ranking = EvidenceAnalysis.Rank(graph, incident, HistoryDatabase.PriorsFor(dbPath, graph));
+        var ranking = EvidenceAnalysis.Rank(graph, incident, HistoryDatabase.PriorsFor(dbPath, graph, console.Error));
         if (ranking.Result is not { } result)
         {
             throw new BadInputException($"error: {ranking.Problem}");

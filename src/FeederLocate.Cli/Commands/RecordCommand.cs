@@ -10,6 +10,9 @@ namespace FeederLocate.Cli.Commands;
 /// <summary><c>record GRID INCIDENT --segment ID --db FILE</c>: logs an incident with its confirmed fault location.</summary>
 internal static class RecordCommand
 {
+    /// <summary>The environment variable holding an API token of the account named with --by.</summary>
+    public const string TokenVariable = ProvenAccount.TokenVariable;
+
     public static Command Create(CliConsole console)
     {
         var grid = CliOptions.Grid();
@@ -19,7 +22,8 @@ internal static class RecordCommand
         var db = CliOptions.Database(required: true);
         var by = new Option<string?>("--by")
         {
-            Description = "The account logging it (an enabled operator or engineer of the database); default: the machine's user, as cli:NAME",
+            Description = "The account logging it (an enabled operator or engineer of the database), proven by one of its API tokens in the "
+                + $"environment variable {TokenVariable}; default: the machine's user, as cli:NAME",
         };
         var json = CliOptions.Json();
         var command = new Command("record", "Log an incident and where its fault was confirmed, so the next ranking learns") { grid, incident, segment, cause, db, by, json };
@@ -52,26 +56,8 @@ internal static class RecordCommand
         return CliApp.Success;
     }
 
-    /// <summary>Who the log names: the account given with --by (checked against the database's accounts), else the machine's user.</summary>
-    private static Actor Logger(string dbPath, string? by)
-    {
-        if (by is null)
-        {
-            return new Actor($"cli:{Environment.UserName}", "system");
-        }
-
-        if (!File.Exists(dbPath))
-        {
-            throw new BadInputException($"error: --by \"{by}\" must name an account of {dbPath}, which does not exist yet");
-        }
-
-        using var accounts = AccountStore.Open(dbPath);
-        return accounts.Find(by) switch
-        {
-            null => throw new BadInputException($"error: --by \"{by}\" is not an account of {dbPath}"),
-            { IsDisabled: true } => throw new BadInputException($"error: --by \"{by}\" is a disabled account"),
-            { Role: AccountRole.Viewer } => throw new BadInputException($"error: --by \"{by}\" is a viewer; logging outcomes needs an operator or engineer"),
-            var account => new Actor(account.Name, AccountRoles.Name(account.Role)),
-        };
-    }
+    /// <summary>Who the log names: the account given with --by, proven by its token (<see cref="ProvenAccount"/>), else the machine's user.</summary>
+    private static Actor Logger(string dbPath, string? by) => by is null
+        ? new Actor($"cli:{Environment.UserName}", "system")
+        : ProvenAccount.Of(dbPath, by, AccountRole.Operator, "logging outcomes");
 }

@@ -26,15 +26,29 @@ public static class HistoryDatabase
     /// <summary>The incident log of the database (closed with it).</summary>
     public static IncidentLog OpenLog(string path) => new(Open(path));
 
-    /// <summary>The ranking's priors learned from the outcomes of the grid in the database; none without a database.</summary>
-    public static RankingPriors PriorsFor(string? path, NetworkGraph graph)
+    /// <summary>The incident log of a database that must exist: a mistyped path is bad input and creates nothing.</summary>
+    public static IncidentLog OpenExistingLog(string path) => new(ExistingDatabase.Open(path));
+
+    /// <summary>
+    /// The ranking's priors learned from the outcomes of the grid in the database; none without a database. Each
+    /// outcome the learning skips is named on <paramref name="warnings"/> (the ranking goes on without it).
+    /// </summary>
+    public static RankingPriors PriorsFor(string? path, NetworkGraph graph, TextWriter warnings)
     {
+        ArgumentNullException.ThrowIfNull(warnings);
         if (path is null)
         {
             return RankingPriors.None;
         }
 
-        using var log = OpenLog(path);
-        return new GridLearning(log).Priors(graph);
+        using var log = OpenExistingLog(path);
+        var learning = new GridLearning(log);
+        var priors = learning.Priors(graph);
+        foreach (var unusable in learning.Unusable(graph))
+        {
+            warnings.WriteLine($"warning: {unusable}");
+        }
+
+        return priors;
     }
 }

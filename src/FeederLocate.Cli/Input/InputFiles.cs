@@ -1,3 +1,4 @@
+using System.Text;
 using FeederLocate.Core.Evidence;
 using FeederLocate.Core.Formats;
 using FeederLocate.Core.Model;
@@ -7,15 +8,46 @@ namespace FeederLocate.Cli.Input;
 /// <summary>Reads grid and incident files from disk: the I/O edge in front of the core's readers.</summary>
 public static class InputFiles
 {
+    private static readonly UTF8Encoding StrictUtf8 = new(encoderShouldEmitUTF8Identifier: false, throwOnInvalidBytes: true);
+
+    /// <summary>
+    /// Reads a text file of at most <see cref="InputLimits.MaxFileBytes"/> (a device such as /dev/zero included:
+    /// reading stops at the limit) that must be valid UTF-8; anything else is bad input, named with the file.
+    /// </summary>
     public static string ReadText(string path, string what)
     {
+        byte[] bytes;
         try
         {
-            return File.ReadAllText(path);
+            using var stream = new FileStream(path, FileMode.Open, FileAccess.Read, FileShare.ReadWrite);
+            using var memory = new MemoryStream();
+            var buffer = new byte[81920];
+            int read;
+            while ((read = stream.Read(buffer)) > 0)
+            {
+                if (memory.Length + read > InputLimits.MaxFileBytes)
+                {
+                    throw new BadInputException($"error: {what} file '{path}' is larger than {InputLimits.MaxFileBytes / (1024 * 1024)} MB, the most this program reads");
+                }
+
+                memory.Write(buffer, 0, read);
+            }
+
+            bytes = memory.ToArray();
         }
         catch (Exception e) when (e is IOException or UnauthorizedAccessException or ArgumentException or NotSupportedException)
         {
             throw new BadInputException($"error: cannot read {what} file '{path}': {e.Message}");
+        }
+
+        try
+        {
+            var start = bytes.AsSpan().StartsWith(StrictUtf8.Preamble) ? StrictUtf8.Preamble.Length : 0;
+            return StrictUtf8.GetString(bytes, start, bytes.Length - start);
+        }
+        catch (DecoderFallbackException e)
+        {
+            throw new BadInputException($"error: {what} file '{path}' is not valid UTF-8 (at byte {e.Index}): nothing was read");
         }
     }
 

@@ -145,7 +145,13 @@ public static class IncidentReader
         if (DateTimeOffset.TryParse(text, CultureInfo.InvariantCulture, DateTimeStyles.AssumeUniversal | DateTimeStyles.AdjustToUniversal, out var time)
             && text.Contains('T', StringComparison.Ordinal))
         {
-            return time;
+            if (EvidenceLimits.IsAcceptedTime(time))
+            {
+                return time;
+            }
+
+            reader.Error(field, $"{EvidenceLimits.TimeRange}, got \"{text}\"");
+            return null;
         }
 
         reader.Error(field, $"must be an ISO 8601 date and time such as 2026-11-30T06:12:00Z, got \"{text}\"");
@@ -223,6 +229,14 @@ public static class IncidentReader
     private static ImmutableArray<SubstationMeasurement> MeasurementItems(IEnumerable<JsonElement> array, Grid? grid, IssueLog log)
     {
         var measurements = ImmutableArray.CreateBuilder<SubstationMeasurement>();
+        var count = array.Count();
+        if (count > EvidenceLimits.MaxMeasurementsPerIncident)
+        {
+            log.Error("incident", "file", "measurements", $"holds {count} records; at most {EvidenceLimits.MaxMeasurementsPerIncident} are accepted");
+            return measurements.ToImmutable();
+        }
+
+        var devices = new HashSet<string>(StringComparer.Ordinal);
         var index = 0;
         foreach (var item in array)
         {
@@ -241,6 +255,11 @@ public static class IncidentReader
             if (device is not null && grid is not null && !grid.HasSwitch(measurement.Device))
             {
                 r.Error("device", $"refers to unknown switch \"{device}\"");
+            }
+
+            if (device is not null && !devices.Add(device))
+            {
+                r.Error("device", "is listed more than once; give one record per device");
             }
 
             measurements.Add(measurement);

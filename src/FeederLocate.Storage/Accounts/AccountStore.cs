@@ -17,12 +17,14 @@ public sealed class AccountStore : IDisposable
 {
     private readonly SqliteConnection _connection;
     private readonly TimeProvider _clock;
+    private readonly FileWatch _file;
     private SqliteTransaction? _transaction;
 
-    private AccountStore(SqliteConnection connection, TimeProvider clock)
+    private AccountStore(SqliteConnection connection, TimeProvider clock, string path)
     {
         _connection = connection;
         _clock = clock;
+        _file = new FileWatch(path);
     }
 
     /// <summary>Opens (creating if absent) the database at <paramref name="path"/> and brings its schema up to date.</summary>
@@ -34,7 +36,7 @@ public sealed class AccountStore : IDisposable
         try
         {
             SchemaMigrator.Migrate(connection, clock, path);
-            return new AccountStore(connection, clock);
+            return new AccountStore(connection, clock, path);
         }
         catch
         {
@@ -120,6 +122,10 @@ public sealed class AccountStore : IDisposable
         var json = GridsJson(grids);
         return Change(name, by, "set grids", json as string ?? "every grid", "grids = $grids", p => p.AddWithValue("$grids", json));
     }
+
+    /// <summary>Gives the account a new security stamp and nothing else: every open session of it ends (signing out).</summary>
+    public Account EndSessions(string name, string by) =>
+        Change(name, by, "end sessions", null, "failed_sign_ins = failed_sign_ins", _ => { });
 
     public Account Disable(string name, string by) =>
         Change(name, by, "disable", null, "disabled_at = $now", p => p.AddWithValue("$now", IsoTime.Format(_clock.GetUtcNow())));
@@ -316,6 +322,7 @@ public sealed class AccountStore : IDisposable
 
     private T Write<T>(Func<SqliteTransaction, T> change)
     {
+        _file.EnsureUnchanged();
         using var transaction = _connection.BeginTransaction();
         _transaction = transaction;
         try

@@ -99,6 +99,10 @@ internal static class EventTable
         return ReadAll(command);
     }
 
+    /// <summary>
+    /// Reads the rows; a row that cannot be read back becomes an <see cref="UnreadableEvent"/> in its place,
+    /// so one damaged event never hides the others.
+    /// </summary>
     private static List<StoredEvent> ReadAll(SqliteCommand command)
     {
         var events = new List<StoredEvent>();
@@ -106,20 +110,31 @@ internal static class EventTable
         while (reader.Read())
         {
             var id = new EventId(reader.GetInt64(0));
-            var timeText = reader.GetString(3);
+            var incident = new IncidentId(reader.GetInt64(1));
+            var sequence = reader.GetInt32(2);
+            var kind = reader.IsDBNull(6) ? "(none)" : reader.GetString(6);
+            var actor = new Actor(
+                reader.IsDBNull(4) ? "(unknown)" : reader.GetString(4),
+                reader.IsDBNull(5) ? null : reader.GetString(5));
+            var timeText = reader.IsDBNull(3) ? string.Empty : reader.GetString(3);
             if (!IsoTime.TryParse(timeText, out var time))
             {
-                throw new CorruptEventException(id, $"has time \"{timeText}\" that is not an ISO 8601 time");
+                events.Add(new StoredEvent(id, incident, sequence, DateTimeOffset.UnixEpoch, actor,
+                    new UnreadableEvent(kind, $"has time \"{timeText}\" that is not an ISO 8601 time")));
+                continue;
             }
 
-            var actor = new Actor(reader.GetString(4), reader.IsDBNull(5) ? null : reader.GetString(5));
-            events.Add(new StoredEvent(
-                id,
-                new IncidentId(reader.GetInt64(1)),
-                reader.GetInt32(2),
-                time,
-                actor,
-                EventPayload.Deserialize(id, reader.GetString(6), reader.GetString(7))));
+            IncidentEvent e;
+            try
+            {
+                e = EventPayload.Deserialize(id, kind, reader.IsDBNull(7) ? string.Empty : reader.GetString(7));
+            }
+            catch (CorruptEventException problem)
+            {
+                e = new UnreadableEvent(kind, problem.Problem);
+            }
+
+            events.Add(new StoredEvent(id, incident, sequence, time, actor, e));
         }
 
         return events;

@@ -7,4 +7,7 @@ public sealed class CorruptEventException(EventId eventId, string problem, Excep
     : Exception($"event {eventId} {problem}", inner)
 {
     public EventId EventId { get; } = eventId;
+
+    /// <summary>What is wrong, without the event's id, for instance <c>has unknown kind "x"</c>.</summary>
+    public string Problem { get; } = problem;
 }

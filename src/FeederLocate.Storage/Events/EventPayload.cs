@@ -24,6 +24,7 @@ internal static class EventPayload
     // The stored kind keeps the name it was first written under, so older logs still read.
     public const string TripAmendedKind = "substationRecordAmended";
     public const string ProtectionRecordedKind = "protectionRecorded";
+    public const string OutcomeRetractedKind = "outcomeRetracted";
 
     // Required constructor parameters and nullable annotations are enforced, so a payload missing a
     // non-optional field fails to read instead of yielding nulls; optional fields have defaults.
@@ -46,6 +47,8 @@ internal static class EventPayload
         IncidentClosed => IncidentClosedKind,
         TripAmended => TripAmendedKind,
         ProtectionRecorded => ProtectionRecordedKind,
+        OutcomeRetracted => OutcomeRetractedKind,
+        UnreadableEvent u => u.StoredKind,
         _ => throw new ArgumentException($"unknown event type {e.GetType().Name}", nameof(e)),
     };
 
@@ -66,6 +69,8 @@ internal static class EventPayload
             IncidentClosed c => new ClosedPayload(c.Note),
             TripAmended a => new AmendedPayload(IncidentFormat.Name(a.FaultType), a.TrippedDevice?.Value),
             ProtectionRecorded p => new ProtectionPayload(ProtectionText(p)),
+            OutcomeRetracted r => new RetractedPayload(r.Reason),
+            UnreadableEvent => throw new ArgumentException("an unreadable event is never written", nameof(e)),
             _ => throw new ArgumentException($"unknown event type {e.GetType().Name}", nameof(e)),
         };
         return JsonSerializer.Serialize(payload, payload.GetType(), Options);
@@ -87,10 +92,15 @@ internal static class EventPayload
                 IncidentClosedKind => new IncidentClosed(Read<ClosedPayload>(json).Note),
                 TripAmendedKind => Read<AmendedPayload>(json).ToEvent(id),
                 ProtectionRecordedKind => Protection(id, Read<ProtectionPayload>(json)),
+                OutcomeRetractedKind => new OutcomeRetracted(Read<RetractedPayload>(json).Reason),
                 _ => throw new CorruptEventException(id, $"has unknown kind \"{kind}\""),
             };
         }
         catch (JsonException e)
+        {
+            throw new CorruptEventException(id, $"has a {kind} payload that cannot be read: {e.Message}", e);
+        }
+        catch (Exception e) when (e is ArgumentException or FormatException or InvalidOperationException or NotSupportedException)
         {
             throw new CorruptEventException(id, $"has a {kind} payload that cannot be read: {e.Message}", e);
         }
@@ -185,6 +195,8 @@ internal static class EventPayload
     }
 
     private sealed record ClosedPayload(string? Note = null);
+
+    private sealed record RetractedPayload(string Reason);
 
     private sealed record AmendedPayload(string FaultType, string? TrippedDevice = null)
     {

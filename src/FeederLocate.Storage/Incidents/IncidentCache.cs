@@ -1,4 +1,5 @@
 using FeederLocate.Storage.Database;
+using FeederLocate.Storage.Errors;
 using FeederLocate.Storage.Events;
 using Microsoft.Data.Sqlite;
 
@@ -24,8 +25,44 @@ internal sealed class IncidentCache
     public IncidentState? StateOf(SqliteConnection connection, IncidentId incident) =>
         Refresh(connection, incident) is { } entry ? entry.State() : null;
 
-    /// <summary>The state of every incident, or of those on <paramref name="gridName"/>, by id.</summary>
+    /// <summary>
+    /// The state of every incident, or of those on <paramref name="gridName"/>, by id. An incident whose opening
+    /// event cannot be read is left out (see <see cref="Quarantine"/>).
+    /// </summary>
     public IEnumerable<IncidentState> States(SqliteConnection connection, string? gridName)
+    {
+        ReadNew(connection);
+        return _entries.Values
+            .Where(entry => gridName is null || string.Equals(entry.GridName, gridName, StringComparison.Ordinal))
+            .Select(entry => entry.TryState())
+            .OfType<IncidentState>()
+            .ToList();
+    }
+
+    /// <summary>Every event left out of its incident's state, by incident and sequence: a whole incident when its opening cannot be read.</summary>
+    public IReadOnlyList<QuarantinedEvent> Quarantine(SqliteConnection connection)
+    {
+        ReadNew(connection);
+        var all = new List<QuarantinedEvent>();
+        foreach (var entry in _entries.Values)
+        {
+            if (entry.TryState() is { } state)
+            {
+                all.AddRange(state.Quarantined);
+            }
+            else
+            {
+                var first = entry.Events[0];
+                all.Add(new QuarantinedEvent(first.Id, first.Incident, first.Sequence, first.Kind,
+                    (first.Event is UnreadableEvent unreadable ? unreadable.Problem : "is not incidentOpened")
+                    + $"; the whole incident {first.Incident} is left out"));
+            }
+        }
+
+        return all;
+    }
+
+    private void ReadNew(SqliteConnection connection)
     {
         var fresh = EventTable.EventsAfter(connection, _everyEventThrough);
         foreach (var e in fresh)
@@ -37,11 +74,6 @@ internal sealed class IncidentCache
         {
             _everyEventThrough = fresh[^1].Id.Value;
         }
-
-        return _entries.Values
-            .Where(entry => gridName is null || string.Equals(entry.GridName, gridName, StringComparison.Ordinal))
-            .Select(entry => entry.State())
-            .ToList();
     }
 
     private Entry? Refresh(SqliteConnection connection, IncidentId incident)
@@ -81,6 +113,19 @@ internal sealed class IncidentCache
         public int LastSequence => Events.Count == 0 ? 0 : Events[^1].Sequence;
 
         public string? GridName => Events.Count > 0 && Events[0].Event is IncidentOpened opened ? opened.GridName : null;
+
+        /// <summary>The state, or null when the incident's opening event cannot be read.</summary>
+        public IncidentState? TryState()
+        {
+            try
+            {
+                return State();
+            }
+            catch (CorruptEventException)
+            {
+                return null;
+            }
+        }
 
         public IncidentState State()
         {

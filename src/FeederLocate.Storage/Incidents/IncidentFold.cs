@@ -9,7 +9,9 @@ namespace FeederLocate.Storage.Incidents;
 /// Adds up an incident's events, in sequence order, into its <see cref="IncidentState"/>:
 /// an indication replaces the earlier one of the same indicator where it stood in the list (new indicators go
 /// last); a measurement's given values replace those of the same device; a switch state replaces the earlier
-/// one; the latest outcome is in force; plan steps accumulate; incidentClosed closes, and nothing may follow it.
+/// one; the latest outcome is in force until retracted; plan steps accumulate; incidentClosed closes, and only a
+/// retraction may follow it. An event that cannot be read, or cannot apply where it stands, is quarantined:
+/// left out and named in <see cref="IncidentState.Quarantined"/>, never a reason to refuse the rest.
 /// </summary>
 internal static class IncidentFold
 {
@@ -20,7 +22,9 @@ internal static class IncidentFold
         {
             throw events.Count == 0
                 ? new InvalidOperationException("an incident has at least its opening event")
-                : new CorruptEventException(events[0].Id, $"is the first event of incident {events[0].Incident} but is not incidentOpened");
+                : new CorruptEventException(events[0].Id, events[0].Event is UnreadableEvent unreadable
+                    ? $"opens incident {events[0].Incident} but cannot be read: {unreadable.Problem}"
+                    : $"is the first event of incident {events[0].Incident} but is not incidentOpened");
         }
 
         var first = events[0];
@@ -43,13 +47,21 @@ internal static class IncidentFold
         var steps = state.CompletedSteps.ToBuilder();
         var outcome = state.Outcome;
         var closedAt = state.ClosedAt;
+        var quarantined = state.Quarantined.ToBuilder();
 
         for (var index = from; index < events.Count; index++)
         {
             var stored = events[index];
-            if (closedAt is not null)
+            if (stored.Event is UnreadableEvent unreadable)
             {
-                throw new CorruptEventException(stored.Id, $"follows the closing of incident {stored.Incident}");
+                quarantined.Add(new QuarantinedEvent(stored.Id, stored.Incident, stored.Sequence, unreadable.StoredKind, unreadable.Problem));
+                continue;
+            }
+
+            if (closedAt is not null && stored.Event is not OutcomeRetracted)
+            {
+                quarantined.Add(new QuarantinedEvent(stored.Id, stored.Incident, stored.Sequence, stored.Kind, $"follows the closing of incident {stored.Incident}"));
+                continue;
             }
 
             switch (stored.Event)
@@ -101,8 +113,12 @@ internal static class IncidentFold
                 case ProtectionRecorded protection:
                     incident = protection.ApplyTo(incident);
                     break;
+                case OutcomeRetracted:
+                    outcome = null;
+                    break;
                 case IncidentOpened:
-                    throw new CorruptEventException(stored.Id, $"opens incident {stored.Incident} a second time");
+                    quarantined.Add(new QuarantinedEvent(stored.Id, stored.Incident, stored.Sequence, stored.Kind, $"opens incident {stored.Incident} a second time"));
+                    break;
                 default:
                     throw new InvalidOperationException($"event kind {stored.Event.GetType().Name} is not folded");
             }
@@ -122,6 +138,7 @@ internal static class IncidentFold
             Outcome = outcome,
             ClosedAt = closedAt,
             EventCount = state.EventCount + Math.Max(0, events.Count - from),
+            Quarantined = quarantined.ToImmutable(),
             LastEvent = events.Count > from ? events[^1].Id : state.LastEvent,
         };
     }

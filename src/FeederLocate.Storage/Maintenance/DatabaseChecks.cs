@@ -6,12 +6,30 @@ namespace FeederLocate.Storage.Maintenance;
 /// <summary>Integrity check and online backup of an open database.</summary>
 internal static class DatabaseChecks
 {
-    public static IntegrityReport Check(SqliteConnection connection)
+    public static IntegrityReport Check(SqliteConnection connection) => Check(connection, "PRAGMA integrity_check");
+
+    /// <summary>SQLite's quicker check (every page readable and well-formed, no index cross-check): run at start-up.</summary>
+    public static IntegrityReport QuickCheck(SqliteConnection connection) => Check(connection, "PRAGMA quick_check");
+
+    private static IntegrityReport Check(SqliteConnection connection, string pragma)
+    {
+        try
+        {
+            return CheckOrThrow(connection, pragma);
+        }
+        catch (SqliteException e)
+        {
+            // A damaged page can stop the check itself ("database disk image is malformed").
+            return new IntegrityReport([$"the check could not finish: {e.Message}"]);
+        }
+    }
+
+    private static IntegrityReport CheckOrThrow(SqliteConnection connection, string pragma)
     {
         var problems = ImmutableArray.CreateBuilder<string>();
         using (var command = connection.CreateCommand())
         {
-            command.CommandText = "PRAGMA integrity_check";
+            command.CommandText = pragma;
             using var reader = command.ExecuteReader();
             while (reader.Read())
             {

@@ -98,6 +98,7 @@ public static class IncidentApi
                 ? Results.Ok(LearningDocument.From(loaded.Grid, learning.Outcomes(loaded.Graph).All.Count, learning.Learned(loaded.Graph), curves.For(loaded.Name)))
                 : Results.BadRequest(ApiError.Single("unknown grid", "request", "query", "grid",
                     $"must name a loaded grid of this account ({string.Join(", ", grids.VisibleTo(user).Select(g => $"\"{g.Name}\""))}), got \"{grid}\"")));
+        api.MapPost("/incidents/{id:long}/outcome/retraction", PostRetraction).RequireAuthorization(AccessPolicies.ApiEngineer);
         return app;
     }
 
@@ -195,10 +196,59 @@ public static class IncidentApi
                 return Results.BadRequest(ApiError.Single("bad fault type", "outcome", "body", "faultType", $"must be LG, LL, LLG, LLL or unknown, got \"{typeText}\""));
             }
 
+            if ((TooLong(id, "cause", body.Cause, EvidenceLimits.MaxCauseChars) ?? TooLong(id, "notes", body.Notes, EvidenceLimits.MaxNoteChars)) is { } tooLong)
+            {
+                return tooLong;
+            }
+
             board.Append(new IncidentId(id), new OutcomeLogged(new SegmentId(segment), type, body.Cause, body.Notes), AccountClaims.ActorOf(user));
             return Results.Accepted($"/api/incidents/{id}", new { accepted = 1 });
         });
     }
+
+    /// <summary>An engineer withdraws the outcome in force with a logged retraction; the learning leaves it out from then on.</summary>
+    private static async Task<IResult> PostRetraction(long id, ClaimsPrincipal user, HttpRequest request, IncidentBoard board)
+    {
+        if (await ReadBody(request) is not { } text)
+        {
+            return TooLarge();
+        }
+
+        return WithIncident(board, user, id, state =>
+        {
+            RetractionBody? body;
+            try
+            {
+                body = JsonSerializer.Deserialize<RetractionBody>(text, DocumentJson.Options);
+            }
+            catch (JsonException e)
+            {
+                return Results.BadRequest(ApiError.Single("not a retraction", "retraction", "body", string.Empty, $"is not valid: {e.Message}"));
+            }
+
+            if (string.IsNullOrWhiteSpace(body?.Reason))
+            {
+                return Results.BadRequest(ApiError.Single("no reason", "retraction", "body", "reason", "must say why the outcome is withdrawn"));
+            }
+
+            if (TooLong(id, "reason", body.Reason, EvidenceLimits.MaxCauseChars) is { } tooLong)
+            {
+                return tooLong;
+            }
+
+            if (state.Outcome is null)
+            {
+                return Results.Conflict(ApiError.Single("no outcome", "incident", Text(id), "outcome", "has no outcome in force: there is nothing to retract"));
+            }
+
+            board.Append(new IncidentId(id), new OutcomeRetracted(body.Reason.Trim()), AccountClaims.ActorOf(user));
+            return Results.Accepted($"/api/incidents/{id}", new { accepted = 1 });
+        });
+    }
+
+    private static IResult? TooLong(long id, string field, string? text, int maxChars) => text is { Length: var length } && length > maxChars
+        ? Results.BadRequest(ApiError.Single("too long", "outcome", Text(id), field, $"holds {length} characters; at most {maxChars} are accepted"))
+        : null;
 
     private static string Text(long id) => id.ToString(System.Globalization.CultureInfo.InvariantCulture);
 
@@ -223,6 +273,18 @@ public static class IncidentApi
         {
             return UnknownIncident(id);
         }
+        catch (OutcomeNotLoggedException e)
+        {
+            return Results.Conflict(ApiError.Single("no outcome", "incident", Text(id), "outcome", e.Message));
+        }
+        catch (EvidenceLimitException e)
+        {
+            return Results.BadRequest(ApiError.Single("over a limit", "incident", Text(id), e.Field, e.Message));
+        }
+        catch (EvidenceNotRadialException e)
+        {
+            return Results.UnprocessableEntity(ApiError.Single("not radial", "incident", Text(id), "switchStates", e.Message));
+        }
         catch (IncidentClosedException e)
         {
             return Results.Conflict(ApiError.Single("incident closed", "incident", id.ToString(System.Globalization.CultureInfo.InvariantCulture), "status", e.Message));
@@ -245,7 +307,12 @@ public static class IncidentApi
         return found is null ? checkedResult : await action(found);
     }
 
-    /// <summary>The body as text, or null when it is over the limit (whatever the server in front enforces).</summary>
+    private static readonly System.Text.UTF8Encoding StrictUtf8 = new(encoderShouldEmitUTF8Identifier: false, throwOnInvalidBytes: true);
+
+    /// <summary>
+    /// The body as text, or null when it is over the limit (whatever the server in front enforces). A body that is
+    /// not valid UTF-8 is refused (<see cref="BodyNotUtf8Exception"/>, a 400 problem), never silently repaired.
+    /// </summary>
     private static async Task<string?> ReadBody(HttpRequest request)
     {
         if (request.ContentLength > MaximumBodyBytes)
@@ -253,13 +320,20 @@ public static class IncidentApi
             return null;
         }
 
-        using var reader = new StreamReader(request.Body);
+        using var reader = new StreamReader(request.Body, StrictUtf8);
         var buffer = new char[MaximumBodyBytes + 1];
         var read = 0;
         int n;
-        while (read < buffer.Length && (n = await reader.ReadAsync(buffer.AsMemory(read, buffer.Length - read))) > 0)
+        try
         {
-            read += n;
+            while (read < buffer.Length && (n = await reader.ReadAsync(buffer.AsMemory(read, buffer.Length - read))) > 0)
+            {
+                read += n;
+            }
+        }
+        catch (System.Text.DecoderFallbackException)
+        {
+            throw new BodyNotUtf8Exception();
         }
 
         return read > MaximumBodyBytes ? null : new string(buffer, 0, read);
@@ -286,4 +360,6 @@ public static class IncidentApi
     }
 
     public sealed record OutcomeBody(string? Segment, string? FaultType, string? Cause, string? Notes);
+
+    public sealed record RetractionBody(string? Reason);
 }

@@ -11,6 +11,7 @@ public static class AccessPolicies
     public const string Engineer = "engineer";
     public const string ApiRead = "api-read";
     public const string ApiWrite = "api-write";
+    public const string ApiEngineer = "api-engineer";
 
     public static void Add(AuthorizationOptions options)
     {
@@ -22,5 +23,7 @@ public static class AccessPolicies
             .RequireRole(AccountRoles.Name(AccountRole.Viewer)));
         options.AddPolicy(ApiWrite, p => p.AddAuthenticationSchemes(ApiTokenAuthentication.SchemeName).RequireAuthenticatedUser()
             .RequireRole(AccountRoles.Name(AccountRole.Operator)));
+        options.AddPolicy(ApiEngineer, p => p.AddAuthenticationSchemes(ApiTokenAuthentication.SchemeName).RequireAuthenticatedUser()
+            .RequireRole(AccountRoles.Name(AccountRole.Engineer)));
     }
 }

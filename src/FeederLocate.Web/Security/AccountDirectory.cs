@@ -8,7 +8,8 @@ namespace FeederLocate.Web.Security;
 /// <summary>
 /// The control room's accounts and API tokens. Passwords are hashed with ASP.NET Core Identity's
 /// <see cref="PasswordHasher{TUser}"/> (PBKDF2, salted, versioned format); nothing here keeps a password.
-/// Five failed sign-ins in a row lock an account for 15 minutes. The last enabled engineer cannot be
+/// Five failed sign-ins in a row lock an account for 15 minutes, except from the machine itself; a client that
+/// keeps failing is slowed down (<see cref="SignInThrottle"/>). The last enabled engineer cannot be
 /// demoted or disabled, so the accounts can always be managed.
 /// </summary>
 public sealed class AccountDirectory : IDisposable
@@ -24,12 +25,26 @@ public sealed class AccountDirectory : IDisposable
     private readonly Dictionary<long, DateTimeOffset> _touched = [];
     private readonly string _unusedHash;
 
-    public AccountDirectory(AccountStore store, TimeProvider clock)
+    public AccountDirectory(AccountStore store, TimeProvider clock, SignInThrottle? throttle = null)
     {
         _store = store;
         _clock = clock;
+        Throttle = throttle ?? new SignInThrottle(clock);
         // Compared against when no account matches, so a wrong name costs the same time as a wrong password.
         _unusedHash = _hasher.HashPassword(null!, PasswordRules.OneTime());
+    }
+
+    /// <summary>The per-client slowing of repeated failed sign-ins.</summary>
+    public SignInThrottle Throttle { get; }
+
+    /// <summary>Ends every session of the account at once (signing out): its security stamp changes, which every request checks.</summary>
+    public void EndSessions(string name, Actor by)
+    {
+        ArgumentNullException.ThrowIfNull(by);
+        if (Find(name) is not null)
+        {
+            Change(() => _store.EndSessions(name, by.Name));
+        }
     }
 
     /// <summary>Raised after any account or token changed.</summary>
@@ -49,25 +64,33 @@ public sealed class AccountDirectory : IDisposable
     public Account? Current(string name, string? stamp) =>
         Find(name) is { IsDisabled: false } account && string.Equals(account.SecurityStamp, stamp, StringComparison.Ordinal) ? account : null;
 
-    public SignInOutcome SignIn(string? name, string? password)
+    public SignInOutcome SignIn(string? name, string? password) => SignIn(name, password, SignInClient.Unknown);
+
+    /// <summary>
+    /// Checks a name and password from <paramref name="client"/>. Unknown name, wrong password, disabled account
+    /// and locked account all answer <see cref="SignInVerdict.WrongNameOrPassword"/> after the same password
+    /// hash work. A client that failed too often is <see cref="SignInVerdict.Throttled"/> before anything is
+    /// checked. A lock does not apply to a sign-in from the machine itself.
+    /// </summary>
+    public SignInOutcome SignIn(string? name, string? password, SignInClient client)
     {
-        var account = string.IsNullOrWhiteSpace(name) ? null : Find(name.Trim());
-        var now = _clock.GetUtcNow();
-        if (account is { } locked && locked.IsLockedAt(now))
+        ArgumentNullException.ThrowIfNull(client);
+        var wait = Throttle.WaitFor(client.Address);
+        if (wait > TimeSpan.Zero)
         {
-            return new SignInOutcome(SignInVerdict.Locked, LockedUntil: locked.LockedUntil);
+            return new SignInOutcome(SignInVerdict.Throttled, RetryAfter: wait);
         }
 
+        var account = string.IsNullOrWhiteSpace(name) ? null : Find(name.Trim());
+        var now = _clock.GetUtcNow();
         var result = Verify(account?.PasswordHash ?? _unusedHash, password ?? string.Empty);
-        if (account is null || account.IsDisabled || result == PasswordVerificationResult.Failed)
+        var lockedOut = account is { } held && held.IsLockedAt(now) && !client.IsThisMachine;
+        if (account is null || account.IsDisabled || lockedOut || result == PasswordVerificationResult.Failed)
         {
-            if (account is { IsDisabled: false })
+            Throttle.RecordFailure(client.Address);
+            if (account is { IsDisabled: false } && !lockedOut && result == PasswordVerificationResult.Failed)
             {
-                var after = Locked(() => _store.RecordFailedSignIn(account.Name, LockAfterFailures, LockFor));
-                if (after.IsLockedAt(now))
-                {
-                    return new SignInOutcome(SignInVerdict.Locked, LockedUntil: after.LockedUntil);
-                }
+                Locked(() => _store.RecordFailedSignIn(account.Name, LockAfterFailures, LockFor));
             }
 
             return new SignInOutcome(SignInVerdict.WrongNameOrPassword);

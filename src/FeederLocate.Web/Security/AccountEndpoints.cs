@@ -44,11 +44,13 @@ public static class AccountEndpoints
     private static async Task<IResult> SignIn(HttpContext http, AccountDirectory accounts, IFormCollection form)
     {
         var back = LocalReturnUrl.Or(form["returnUrl"]);
-        var outcome = accounts.SignIn(form["name"], form["password"]);
+        var outcome = accounts.SignIn(form["name"], form["password"], SignInClient.Of(http));
         switch (outcome.Verdict)
         {
-            case SignInVerdict.Locked:
-                return Results.LocalRedirect($"{SignInPage}?failed=locked&until={Uri.EscapeDataString(outcome.LockedUntil?.ToString("HH:mm", CultureInfo.InvariantCulture) ?? string.Empty)}&returnUrl={Uri.EscapeDataString(back)}");
+            case SignInVerdict.Throttled:
+                var seconds = (int)Math.Ceiling(outcome.RetryAfter?.TotalSeconds ?? 1);
+                http.Response.Headers.RetryAfter = seconds.ToString(CultureInfo.InvariantCulture);
+                return Results.LocalRedirect($"{SignInPage}?failed=wait&seconds={seconds}&returnUrl={Uri.EscapeDataString(back)}");
             case SignInVerdict.WrongNameOrPassword:
                 return Results.LocalRedirect($"{SignInPage}?failed=wrong&returnUrl={Uri.EscapeDataString(back)}");
         }
@@ -82,6 +84,13 @@ public static class AccountEndpoints
 
     private static async Task<IResult> SignOut(HttpContext http)
     {
+        // The cookie alone is not trusted to go away: the account's stamp changes, so a copy of it opens nothing.
+        if (http.User.Identity?.IsAuthenticated == true)
+        {
+            var accounts = http.RequestServices.GetRequiredService<AccountDirectory>();
+            accounts.EndSessions(AccountClaims.NameOf(http.User), AccountClaims.ActorOf(http.User));
+        }
+
         await http.SignOutAsync(CookieAuthenticationDefaults.AuthenticationScheme);
         return Results.LocalRedirect($"{SignInPage}?signedOut=1");
     }

@@ -10,9 +10,12 @@ public static class SecurityRegistration
 {
     public const string CookieName = "FeederLocate.Session";
 
-    public static IServiceCollection AddFeederLocateSecurity(this IServiceCollection services, string databasePath)
+    public static IServiceCollection AddFeederLocateSecurity(this IServiceCollection services, string databasePath, int freeFailuresPerClient = SignInThrottle.DefaultFreeFailures)
     {
-        services.AddSingleton(sp => new AccountDirectory(AccountStore.Open(databasePath, sp.GetRequiredService<TimeProvider>()), sp.GetRequiredService<TimeProvider>()));
+        services.AddSingleton(sp => new AccountDirectory(
+            AccountStore.Open(databasePath, sp.GetRequiredService<TimeProvider>()),
+            sp.GetRequiredService<TimeProvider>(),
+            new SignInThrottle(sp.GetRequiredService<TimeProvider>(), freeFailuresPerClient)));
         services.AddAuthentication(CookieAuthenticationDefaults.AuthenticationScheme)
             .AddCookie(options =>
             {

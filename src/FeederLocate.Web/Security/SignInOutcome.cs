@@ -7,9 +7,12 @@ public enum SignInVerdict
 {
     SignedIn,
     MustChangePassword,
+    /// <summary>Wrong name, wrong password, disabled or locked account: one answer, so it tells nothing about which names exist.</summary>
     WrongNameOrPassword,
-    Locked,
+
+    /// <summary>This client failed too often: it must wait <see cref="SignInOutcome.RetryAfter"/> before it is heard again.</summary>
+    Throttled,
 }
 
-/// <summary>A sign-in attempt's verdict, with the account when the password was right and when a lock ends.</summary>
-public sealed record SignInOutcome(SignInVerdict Verdict, Account? Account = null, DateTimeOffset? LockedUntil = null);
+/// <summary>A sign-in attempt's verdict, with the account when the password was right and the wait when throttled.</summary>
+public sealed record SignInOutcome(SignInVerdict Verdict, Account? Account = null, TimeSpan? RetryAfter = null);

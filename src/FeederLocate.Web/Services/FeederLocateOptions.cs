@@ -18,6 +18,15 @@ public sealed class FeederLocateOptions
     /// </summary>
     public string? AdministratorPassword { get; set; }
 
+    /// <summary>
+    /// The addresses of the TLS-terminating proxies whose X-Forwarded-For and X-Forwarded-Proto are believed
+    /// (for instance 127.0.0.1 when the proxy runs on the same machine); none by default.
+    /// </summary>
+    public string[] TrustedProxies { get; set; } = [];
+
+    /// <summary>Failed sign-ins a client may make before each further attempt must wait (doubling from 1 s).</summary>
+    public int SignInFreeFailuresPerClient { get; set; } = Security.SignInThrottle.DefaultFreeFailures;
+
     /// <summary>When true, the start gives the "admin" account a new printed one-time password (for when no engineer can sign in).</summary>
     public bool ResetAdministrator { get; set; }
 }

@@ -11,7 +11,7 @@ namespace FeederLocate.Web.Services;
 /// The control room's incident log (<see cref="IncidentLog"/>), opened on a loaded grid. Every open page is
 /// told of changes to its incident, so several operators see each other's work without reloading.
 /// </summary>
-public sealed class IncidentBoard(IncidentStore store) : IncidentLog(store)
+public sealed class IncidentBoard(IncidentStore store, Func<string, Grid?>? gridNamed = null) : IncidentLog(store, gridNamed)
 {
     public IncidentId Open(LoadedGrid grid, SwitchId? trippedDevice, FaultType? faultType, DateTimeOffset reportedAt, Actor actor)
     {

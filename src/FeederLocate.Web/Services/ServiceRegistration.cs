@@ -17,9 +17,11 @@ public static class ServiceRegistration
         services.AddSingleton(options);
         services.AddSingleton(_ => new GridCatalog(RepositoryPaths.Resolve(root, options.GridFolder), options.DefaultGrid));
         var databasePath = RepositoryPaths.Resolve(root, options.DatabasePath);
-        services.AddSingleton(_ => new IncidentBoard(IncidentStore.Open(databasePath)));
+        // Claimed before the database is opened: a second web app on the same file is refused at start.
+        services.AddSingleton(_ => Storage.Maintenance.InstanceLock.Claim(databasePath));
+        services.AddSingleton(sp => new IncidentBoard(IncidentStore.Open(databasePath), name => sp.GetRequiredService<GridCatalog>().Find(name)?.Grid));
         services.AddSingleton<IncidentLog>(provider => provider.GetRequiredService<IncidentBoard>());
-        services.AddFeederLocateSecurity(databasePath);
+        services.AddFeederLocateSecurity(databasePath, options.SignInFreeFailuresPerClient);
         services.AddSingleton<IFaultRanker, CoreFaultRanker>();
         services.AddSingleton(provider => new GridLearning(provider.GetRequiredService<IncidentLog>()));
         services.AddSingleton(provider => new IncidentAnalysis(provider.GetRequiredService<GridLearning>(), provider.GetRequiredService<IFaultRanker>()));

@@ -92,18 +92,27 @@ public sealed class CliFuzzTests(ITestOutputHelper output) : IDisposable
                 var gridPath = folder.Write(GridFile, raw.Apply(Encoding.UTF8.GetBytes(mutant.Apply(bases))));
                 var incidentPath = folder.Write(IncidentFile, File.ReadAllBytes(SampleFiles.IncidentOn(sample).Path));
 
-                // The command line decodes the file as File.ReadAllText does; judge the reader on the same text.
-                var text = File.ReadAllText(gridPath);
-                var read = GridReader.Parse(text);
-                var valid = read.Succeeded;
-                tally.Count(ReaderFuzzTests.Classify(read));
+                // The command line refuses bytes that are not UTF-8 (RFC 3629) and reads the rest; judge the reader on the same text.
+                var text = StrictUtf8(gridPath);
+                var read = text is null ? null : GridReader.Parse(text);
+                var valid = read?.Succeeded ?? false;
+                if (read is not null)
+                {
+                    tally.Count(ReaderFuzzTests.Classify(read));
+                }
 
                 var check = folder.Run("check", gridPath, "--json");
                 AssertExitContract(check);
                 Assert.Equal(valid ? 0 : 2, check.ExitCode);
-                using (var document = JsonDocument.Parse(check.Out))
+                if (text is null)
+                {
+                    Assert.Contains("is not valid UTF-8", check.Error, StringComparison.Ordinal);
+                    Assert.Equal(string.Empty, check.Out);
+                }
+                else
                 {
                     // One document and nothing else: JsonDocument rejects anything after the first value.
+                    using var document = JsonDocument.Parse(check.Out);
                     Assert.Equal(valid, document.RootElement.GetProperty("valid").GetBoolean());
                     Assert.Equal(valid, document.RootElement.GetProperty("errors").GetArrayLength() == 0);
                 }
@@ -139,10 +148,13 @@ public sealed class CliFuzzTests(ITestOutputHelper output) : IDisposable
                 using var folder = new FuzzFolder(_root);
                 var gridPath = folder.Write(GridFile, File.ReadAllBytes(sample.Grid.Path));
                 var incidentPath = folder.Write(IncidentFile, raw.Apply(Encoding.UTF8.GetBytes(mutant.Apply(bases))));
-                var text = File.ReadAllText(incidentPath);
-                var read = IncidentReader.Parse(text, sample.Grid.Grid);
-                var valid = read.Succeeded;
-                tally.Count(ReaderFuzzTests.Classify(read));
+                var text = StrictUtf8(incidentPath);
+                var read = text is null ? null : IncidentReader.Parse(text, sample.Grid.Grid);
+                var valid = read?.Succeeded ?? false;
+                if (read is not null)
+                {
+                    tally.Count(ReaderFuzzTests.Classify(read));
+                }
 
                 var rank = folder.Run("rank", gridPath, incidentPath);
                 AssertExitContract(rank);
@@ -175,6 +187,21 @@ public sealed class CliFuzzTests(ITestOutputHelper output) : IDisposable
 
     private static string Describe((Mutant Mutant, RawEdit Raw) file, IReadOnlyList<string> bases) =>
         $"{Mutations.Describe(file.Mutant, bases)}; on disk {file.Raw}";
+
+    /// <summary>The file's text, or null when its bytes are not UTF-8: what the command line reads or refuses.</summary>
+    private static string? StrictUtf8(string path)
+    {
+        var bytes = File.ReadAllBytes(path);
+        var start = bytes.AsSpan().StartsWith(Encoding.UTF8.Preamble) ? Encoding.UTF8.Preamble.Length : 0;
+        try
+        {
+            return new UTF8Encoding(false, throwOnInvalidBytes: true).GetString(bytes, start, bytes.Length - start);
+        }
+        catch (DecoderFallbackException)
+        {
+            return null;
+        }
+    }
 
     private static void AssertExitContract(CliRun run)
     {

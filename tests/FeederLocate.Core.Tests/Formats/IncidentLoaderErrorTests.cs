@@ -77,6 +77,18 @@ public class IncidentLoaderErrorTests
             "incident file: faultAt 2026-03-14T09:40:00Z is later than reportedAt 2026-03-14T09:30:00Z: a fault is reported after it began"
         },
         {
+            "year-one", "incident", "file", "reportedAt",
+            "incident file: reportedAt must lie between 1950-01-01 and 2100-01-01, got \"0001-01-01T00:00:00Z\""
+        },
+        {
+            "read-in-year-9999", "indication", "FI3", "readAt",
+            "indication FI3: readAt must lie between 1950-01-01 and 2100-01-01, got \"9999-12-31T23:59:59Z\""
+        },
+        {
+            "device-recorded-twice", "measurement", "#2", "device",
+            "measurement #2: device is listed more than once; give one record per device"
+        },
+        {
             "wrong-format-tag", "incident", "file", "format",
             "incident file: format must be \"feederlocate-incident/1\", got \"feederlocate-grid/1\""
         },
@@ -114,6 +126,18 @@ public class IncidentLoaderErrorTests
         Assert.Equal(id, error.ElementId);
         Assert.Equal(field, error.Field);
         Assert.Equal(message, error.ToString());
+    }
+
+    [Fact]
+    public void More_substation_records_than_the_limit_are_refused_as_one_error()
+    {
+        var records = string.Join(",", Enumerable.Range(0, EvidenceLimits.MaxMeasurementsPerIncident + 1).Select(i => $$"""{ "device": "CB1", "residualCurrentA": {{i}} }"""));
+        var text = $$"""{ "format": "feederlocate-incident/1", "reportedAt": "2026-03-14T09:30:00Z", "faultType": "LG", "measurements": [{{records}}], "indications": [] }""";
+
+        var result = IncidentReader.Parse(text, Grids.TinyFen("resonant"));
+
+        var error = Assert.Single(result.Errors);
+        Assert.Equal($"incident file: measurements holds {EvidenceLimits.MaxMeasurementsPerIncident + 1} records; at most {EvidenceLimits.MaxMeasurementsPerIncident} are accepted", error.ToString());
     }
 
     [Fact]

@@ -171,7 +171,7 @@ public class RoundTripPropertyTests
                     .ToImmutableDictionary(x => x.Id, x => x.p == 1 ? SwitchPosition.Open : SwitchPosition.Closed),
                 tripped < 0 ? null : trippable[tripped],
                 types[type],
-                [.. measurements],
+                [.. measurements.DistinctBy(m => m.Device)], // one record per device, as the reader demands
                 [.. indications.Select((x, i) => (x, grid.Indicators[i])).Where(p => p.x.Item1).Select(p =>
                 {
                     var (_, state, field, readAt, suspect) = p.x;

@@ -92,7 +92,7 @@ public class EventRoundTripTests
     }
 
     [Fact]
-    public void A_payload_missing_a_required_field_is_reported_with_its_event_id()
+    public void A_payload_missing_a_required_field_is_quarantined_with_its_event_id()
     {
         using var db = new TempDatabase();
         var clock = TestClock.Manual();
@@ -105,9 +105,12 @@ public class EventRoundTripTests
                 ("$incident", incident.Value));
         }
 
-        var error = Assert.Throws<CorruptEventException>(() => store.Events(incident));
+        var unreadable = Assert.IsType<UnreadableEvent>(store.Events(incident)[1].Event);
+        var quarantined = Assert.Single(store.State(incident).Quarantined);
 
-        Assert.Equal(new EventId(77), error.EventId);
-        Assert.Contains("event 77", error.Message, StringComparison.Ordinal);
+        Assert.Equal("outcomeLogged", unreadable.StoredKind);
+        Assert.Equal(new EventId(77), quarantined.Event);
+        Assert.Contains("event 77", quarantined.ToString(), StringComparison.Ordinal);
+        Assert.Null(store.State(incident).Outcome);
     }
 }

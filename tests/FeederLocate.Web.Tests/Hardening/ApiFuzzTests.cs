@@ -37,6 +37,13 @@ public sealed class ApiFuzzTests(ApiFixture app) : IClassFixture<ApiFixture>
     private static readonly string[] IncidentBodies =
     [
         """{ "format": "feederlocate-incident/1", "reportedAt": "2026-11-30T06:12:00Z", "trippedDevice": "CB-A1", "faultType": "LG", "indications": [ { "indicator": "FPI-A1-04", "state": "fault", "source": "remote" } ], "measurements": [ { "device": "CB-A1", "phaseCurrentA": 1880 } ] }""",
+        // Switch states: B1 feeds A1's tail through the closed tie; a mutated name or position can make a loop (refused, 422).
+        """{ "format": "feederlocate-incident/1", "reportedAt": "2026-05-09T16:20:00Z", "switchStates": { "LB-A1-4": "open", "NO-A1-B1": "closed" }, "trippedDevice": "RC-B1-1", "faultType": "LL", "measurements": [ { "device": "CB-B1", "phaseCurrentA": 1346 } ], "indications": [] }""",
+    ];
+
+    private static readonly string[] RetractionBodies =
+    [
+        """{ "reason": "the crew found the fault on S108" }""",
     ];
 
     private static StringContent Json(string text) => new(text, Encoding.UTF8, "application/json");
@@ -128,6 +135,45 @@ public sealed class ApiFuzzTests(ApiFixture app) : IClassFixture<ApiFixture>
             print: m => Mutations.Describe(m, IncidentBodies));
 
         Assert.Contains(HttpStatusCode.Created, outcomes);
+        Assert.Contains(HttpStatusCode.BadRequest, outcomes);
+    }
+
+    [Fact]
+    public void A_mutated_retraction_withdraws_the_outcome_whole_or_is_refused_with_a_4xx_and_nothing_logged()
+    {
+        var board = app.Factory.Services.GetRequiredService<IncidentBoard>();
+        var engineerName = "fuzz-engineer";
+        var setup = new Storage.Events.Actor("admin", "engineer");
+        app.Accounts.CreateWithPassword(engineerName, "Fuzz engineer", Storage.Accounts.AccountRole.Engineer, "fuzz-engineer-password", null, setup);
+        var engineer = app.ClientWith(app.Accounts.IssueToken(engineerName, "fuzz", setup).Secret);
+        var id = OpenIncident();
+        var outcomes = new HashSet<HttpStatusCode>();
+
+        Mutations.MutantGen(RetractionBodies.Length).Sample(
+            mutant =>
+            {
+                if (board.State(new Storage.Incidents.IncidentId(id)).Outcome is null)
+                {
+                    board.Append(new Storage.Incidents.IncidentId(id), new Storage.Events.OutcomeLogged(new Core.Model.SegmentId("S109")), setup);
+                }
+
+                var before = EventCount(id);
+                var response = engineer.PostAsync($"/api/incidents/{id}/outcome/retraction", Json(mutant.Apply(RetractionBodies))).GetAwaiter().GetResult();
+                var body = response.Content.ReadAsStringAsync().GetAwaiter().GetResult();
+                outcomes.Add(response.StatusCode);
+
+                Assert.True((int)response.StatusCode < 500, $"{(int)response.StatusCode}: {body}");
+                Assert.Equal(response.StatusCode == HttpStatusCode.Accepted ? before + 1 : before, EventCount(id));
+                if (response.StatusCode != HttpStatusCode.Accepted)
+                {
+                    Assert.StartsWith("application/problem+json", response.Content.Headers.ContentType?.ToString(), StringComparison.Ordinal);
+                }
+            },
+            iter: MutantsPerEndpoint,
+            threads: 1,
+            print: m => Mutations.Describe(m, RetractionBodies));
+
+        Assert.Contains(HttpStatusCode.Accepted, outcomes);
         Assert.Contains(HttpStatusCode.BadRequest, outcomes);
     }
 }

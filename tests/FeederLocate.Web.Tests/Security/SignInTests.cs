@@ -47,7 +47,7 @@ public sealed class SignInTests(ApiFixture app) : IClassFixture<ApiFixture>
     }
 
     [Fact]
-    public async Task A_wrong_password_is_refused_and_five_in_a_row_lock_the_account()
+    public async Task A_wrong_password_is_refused_and_five_in_a_row_lock_the_account_with_the_same_answer()
     {
         app.Accounts.CreateWithPassword("locky", "Locky", AccountRole.Operator, "the-right-password", null, Engineer);
         var browser = FormSignIn.NewBrowser(app.Factory);
@@ -61,7 +61,8 @@ public sealed class SignInTests(ApiFixture app) : IClassFixture<ApiFixture>
         var right = await FormSignIn.Post(browser, "locky", "the-right-password");
 
         Assert.Contains("failed=wrong", Location(first), StringComparison.Ordinal);
-        Assert.Contains("failed=locked", Location(right), StringComparison.Ordinal);
+        Assert.Contains("failed=wrong", Location(right), StringComparison.Ordinal);
+        Assert.True(app.Accounts.Find("locky")!.IsLockedAt(DateTimeOffset.UtcNow));
         Assert.Equal(HttpStatusCode.Redirect, (await browser.GetAsync("/")).StatusCode);
     }
 
@@ -117,7 +118,7 @@ public sealed class SignInTests(ApiFixture app) : IClassFixture<ApiFixture>
         var browser = await FormSignIn.SignedIn(app.Factory, "watcher", "watcher-password");
 
         var page = await browser.GetStringAsync($"{AccountEndpoints.PasswordPage}?problem={Uri.EscapeDataString("call 0800 to reset")}");
-        var signIn = await FormSignIn.NewBrowser(app.Factory).GetStringAsync("/sign-in?failed=locked&until=" + Uri.EscapeDataString("never; call 0800"));
+        var signIn = await FormSignIn.NewBrowser(app.Factory).GetStringAsync("/sign-in?failed=wait&seconds=" + Uri.EscapeDataString("never; call 0800"));
 
         Assert.Contains("Not changed: the password was not changed.", page, StringComparison.Ordinal);
         Assert.DoesNotContain("0800", page, StringComparison.Ordinal);

@@ -27,6 +27,8 @@ public sealed class ApiFixture : IDisposable
             b.UseSetting("FeederLocate:DatabasePath", Path.Combine(_folder, "incidents.db"));
             b.UseSetting("FeederLocate:GridFolder", Path.Combine(RepositoryFiles.Root, "sample-grid"));
             b.UseSetting("FeederLocate:AdministratorPassword", AdministratorPassword);
+            // Every test client here has one address: the sign-in throttle has tests of its own (SignInAbuseTests).
+            b.UseSetting("FeederLocate:SignInFreeFailuresPerClient", "1000");
         });
         Accounts = Factory.Services.GetRequiredService<AccountDirectory>();
         Accounts.CreateWithPassword("telecontrol", "Telecontrol gateway", AccountRole.Operator, "telecontrol-password", null, Setup);

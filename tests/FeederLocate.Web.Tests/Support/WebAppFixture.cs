@@ -51,6 +51,8 @@ public sealed class WebAppFixture : IAsyncLifetime
             b.UseSetting("FeederLocate:GridFolder", Path.Combine(RepositoryFiles.Root, "sample-grid"));
             b.UseSetting("Urls", "http://127.0.0.1:0");
             b.UseSetting("FeederLocate:AdministratorPassword", AdministratorPassword);
+            // Every test client here has one address: the sign-in throttle has tests of its own (SignInAbuseTests).
+            b.UseSetting("FeederLocate:SignInFreeFailuresPerClient", "1000");
             b.ConfigureLogging(logging => logging.AddProvider(ServerLog));
         });
         _factory.UseKestrel(0);
