@@ -10,6 +10,8 @@ public static class InputFiles
 {
     private static readonly UTF8Encoding StrictUtf8 = new(encoderShouldEmitUTF8Identifier: false, throwOnInvalidBytes: true);
 
+    private static readonly byte[] ByteOrderMark = [0xEF, 0xBB, 0xBF];
+
     /// <summary>
     /// Reads a text file of at most <see cref="InputLimits.MaxFileBytes"/> (a device such as /dev/zero included:
     /// reading stops at the limit) that must be valid UTF-8; anything else is bad input, named with the file.
@@ -42,7 +44,8 @@ public static class InputFiles
 
         try
         {
-            var start = bytes.AsSpan().StartsWith(StrictUtf8.Preamble) ? StrictUtf8.Preamble.Length : 0;
+            // A leading byte order mark is allowed and skipped (RFC 8259 §8.1); this encoding's own Preamble is empty.
+            var start = bytes.AsSpan().StartsWith(ByteOrderMark) ? ByteOrderMark.Length : 0;
             return StrictUtf8.GetString(bytes, start, bytes.Length - start);
         }
         catch (DecoderFallbackException e)

@@ -189,6 +189,25 @@ public sealed class FuzzFindingTests
         }
     }
 
+    [Fact]
+    public void Check_reads_a_grid_file_that_starts_with_a_byte_order_mark()
+    {
+        // RFC 8259 §8.1: a parser may ignore a leading byte order mark; the command line skips it.
+        var path = Path.Combine(Path.GetTempPath(), $"feederlocate-finding-{Guid.NewGuid():N}.grid.json");
+        File.WriteAllBytes(path, [0xEF, 0xBB, 0xBF, .. File.ReadAllBytes(SampleGrids.Path("isolated"))]);
+        try
+        {
+            var run = CliRun.Of("check", path, "--json");
+
+            Assert.Equal(0, run.ExitCode);
+            Assert.True(run.Json().GetProperty("valid").GetBoolean());
+        }
+        finally
+        {
+            File.Delete(path);
+        }
+    }
+
     private static string TempFile(string kind, string text)
     {
         var path = Path.Combine(Path.GetTempPath(), $"feederlocate-finding-{Guid.NewGuid():N}.{kind}.json");
