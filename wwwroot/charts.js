@@ -22,5 +22,7 @@ export function bar(canvasId, labels, series, title) {
     },
   });
   charts.set(canvasId, chart);
+  // Tells the browser tests (and anyone looking) that the chart has drawn.
+  canvas.dataset.drawn = 'true';
   return true;
 }

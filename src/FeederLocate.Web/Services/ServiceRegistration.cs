@@ -9,10 +9,10 @@ public static class ServiceRegistration
     public static IServiceCollection AddFeederLocate(this IServiceCollection services, IConfiguration configuration, string contentRoot)
     {
         var options = configuration.GetSection("FeederLocate").Get<FeederLocateOptions>() ?? new FeederLocateOptions();
-        var root = RepositoryPaths.Root(contentRoot);
+        var root = contentRoot;
         services.AddSingleton(options);
-        services.AddSingleton(_ => new GridCatalog(RepositoryPaths.Resolve(root, options.GridFolder), options.DefaultGrid));
-        var databasePath = RepositoryPaths.Resolve(root, options.DatabasePath);
+        services.AddSingleton(_ => new GridCatalog(Path.GetFullPath(options.GridFolder, root), options.DefaultGrid));
+        var databasePath = Path.GetFullPath(options.DatabasePath, root);
         services.AddSingleton(_ => new IncidentBoard(IncidentStore.Open(databasePath)));
         services.AddFeederLocateSecurity(databasePath);
         services.AddSingleton<IncidentAnalysis>();
