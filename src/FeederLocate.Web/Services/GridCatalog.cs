@@ -11,6 +11,9 @@ public sealed record LoadedGrid(string Key, Grid Grid, NetworkGraph Graph, OneLi
 {
     public string Name => Grid.Name;
 
+    /// <summary>Operators' names of the sections: feeder and bounding devices.</summary>
+    public SectionNames SectionNames { get; } = SectionNames.Build(Graph, FeederMap.Build(Graph));
+
     public static LoadedGrid Of(string key, Grid grid)
     {
         var graph = new NetworkGraph(grid);
