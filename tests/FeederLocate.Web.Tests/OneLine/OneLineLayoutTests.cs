@@ -141,3 +141,41 @@ public class OneLineLayoutTests
     private static IEnumerable<(string Id, DrawingBox Box)> Pieces(string id, System.Collections.Immutable.ImmutableArray<DrawingPoint> points) =>
         points.Zip(points.Skip(1)).Select(p => (id, DrawingBox.Of([p.First, p.Second]).Inflate(1)));
 }
+
+public class OneLineSceneTests
+{
+    private static readonly OneLineDrawing Large = OneLineLayout.Draw(new NetworkGraph(SyntheticGrid.Generate(new SyntheticGridOptions(10_000, Seed: 2))));
+
+    [Theory]
+    [InlineData(0.05)]
+    [InlineData(0.4)]
+    [InlineData(1)]
+    [InlineData(3)]
+    public void A_view_holds_only_elements_that_meet_it_and_labels_legible_at_its_zoom(double scale)
+    {
+        var view = new OneLineViewport(Large.Extent.Centre, scale, 1200, 700);
+
+        var scene = OneLineScene.Of(Large, view);
+
+        var around = view.Visible.Inflate(Math.Max(view.Visible.Width, view.Visible.Height) * 0.1);
+        Assert.All(scene.Segments, s => Assert.True(s.Box.Overlaps(around), $"{s.Id} is out of view"));
+        Assert.All(scene.Switches, s => Assert.True(s.Box.Overlaps(around), $"{s.Id} is out of view"));
+        Assert.All(scene.Labels, l => Assert.True(l.MinScale <= scale, $"{l.Text} shows from {l.MinScale}"));
+        Assert.True(scene.Segments.Count + scene.Switches.Count + scene.Indicators.Count < 2_500,
+            $"{scene.Segments.Count} segments, {scene.Switches.Count} switches, {scene.Indicators.Count} indicators at zoom {scale}");
+    }
+
+    [Fact]
+    public void Zooming_at_a_point_keeps_the_drawing_under_it()
+    {
+        var view = new OneLineViewport(new DrawingPoint(500, 400), 0.5, 1000, 600);
+
+        var zoomed = view.ZoomAt(2, 200, 100, Large);
+
+        var before = view.ToDrawing(200, 100);
+        var after = zoomed.ToDrawing(200, 100);
+        Assert.Equal(before.X, after.X, 6);
+        Assert.Equal(before.Y, after.Y, 6);
+        Assert.Equal(1, zoomed.Scale, 6);
+    }
+}
