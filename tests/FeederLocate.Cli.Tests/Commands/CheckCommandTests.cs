@@ -5,7 +5,7 @@ public class CheckCommandTests
     [Fact]
     public void Check_reports_counts_of_a_valid_grid_as_json()
     {
-        var run = CliRun.Of("check", CliRun.Sample("resonant"), "--json");
+        var run = CliRun.Of("check", SampleGrids.Path("resonant"), "--json");
 
         Assert.Equal(0, run.ExitCode);
         var json = run.Json();
@@ -20,7 +20,7 @@ public class CheckCommandTests
     public void Check_of_a_broken_grid_exits_2_with_every_error_named_by_element_and_field()
     {
         var path = Path.Combine(Path.GetTempPath(), $"broken-{Guid.NewGuid():N}.grid.json");
-        var text = File.ReadAllText(CliRun.Tiny("isolated"))
+        var text = File.ReadAllText(SampleGrids.TinyFenPath("isolated"))
             .Replace("\"lengthKm\": 6.0", "\"lengthKm\": -1", StringComparison.Ordinal)
             .Replace("\"c0NfPerKm\": 250", "\"c0NfPerKm\": -250", StringComparison.Ordinal);
         File.WriteAllText(path, text);
@@ -55,7 +55,7 @@ public class CheckCommandTests
     [Fact]
     public void Check_table_names_each_substation_and_its_scheme()
     {
-        var run = CliRun.Of("check", CliRun.Sample("isolated"));
+        var run = CliRun.Of("check", SampleGrids.Path("isolated"));
 
         Assert.Equal(0, run.ExitCode);
         Assert.Contains("48 segments in 20 sections, 18 indicators", run.Out, StringComparison.Ordinal);
@@ -65,7 +65,7 @@ public class CheckCommandTests
     [Fact]
     public void Unknown_command_line_option_is_bad_input()
     {
-        var run = CliRun.Of("check", CliRun.Sample("solid"), "--no-such-option");
+        var run = CliRun.Of("check", SampleGrids.Path("solid"), "--no-such-option");
 
         Assert.Equal(2, run.ExitCode);
         Assert.Contains("--no-such-option", run.Error, StringComparison.Ordinal);

@@ -1,5 +1,3 @@
-using System.Runtime.CompilerServices;
-
 namespace FeederLocate.Cli.Tests.Commands;
 
 public class EvaluateCommandTests
@@ -7,7 +5,7 @@ public class EvaluateCommandTests
     [Fact]
     public void Evaluate_json_reports_hit_rates_of_the_ranking_its_limit_and_the_baseline()
     {
-        var run = CliRun.Of("evaluate", Sample("solid"), "--incidents", "30", "--seed", "3", "--json");
+        var run = CliRun.Of("evaluate", SampleGrids.Path("solid"), "--incidents", "30", "--seed", "3", "--json");
 
         Assert.Equal(0, run.ExitCode);
         var json = run.Json();
@@ -36,8 +34,8 @@ public class EvaluateCommandTests
             return $"{j.GetProperty("top1")} {j.GetProperty("top3")} {j.GetProperty("limit")} {j.GetProperty("baseline")}";
         }
 
-        var a = CliRun.Of("evaluate", Tiny("solid"), "--incidents", "20", "--seed", "9", "--json");
-        var b = CliRun.Of("evaluate", Tiny("solid"), "--incidents", "20", "--seed", "9", "--json");
+        var a = CliRun.Of("evaluate", SampleGrids.TinyFenPath("solid"), "--incidents", "20", "--seed", "9", "--json");
+        var b = CliRun.Of("evaluate", SampleGrids.TinyFenPath("solid"), "--incidents", "20", "--seed", "9", "--json");
 
         Assert.Equal(0, a.ExitCode);
         Assert.Equal(Rates(a), Rates(b));
@@ -46,34 +44,10 @@ public class EvaluateCommandTests
     [Fact]
     public void Evaluate_rejects_a_miss_probability_above_one()
     {
-        var run = CliRun.Of("evaluate", Sample("solid"), "--incidents", "30", "--seed", "3", "--miss", "2", "--json");
+        var run = CliRun.Of("evaluate", SampleGrids.Path("solid"), "--incidents", "30", "--seed", "3", "--miss", "2", "--json");
 
         Assert.Equal(2, run.ExitCode);
         Assert.Contains("--miss is a probability: 0 to 1", run.Error, StringComparison.Ordinal);
         Assert.Equal(string.Empty, run.Out);
     }
-
-    /// <summary>
-    /// A file of the repository. CliRun.Repo looks only above the test's output folder, which lies outside
-    /// the repository when the build is given another artifacts path; the folder this file was compiled
-    /// from is always inside it.
-    /// </summary>
-    private static string Repo(params string[] parts)
-    {
-        for (var dir = new DirectoryInfo(SourceDirectory()); dir is not null; dir = dir.Parent)
-        {
-            if (File.Exists(Path.Combine(dir.FullName, "FeederLocate.sln")))
-            {
-                return Path.Combine([dir.FullName, .. parts]);
-            }
-        }
-
-        throw new InvalidOperationException("repository root not found above " + SourceDirectory());
-    }
-
-    private static string SourceDirectory([CallerFilePath] string file = "") => Path.GetDirectoryName(file) ?? string.Empty;
-
-    private static string Sample(string scheme) => Repo("sample-grid", $"marrowdell-{scheme}.grid.json");
-
-    private static string Tiny(string scheme) => Repo("tests", "FeederLocate.Core.Tests", "ReferenceCases", "TinyFen", $"tiny-{scheme}.grid.json");
 }

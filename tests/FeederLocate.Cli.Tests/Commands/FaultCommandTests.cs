@@ -6,7 +6,7 @@ public class FaultCommandTests
     [Fact]
     public void Fault_json_reproduces_the_isolated_worked_example()
     {
-        var run = CliRun.Of("fault", CliRun.Tiny("isolated"), "--segment", "S2", "--position", "0.5", "--type", "LG", "--json");
+        var run = CliRun.Of("fault", SampleGrids.TinyFenPath("isolated"), "--segment", "S2", "--position", "0.5", "--type", "LG", "--json");
 
         Assert.Equal(0, run.ExitCode);
         var json = run.Json();
@@ -25,7 +25,7 @@ public class FaultCommandTests
     [Fact]
     public void Short_circuit_gives_no_healthy_phase_voltages()
     {
-        var run = CliRun.Of("fault", CliRun.Tiny("solid"), "--segment", "S2", "--position", "1", "--type", "LLL", "--json");
+        var run = CliRun.Of("fault", SampleGrids.TinyFenPath("solid"), "--segment", "S2", "--position", "1", "--type", "LLL", "--json");
 
         Assert.Equal(0, run.ExitCode);
         var json = run.Json();
@@ -36,7 +36,7 @@ public class FaultCommandTests
     [Fact]
     public void Fault_reports_every_bad_option_at_once_and_exits_2()
     {
-        var run = CliRun.Of("fault", CliRun.Tiny("solid"), "--segment", "S9", "--type", "LX", "--position", "1.5", "--rf", "-3");
+        var run = CliRun.Of("fault", SampleGrids.TinyFenPath("solid"), "--segment", "S9", "--type", "LX", "--position", "1.5", "--rf", "-3");
 
         Assert.Equal(2, run.ExitCode);
         Assert.Contains("--type must be LG, LL, LLG or LLL, got \"LX\"", run.Error, StringComparison.Ordinal);
@@ -50,8 +50,8 @@ public class FaultCommandTests
     public void Fault_uses_the_switch_states_of_an_incident_fed_through_a_tie()
     {
         // The LL incident opens LB-A1-4 and closes the tie NO-A1-B1: the tail of A1 is fed from B1.
-        var incident = CliRun.Repo("sample-grid", "incidents", "solid-ll-a1-tail-fed-from-b1.incident.json");
-        var run = CliRun.Of("fault", CliRun.Sample("solid"), "--segment", "S110", "--type", "LL", "--incident", incident, "--json");
+        var incident = RepositoryFiles.Path("sample-grid", "incidents", "solid-ll-a1-tail-fed-from-b1.incident.json");
+        var run = CliRun.Of("fault", SampleGrids.Path("solid"), "--segment", "S110", "--type", "LL", "--incident", incident, "--json");
 
         Assert.Equal(0, run.ExitCode);
         Assert.Equal("B", run.Json().GetProperty("substation").GetString());
@@ -60,7 +60,7 @@ public class FaultCommandTests
     [Fact]
     public void Fault_table_lists_every_indicator()
     {
-        var run = CliRun.Of("fault", CliRun.Tiny("resonant"), "--segment", "S2", "--type", "LG");
+        var run = CliRun.Of("fault", SampleGrids.TinyFenPath("resonant"), "--segment", "S2", "--type", "LG");
 
         Assert.Equal(0, run.ExitCode);
         Assert.Contains("FI1", run.Out, StringComparison.Ordinal);

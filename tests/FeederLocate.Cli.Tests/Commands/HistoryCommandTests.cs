@@ -2,16 +2,16 @@ namespace FeederLocate.Cli.Tests.Commands;
 
 public sealed class HistoryCommandTests : IDisposable
 {
-    private readonly string _folder = Directory.CreateTempSubdirectory("feederlocate-history-").FullName;
+    private readonly TempDatabase _db = new();
 
-    private string Db => Path.Combine(_folder, "history.db");
+    private string Db => _db.Path;
 
-    private static string Incident(string name) => CliRun.Repo("sample-grid", "incidents", name);
+    private static string Incident(string name) => RepositoryFiles.Path("sample-grid", "incidents", name);
 
     [Fact]
     public void Record_creates_the_database_and_history_lists_the_outcome()
     {
-        var record = CliRun.Of("record", CliRun.Sample("solid"), Incident("solid-lg-trip-a1.incident.json"), "--segment", "S109", "--db", Db, "--json");
+        var record = CliRun.Of("record", SampleGrids.Path("solid"), Incident("solid-lg-trip-a1.incident.json"), "--segment", "S109", "--db", Db, "--json");
         var history = CliRun.Of("history", "--db", Db, "--json");
 
         Assert.Equal(0, record.ExitCode);
@@ -30,10 +30,10 @@ public sealed class HistoryCommandTests : IDisposable
             accounts.Create("vera", "Vera", Storage.Accounts.AccountRole.Viewer, "unused-hash", false, null, "admin");
         }
 
-        var byOperator = CliRun.Of("record", CliRun.Sample("solid"), Incident("solid-lg-trip-a1.incident.json"), "--segment", "S109", "--db", Db, "--by", "ana", "--json");
-        var byViewer = CliRun.Of("record", CliRun.Sample("solid"), Incident("solid-lg-trip-a1.incident.json"), "--segment", "S109", "--db", Db, "--by", "vera");
-        var byNobody = CliRun.Of("record", CliRun.Sample("solid"), Incident("solid-lg-trip-a1.incident.json"), "--segment", "S109", "--db", Db, "--by", "nobody");
-        var byDefault = CliRun.Of("record", CliRun.Sample("solid"), Incident("solid-lg-trip-a1.incident.json"), "--segment", "S109", "--db", Db, "--json");
+        var byOperator = CliRun.Of("record", SampleGrids.Path("solid"), Incident("solid-lg-trip-a1.incident.json"), "--segment", "S109", "--db", Db, "--by", "ana", "--json");
+        var byViewer = CliRun.Of("record", SampleGrids.Path("solid"), Incident("solid-lg-trip-a1.incident.json"), "--segment", "S109", "--db", Db, "--by", "vera");
+        var byNobody = CliRun.Of("record", SampleGrids.Path("solid"), Incident("solid-lg-trip-a1.incident.json"), "--segment", "S109", "--db", Db, "--by", "nobody");
+        var byDefault = CliRun.Of("record", SampleGrids.Path("solid"), Incident("solid-lg-trip-a1.incident.json"), "--segment", "S109", "--db", Db, "--json");
 
         Assert.Equal((0, 2, 2, 0), (byOperator.ExitCode, byViewer.ExitCode, byNobody.ExitCode, byDefault.ExitCode));
         Assert.Contains("--by \"vera\" is a viewer", byViewer.Error, StringComparison.Ordinal);
@@ -51,12 +51,12 @@ public sealed class HistoryCommandTests : IDisposable
         // Ten outcomes on S109 make its learned fault rate, and so its prior, higher than without history.
         for (var i = 0; i < 10; i++)
         {
-            Assert.Equal(0, CliRun.Of("record", CliRun.Sample("solid"), Incident("solid-lg-trip-a1.incident.json"), "--segment", "S109", "--db", Db).ExitCode);
+            Assert.Equal(0, CliRun.Of("record", SampleGrids.Path("solid"), Incident("solid-lg-trip-a1.incident.json"), "--segment", "S109", "--db", Db).ExitCode);
         }
 
-        var without = CliRun.Of("rank", CliRun.Sample("solid"), Incident("solid-lg-trip-a1.incident.json"), "--json");
-        var with = CliRun.Of("rank", CliRun.Sample("solid"), Incident("solid-lg-trip-a1.incident.json"), "--db", Db, "--json");
-        var stats = CliRun.Of("stats", CliRun.Sample("solid"), "--db", Db, "--json");
+        var without = CliRun.Of("rank", SampleGrids.Path("solid"), Incident("solid-lg-trip-a1.incident.json"), "--json");
+        var with = CliRun.Of("rank", SampleGrids.Path("solid"), Incident("solid-lg-trip-a1.incident.json"), "--db", Db, "--json");
+        var stats = CliRun.Of("stats", SampleGrids.Path("solid"), "--db", Db, "--json");
 
         Assert.Equal(0, with.ExitCode);
         double P(CliRun run) => run.Json().GetProperty("segments").EnumerateArray().Single(s => s.GetProperty("id").GetString() == "S109").GetProperty("probability").GetDouble();
@@ -70,8 +70,8 @@ public sealed class HistoryCommandTests : IDisposable
     [Fact]
     public void Backup_and_integrity_check_and_csv_export_work_on_a_recorded_database()
     {
-        CliRun.Of("record", CliRun.Sample("isolated"), Incident("isolated-standing-earth-fault-a2.incident.json"), "--segment", "S207", "--cause", "tree, after storm", "--db", Db);
-        var copy = Path.Combine(_folder, "copy.db");
+        CliRun.Of("record", SampleGrids.Path("isolated"), Incident("isolated-standing-earth-fault-a2.incident.json"), "--segment", "S207", "--cause", "tree, after storm", "--db", Db);
+        var copy = _db.Sibling("copy.db");
 
         var backup = CliRun.Of("backup", "--db", Db, "--output", copy);
         var integrity = CliRun.Of("integrity", "--db", copy, "--json");
@@ -87,7 +87,7 @@ public sealed class HistoryCommandTests : IDisposable
     [Fact]
     public void Record_on_an_unknown_segment_is_bad_input_and_writes_nothing()
     {
-        var run = CliRun.Of("record", CliRun.Sample("solid"), Incident("solid-lg-trip-a1.incident.json"), "--segment", "S999", "--db", Db);
+        var run = CliRun.Of("record", SampleGrids.Path("solid"), Incident("solid-lg-trip-a1.incident.json"), "--segment", "S999", "--db", Db);
 
         Assert.Equal(2, run.ExitCode);
         Assert.Contains("--segment \"S999\" is not a segment", run.Error, StringComparison.Ordinal);
@@ -97,7 +97,7 @@ public sealed class HistoryCommandTests : IDisposable
     [Fact]
     public void Learning_curve_reports_each_point_and_the_truth()
     {
-        var run = CliRun.Of("evaluate", CliRun.Sample("solid"), "--learning", "--incidents", "20", "--test-incidents", "20", "--seed", "2", "--json");
+        var run = CliRun.Of("evaluate", SampleGrids.Path("solid"), "--learning", "--incidents", "20", "--test-incidents", "20", "--seed", "2", "--json");
 
         Assert.Equal(0, run.ExitCode);
         var json = run.Json();
@@ -106,23 +106,19 @@ public sealed class HistoryCommandTests : IDisposable
         Assert.InRange(json.GetProperty("truthSectionTop1").GetDouble(), 0, 1);
     }
 
-    public void Dispose()
-    {
-        Microsoft.Data.Sqlite.SqliteConnection.ClearAllPools();
-        Directory.Delete(_folder, recursive: true);
-    }
+    public void Dispose() => _db.Dispose();
 }
 
 public sealed class PlanWithHistoryTests : IDisposable
 {
-    private readonly string _folder = Directory.CreateTempSubdirectory("feederlocate-plan-history-").FullName;
+    private readonly TempDatabase _db = new();
 
     [Fact]
     public void Plan_with_the_database_isolates_the_section_the_learned_ranking_puts_first()
     {
-        var db = Path.Combine(_folder, "history.db");
-        var grid = CliRun.Sample("solid");
-        var incident = CliRun.Repo("sample-grid", "incidents", "solid-lg-trip-a1.incident.json");
+        var db = _db.Path;
+        var grid = SampleGrids.Path("solid");
+        var incident = RepositoryFiles.Path("sample-grid", "incidents", "solid-lg-trip-a1.incident.json");
         for (var i = 0; i < 3; i++)
         {
             Assert.Equal(0, CliRun.Of("record", grid, incident, "--segment", "S109", "--db", db).ExitCode);
@@ -136,9 +132,5 @@ public sealed class PlanWithHistoryTests : IDisposable
         Assert.Equal(top, plan.Json().GetProperty("isolatedSections")[0].GetString());
     }
 
-    public void Dispose()
-    {
-        Microsoft.Data.Sqlite.SqliteConnection.ClearAllPools();
-        Directory.Delete(_folder, recursive: true);
-    }
+    public void Dispose() => _db.Dispose();
 }

@@ -2,12 +2,12 @@ namespace FeederLocate.Cli.Tests.Commands;
 
 public class PlanCommandTests
 {
-    private static string Incident(string name) => CliRun.Repo("sample-grid", "incidents", name);
+    private static string Incident(string name) => RepositoryFiles.Path("sample-grid", "incidents", name);
 
     [Fact]
     public void Plan_json_has_the_contract_fields_and_the_crew_steps()
     {
-        var run = CliRun.Of("plan", CliRun.Sample("solid"), Incident("solid-lg-trip-a1.incident.json"), "--json");
+        var run = CliRun.Of("plan", SampleGrids.Path("solid"), Incident("solid-lg-trip-a1.incident.json"), "--json");
 
         Assert.Equal(0, run.ExitCode);
         Assert.Equal(string.Empty, run.Error);
@@ -34,7 +34,7 @@ public class PlanCommandTests
     [Fact]
     public void Plan_table_prints_the_cautions_and_the_steps()
     {
-        var run = CliRun.Of("plan", CliRun.Sample("solid"), Incident("solid-lg-trip-a1.incident.json"));
+        var run = CliRun.Of("plan", SampleGrids.Path("solid"), Incident("solid-lg-trip-a1.incident.json"));
 
         Assert.Equal(0, run.ExitCode);
         Assert.Contains("CAUTION: Advice only", run.Out, StringComparison.Ordinal);
@@ -47,7 +47,7 @@ public class PlanCommandTests
     [Fact]
     public void Standing_earth_fault_plan_carries_the_u0_search()
     {
-        var run = CliRun.Of("plan", CliRun.Sample("resonant"), Incident("resonant-standing-earth-fault-b1.incident.json"), "--json");
+        var run = CliRun.Of("plan", SampleGrids.Path("resonant"), Incident("resonant-standing-earth-fault-b1.incident.json"), "--json");
 
         Assert.Equal(0, run.ExitCode);
         var tests = run.Json().GetProperty("testOrder").EnumerateArray().ToList();
@@ -60,7 +60,7 @@ public class PlanCommandTests
     [Fact]
     public void Split_ranking_plan_carries_trial_closures_with_both_branches()
     {
-        var run = CliRun.Of("plan", CliRun.Sample("impedance"), Incident("impedance-lg-trip-a2.incident.json"), "--json");
+        var run = CliRun.Of("plan", SampleGrids.Path("impedance"), Incident("impedance-lg-trip-a2.incident.json"), "--json");
 
         Assert.Equal(0, run.ExitCode);
         var json = run.Json();
@@ -76,7 +76,7 @@ public class PlanCommandTests
     [Fact]
     public void Bad_options_are_all_reported_and_exit_2()
     {
-        var run = CliRun.Of("plan", CliRun.Sample("solid"), Incident("solid-lg-trip-a1.incident.json"), "--cold-load-factor", "0.5", "--voltage-limit", "1.5");
+        var run = CliRun.Of("plan", SampleGrids.Path("solid"), Incident("solid-lg-trip-a1.incident.json"), "--cold-load-factor", "0.5", "--voltage-limit", "1.5");
 
         Assert.Equal(2, run.ExitCode);
         Assert.Contains("--cold-load-factor must be between 1 and 10, got 0.5", run.Error, StringComparison.Ordinal);
@@ -87,7 +87,7 @@ public class PlanCommandTests
     [Fact]
     public void Missing_incident_file_exits_2()
     {
-        var run = CliRun.Of("plan", CliRun.Sample("solid"), Incident("no-such.incident.json"), "--json");
+        var run = CliRun.Of("plan", SampleGrids.Path("solid"), Incident("no-such.incident.json"), "--json");
 
         Assert.Equal(2, run.ExitCode);
         Assert.Contains("cannot read incident file", run.Error, StringComparison.Ordinal);
@@ -97,7 +97,7 @@ public class PlanCommandTests
     [Fact]
     public void Voltage_limit_option_is_stated_in_the_plan()
     {
-        var run = CliRun.Of("plan", CliRun.Sample("solid"), Incident("solid-lg-trip-a1.incident.json"), "--voltage-limit", "0.95", "--cold-load-factor", "1.5", "--json");
+        var run = CliRun.Of("plan", SampleGrids.Path("solid"), Incident("solid-lg-trip-a1.incident.json"), "--voltage-limit", "0.95", "--cold-load-factor", "1.5", "--json");
 
         Assert.Equal(0, run.ExitCode);
         Assert.Equal(0.95, run.Json().GetProperty("voltageLimitPu").GetDouble());

@@ -1,4 +1,3 @@
-using System.Runtime.CompilerServices;
 using System.Text.Json;
 
 namespace FeederLocate.Cli.Tests.Commands;
@@ -59,7 +58,7 @@ public class RankCommandTests
     [Fact]
     public void Rank_table_names_the_first_section()
     {
-        var run = CliRun.Of("rank", Sample("solid"), Incident("solid-lg-trip-a1"));
+        var run = CliRun.Of("rank", SampleGrids.Path("solid"), Incident("solid-lg-trip-a1"));
 
         Assert.Equal(0, run.ExitCode);
         Assert.Contains("SEC-S108", run.Out, StringComparison.Ordinal);
@@ -83,7 +82,7 @@ public class RankCommandTests
             """);
         try
         {
-            var run = CliRun.Of("rank", Sample("solid"), path, "--json");
+            var run = CliRun.Of("rank", SampleGrids.Path("solid"), path, "--json");
 
             Assert.Equal(2, run.ExitCode);
             Assert.Contains("indication FPI-A1-99: indicator refers to unknown indicator \"FPI-A1-99\"", run.Error, StringComparison.Ordinal);
@@ -99,10 +98,10 @@ public class RankCommandTests
     private static CliRun Rank(string name)
     {
         var scheme = name.Split('-')[0];
-        return CliRun.Of("rank", Sample(scheme), Incident(name), "--json");
+        return CliRun.Of("rank", SampleGrids.Path(scheme), Incident(name), "--json");
     }
 
-    private static string Incident(string name) => Repo("sample-grid", "incidents", $"{name}.incident.json");
+    private static string Incident(string name) => SampleGrids.IncidentPath(name);
 
     private static void AssertDistribution(List<double> p)
     {
@@ -113,26 +112,4 @@ public class RankCommandTests
             Assert.True(p[i] <= p[i - 1], $"#{i} {p[i]} above #{i - 1} {p[i - 1]}");
         }
     }
-
-    /// <summary>
-    /// A file of the repository. CliRun.Repo looks only above the test's output folder, which lies outside
-    /// the repository when the build is given another artifacts path; the folder this file was compiled
-    /// from is always inside it.
-    /// </summary>
-    private static string Repo(params string[] parts)
-    {
-        for (var dir = new DirectoryInfo(SourceDirectory()); dir is not null; dir = dir.Parent)
-        {
-            if (File.Exists(Path.Combine(dir.FullName, "FeederLocate.sln")))
-            {
-                return Path.Combine([dir.FullName, .. parts]);
-            }
-        }
-
-        throw new InvalidOperationException("repository root not found above " + SourceDirectory());
-    }
-
-    private static string SourceDirectory([CallerFilePath] string file = "") => Path.GetDirectoryName(file) ?? string.Empty;
-
-    private static string Sample(string scheme) => Repo("sample-grid", $"marrowdell-{scheme}.grid.json");
 }

@@ -87,7 +87,7 @@ public sealed class FuzzFindingTests
             """);
         try
         {
-            var run = CliRun.Of("rank", CliRun.Sample("solid"), path, "--json");
+            var run = CliRun.Of("rank", SampleGrids.Path("solid"), path, "--json");
 
             Assert.True(run.ExitCode is 0 or 2, $"exit {run.ExitCode}: {run.Error}");
             if (run.ExitCode == 0)
@@ -137,7 +137,7 @@ public sealed class FuzzFindingTests
     [Fact]
     public void Fault_with_rf_negative_zero_exits_0_or_2_not_1()
     {
-        var run = CliRun.Of("fault", CliRun.Sample("solid"), "--segment", "S101", "--type", "LG", "--rf", "-0");
+        var run = CliRun.Of("fault", SampleGrids.Path("solid"), "--segment", "S101", "--type", "LG", "--rf", "-0");
 
         Assert.True(run.ExitCode is 0 or 2, $"exit {run.ExitCode}: {run.Error}");
     }

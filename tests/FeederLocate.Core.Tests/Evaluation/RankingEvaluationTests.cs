@@ -10,18 +10,13 @@ namespace FeederLocate.Core.Tests.Evaluation;
 
 public class RankingEvaluationTests
 {
-    /// <summary>A clock that never moves: the evaluation's timing then reads zero, and nothing in the test depends on the wall clock.</summary>
-    private sealed class StoppedClock : TimeProvider
-    {
-        public override long GetTimestamp() => 1_000_000;
-    }
-
     [Fact]
     public void Ranking_beats_the_baseline_and_stays_near_its_limit_on_simulated_incidents()
     {
         var grid = Grids.Sample("isolated");
 
-        var report = RankingEvaluation.Run(grid, 60, seed: 7, new SimulationSettings(), new StoppedClock());
+        // A fake clock stands still: the evaluation's timing reads zero and nothing depends on the wall clock.
+        var report = RankingEvaluation.Run(grid, 60, seed: 7, new SimulationSettings(), TestClock.Manual());
 
         Assert.Equal(60, report.Incidents);
         foreach (var rates in new[] { report.Deployed, report.Limit, report.Baseline })

@@ -158,7 +158,7 @@ public class GroundingRoundTripTests
     [InlineData("impedance")]
     public void Damping_given_on_any_scheme_survives_a_round_trip(string scheme)
     {
-        var text = Support.RepositoryFiles.Read("tests", "FeederLocate.Core.Tests", "ReferenceCases", "TinyFen", $"tiny-{scheme}.grid.json")
+        var text = RepositoryFiles.Read("tests", "FeederLocate.Core.Tests", "ReferenceCases", "TinyFen", $"tiny-{scheme}.grid.json")
             .Replace($"\"scheme\": \"{scheme}\"", $"\"scheme\": \"{scheme}\", \"dampingPercent\": 4", StringComparison.Ordinal);
         var grid = FeederLocate.Core.Formats.GridReader.Parse(text).ValueOrThrow();
 

@@ -15,7 +15,7 @@ public class AccountStoreTests
     public void An_account_is_kept_with_its_role_grids_and_creator_and_the_change_is_logged()
     {
         using var db = new TempDatabase();
-        var clock = new ManualClock();
+        var clock = TestClock.Manual();
         using var store = AccountStore.Open(db.Path, clock);
 
         var created = store.Create("ana.field", "Ana Field", AccountRole.Operator, HashOne, mustChangePassword: true, ["North 20 kV"], "admin");
@@ -29,7 +29,7 @@ public class AccountStoreTests
         Assert.Equal(new[] { "North 20 kV" }, found.Grids!.Value.ToArray());
         Assert.True(found.MaySee("North 20 kV"));
         Assert.False(found.MaySee("South 20 kV"));
-        Assert.Equal(ManualClock.Start, found.CreatedAt);
+        Assert.Equal(TestClock.Start, found.CreatedAt);
         Assert.Equal("admin", found.CreatedBy);
         Assert.Equal(1, store.Count());
         var change = Assert.Single(store.Changes());
@@ -101,13 +101,13 @@ public class AccountStoreTests
     public void Failed_sign_ins_lock_the_account_at_the_limit_and_a_new_password_unlocks_it()
     {
         using var db = new TempDatabase();
-        var clock = new ManualClock();
+        var clock = TestClock.Manual();
         using var store = AccountStore.Open(db.Path, clock);
         store.Create("ana", "Ana", AccountRole.Operator, HashOne, false, null, "admin");
 
         for (var i = 0; i < 4; i++)
         {
-            Assert.False(store.RecordFailedSignIn("ana", lockAfter: 5, TimeSpan.FromMinutes(15)).IsLockedAt(clock.Now));
+            Assert.False(store.RecordFailedSignIn("ana", lockAfter: 5, TimeSpan.FromMinutes(15)).IsLockedAt(clock.GetUtcNow()));
         }
 
         var locked = store.RecordFailedSignIn("ana", lockAfter: 5, TimeSpan.FromMinutes(15));

@@ -32,7 +32,7 @@ public class EventRoundTripTests
     public void Each_event_kind_reads_back_as_appended(IncidentEvent e)
     {
         using var db = new TempDatabase();
-        var clock = new ManualClock();
+        var clock = TestClock.Manual();
         using var store = IncidentStore.Open(db.Path, clock);
         var incident = store.OpenIncident(TestGrids.BrackenfoldName, TestIncidents.EarthFault(), Operator);
 
@@ -51,7 +51,7 @@ public class EventRoundTripTests
     public void The_opening_event_holds_the_grid_name_and_the_incident_as_given()
     {
         using var db = new TempDatabase();
-        var clock = new ManualClock();
+        var clock = TestClock.Manual();
         using var store = IncidentStore.Open(db.Path, clock);
         var given = TestIncidents.EarthFault();
 
@@ -68,7 +68,7 @@ public class EventRoundTripTests
     public void Payloads_are_camel_case_json_with_the_incident_format_names()
     {
         using var db = new TempDatabase();
-        var clock = new ManualClock();
+        var clock = TestClock.Manual();
         using var store = IncidentStore.Open(db.Path, clock);
         var incident = store.OpenIncident(TestGrids.BrackenfoldName, TestIncidents.EarthFault(), Operator);
         store.Append(incident, new IndicationEntered(new Indication(new IndicatorId("FI3"), IndicatorState.Fault,
@@ -95,7 +95,7 @@ public class EventRoundTripTests
     public void A_payload_missing_a_required_field_is_reported_with_its_event_id()
     {
         using var db = new TempDatabase();
-        var clock = new ManualClock();
+        var clock = TestClock.Manual();
         using var store = IncidentStore.Open(db.Path, clock);
         var incident = store.OpenIncident(TestGrids.BrackenfoldName, TestIncidents.EarthFault(), Operator);
         using (var raw = RawDatabase.Open(db.Path))

@@ -1,7 +1,6 @@
 using FeederLocate.Core.Evidence;
 using FeederLocate.Core.Model;
 using FeederLocate.Storage.Events;
-using FeederLocate.Storage.Tests.Support;
 
 namespace FeederLocate.Storage.Tests.Incidents;
 

@@ -3,7 +3,6 @@ using FeederLocate.Core.Evidence;
 using FeederLocate.Core.Model;
 using FeederLocate.Storage.Events;
 using FeederLocate.Storage.Incidents;
-using FeederLocate.Storage.Tests.Support;
 
 namespace FeederLocate.Storage.Tests.Incidents;
 
@@ -71,5 +70,5 @@ public class IncidentFoldProperties
     }
 
     private static StoredEvent Stored(int index, IncidentEvent e) =>
-        new(new EventId(index + 1), new IncidentId(1), index + 1, ManualClock.Start.AddMinutes(index), new Actor("test"), e);
+        new(new EventId(index + 1), new IncidentId(1), index + 1, TestClock.Start.AddMinutes(index), new Actor("test"), e);
 }

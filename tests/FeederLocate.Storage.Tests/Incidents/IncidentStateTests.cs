@@ -3,7 +3,6 @@ using FeederLocate.Core.Evidence;
 using FeederLocate.Core.Model;
 using FeederLocate.Storage.Events;
 using FeederLocate.Storage.Incidents;
-using FeederLocate.Storage.Tests.Support;
 
 namespace FeederLocate.Storage.Tests.Incidents;
 
@@ -16,7 +15,7 @@ public class IncidentStateTests
     public void State_applies_the_events_in_order()
     {
         using var db = new TempDatabase();
-        var clock = new ManualClock();
+        var clock = TestClock.Manual();
         using var store = IncidentStore.Open(db.Path, clock);
         var id = store.OpenIncident(TestGrids.BrackenfoldName, TestIncidents.EarthFault(), Operator);
         var fieldRead = new DateTimeOffset(2026, 3, 14, 6, 20, 0, TimeSpan.Zero);
@@ -58,7 +57,7 @@ public class IncidentStateTests
         Assert.Equal(IncidentStatus.Closed, state.Status);
         Assert.Equal(11, state.EventCount);
         Assert.Equal(Operator, state.OpenedBy);
-        Assert.Equal(ManualClock.Start, state.OpenedAt);
+        Assert.Equal(TestClock.Start, state.OpenedAt);
         Assert.Equal(closed, state.ClosedAt);
         var step = Assert.Single(state.CompletedSteps);
         Assert.Equal(new CompletedPlanStep(new PlanStepCompleted(1, "open", "LB2"), Operator, stepDone), step);
@@ -70,7 +69,7 @@ public class IncidentStateTests
     public void A_new_incident_is_open_with_its_evidence_as_given()
     {
         using var db = new TempDatabase();
-        using var store = IncidentStore.Open(db.Path, new ManualClock());
+        using var store = IncidentStore.Open(db.Path, TestClock.Manual());
 
         var state = store.State(store.OpenIncident(TestGrids.BrackenfoldName, TestIncidents.EarthFault(), Operator));
 
@@ -85,7 +84,7 @@ public class IncidentStateTests
     public void Record_logs_incident_outcome_and_closing_in_one_go()
     {
         using var db = new TempDatabase();
-        using var store = IncidentStore.Open(db.Path, new ManualClock());
+        using var store = IncidentStore.Open(db.Path, TestClock.Manual());
 
         var id = store.Record(TestGrids.Brackenfold(), TestIncidents.EarthFault(), new OutcomeLogged(new SegmentId("S1")), new Actor("cli"));
 
@@ -97,7 +96,7 @@ public class IncidentStateTests
     public void Incidents_lists_each_with_status_fault_type_and_confirmed_segment()
     {
         using var db = new TempDatabase();
-        using var store = IncidentStore.Open(db.Path, new ManualClock());
+        using var store = IncidentStore.Open(db.Path, TestClock.Manual());
         var grid = TestGrids.Brackenfold();
         var first = store.Record(grid, TestIncidents.EarthFault(), new OutcomeLogged(new SegmentId("S2"), FaultType.LLG, "digger"), new Actor("cli"));
         var second = store.OpenIncident("Ferncombe 11 kV", TestIncidents.EarthFault(TestIncidents.ReportedAt.AddDays(3)) with { FaultType = null }, Operator);
@@ -115,7 +114,7 @@ public class IncidentStateTests
     public void Outcomes_holds_the_incidents_of_that_grid_with_a_logged_outcome()
     {
         using var db = new TempDatabase();
-        using var store = IncidentStore.Open(db.Path, new ManualClock());
+        using var store = IncidentStore.Open(db.Path, TestClock.Manual());
         var grid = TestGrids.Brackenfold();
         var withOutcome = store.OpenIncident(grid.Name, TestIncidents.EarthFault(), Operator);
         store.Append(withOutcome, new IndicationEntered(new Indication(new IndicatorId("FI3"), IndicatorState.Fault, IndicationSource.Field)), Crew);

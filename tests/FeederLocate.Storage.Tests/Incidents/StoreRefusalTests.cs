@@ -3,7 +3,6 @@ using FeederLocate.Core.Model;
 using FeederLocate.Storage.Errors;
 using FeederLocate.Storage.Events;
 using FeederLocate.Storage.Incidents;
-using FeederLocate.Storage.Tests.Support;
 
 namespace FeederLocate.Storage.Tests.Incidents;
 

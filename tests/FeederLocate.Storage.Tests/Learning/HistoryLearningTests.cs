@@ -1,10 +1,13 @@
 using FeederLocate.Core.Learning;
 using FeederLocate.Core.Model;
 using FeederLocate.Storage.Events;
-using FeederLocate.Storage.Tests.Support;
 
 namespace FeederLocate.Storage.Tests.Learning;
 
+/// <summary>
+/// Priors learned from outcomes read back from the incident log: this needs the store, so it stays with
+/// the storage tests; the learning itself is tested in FeederLocate.Core.Tests/Learning.
+/// </summary>
 public class HistoryLearningTests
 {
     [Fact]

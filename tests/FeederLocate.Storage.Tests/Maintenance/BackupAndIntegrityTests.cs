@@ -44,7 +44,7 @@ public class BackupAndIntegrityTests
     {
         using var db = new TempDatabase();
         var backupPath = db.Sibling("backup.db");
-        var clock = new ManualClock();
+        var clock = TestClock.Manual();
         List<StoredEvent> original;
         using (var store = IncidentStore.Open(db.Path, clock))
         {

@@ -63,7 +63,7 @@ public class SchemaMigrationTests
     public void Open_migrates_a_version_1_database_and_keeps_its_events()
     {
         using var db = new TempDatabase();
-        var clock = new ManualClock();
+        var clock = TestClock.Manual();
         // A database as the first release left it: schema step 1 only, with one incident of two events.
         using (var connection = StoreConnection.Open(db.Path))
         {
@@ -98,7 +98,7 @@ public class SchemaMigrationTests
         using var connection = StoreConnection.Open(db.Path);
 
         Assert.Throws<SqliteException>(() =>
-            SchemaMigrator.Migrate(connection, new ManualClock(), db.Path, [Migration.All[0], broken], targetVersion: 2));
+            SchemaMigrator.Migrate(connection, TestClock.Manual(), db.Path, [Migration.All[0], broken], targetVersion: 2));
 
         Assert.Equal(1, SchemaMigrator.CurrentVersion(connection));
         Assert.Equal(0, RawDatabase.Long(connection, "SELECT COUNT(*) FROM sqlite_master WHERE name = 'half_done'"));
@@ -136,7 +136,7 @@ public class SchemaMigrationTests
     private static void InsertVersion1Event(SqliteConnection connection, int sequence, IncidentEvent e) =>
         RawDatabase.Execute(connection,
             "INSERT INTO events (incident_id, sequence, time, actor, kind, payload) VALUES (7, $sequence, $time, 'operator-1', $kind, $payload)",
-            ("$sequence", sequence), ("$time", IsoTime.Format(ManualClock.Start.AddMinutes(sequence))),
+            ("$sequence", sequence), ("$time", IsoTime.Format(TestClock.Start.AddMinutes(sequence))),
             ("$kind", EventPayload.KindOf(e)), ("$payload", EventPayload.Serialize(e)));
 
     private static List<long> Versions(SqliteConnection connection)

@@ -8,7 +8,7 @@ namespace FeederLocate.Web.Tests.Components;
 
 public class OneLineDiagramTests : ComponentTest
 {
-    private readonly Services.LoadedGrid _grid = TestGrids.Sample("solid");
+    private readonly Services.LoadedGrid _grid = LoadedGrids.Sample("solid");
 
     private DiagramState State(IReadOnlyDictionary<SectionId, double>? probability = null, IReadOnlyDictionary<IndicatorId, DiagramIndication>? indications = null) => new(
         _grid.Grid.Switches.Where(s => !s.NormallyOpen).Select(s => s.Id).ToHashSet(),

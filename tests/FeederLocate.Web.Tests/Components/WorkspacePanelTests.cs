@@ -12,7 +12,7 @@ namespace FeederLocate.Web.Tests.Components;
 
 public class WorkspacePanelTests : ComponentTest
 {
-    private readonly Services.LoadedGrid _grid = TestGrids.Sample("solid");
+    private readonly Services.LoadedGrid _grid = LoadedGrids.Sample("solid");
 
     [Fact]
     public void Indicator_entry_offers_only_the_states_of_each_kind_and_raises_the_choice()
@@ -90,7 +90,7 @@ public class WorkspacePanelTests : ComponentTest
 
 public class RecordAndPlanPanelTests : ComponentTest
 {
-    private readonly Services.LoadedGrid _grid = TestGrids.Sample("solid");
+    private readonly Services.LoadedGrid _grid = LoadedGrids.Sample("solid");
 
     [Fact]
     public void Record_form_amends_tripped_device_and_fault_type_and_enters_currents()

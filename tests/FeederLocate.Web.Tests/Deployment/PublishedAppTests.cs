@@ -81,7 +81,7 @@ public sealed partial class PublishedAppTests(PublishedAppTests.Fixture publishe
         public static async Task<PublishedApp> Start(string work)
         {
             var published = Path.Combine(work, "published");
-            await Run("dotnet", ["publish", Path.Combine(TestGrids.Root, "src", "FeederLocate.Web"), "-c", "Release", "-o", published, "--nologo"]);
+            await Run("dotnet", ["publish", Path.Combine(RepositoryFiles.Root, "src", "FeederLocate.Web"), "-c", "Release", "-o", published, "--nologo"]);
             var copy = Path.Combine(work, "copy", "feederlocate");
             CopyFolder(published, copy);
             Directory.Delete(published, recursive: true);

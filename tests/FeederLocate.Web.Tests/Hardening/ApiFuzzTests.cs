@@ -3,7 +3,6 @@ using System.Net.Http.Json;
 using System.Text;
 using System.Text.Json;
 using CsCheck;
-using FeederLocate.Cli.Tests.Hardening;
 using FeederLocate.Web.Services;
 using FeederLocate.Web.Tests.Support;
 using Microsoft.Extensions.DependencyInjection;

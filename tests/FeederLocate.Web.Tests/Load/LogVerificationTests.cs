@@ -9,9 +9,9 @@ namespace FeederLocate.Web.Tests.Load;
 public sealed class LogVerificationTests : IDisposable
 {
     private static readonly DateTimeOffset ReportedAt = new(2026, 11, 30, 6, 12, 0, TimeSpan.Zero);
-    private readonly string _folder = Directory.CreateTempSubdirectory("feederlocate-verify-").FullName;
+    private readonly TempDatabase _db = new("incidents.db");
 
-    private string DatabasePath => Path.Combine(_folder, "incidents.db");
+    private string DatabasePath => _db.Path;
 
     private static Indication Reading(string indicator, int second) =>
         new(new IndicatorId(indicator), IndicatorState.Fault, IndicationSource.Remote, ReportedAt.AddSeconds(second));
@@ -57,9 +57,5 @@ public sealed class LogVerificationTests : IDisposable
         return (id.Value, [.. readings.Select(r => r.Indication)]);
     }
 
-    public void Dispose()
-    {
-        Microsoft.Data.Sqlite.SqliteConnection.ClearAllPools();
-        Directory.Delete(_folder, recursive: true);
-    }
+    public void Dispose() => _db.Dispose();
 }

@@ -9,7 +9,7 @@ public sealed class LoopbackLoadTests
     [Fact]
     public async Task Twenty_clients_for_five_seconds_get_no_errors_and_every_accepted_indication_is_logged_once()
     {
-        var options = new LoadOptions(Clients: 20, Duration: TimeSpan.FromSeconds(5), Incidents: 5, GridFolder: Path.Combine(TestGrids.Root, "sample-grid"));
+        var options = new LoadOptions(Clients: 20, Duration: TimeSpan.FromSeconds(5), Incidents: 5, GridFolder: Path.Combine(RepositoryFiles.Root, "sample-grid"));
 
         var report = await LoadRun.RunAsync(options, progress: null);
 

@@ -10,7 +10,7 @@ public class OneLineLayoutTests
 {
     public static TheoryData<string> Samples => new() { "solid", "resonant", "isolated", "impedance" };
 
-    private static OneLineDrawing Sample(string scheme) => TestGrids.Sample(scheme).Drawing;
+    private static OneLineDrawing Sample(string scheme) => LoadedGrids.Sample(scheme).Drawing;
 
     private static OneLineDrawing Generated(int segments, GroundingScheme scheme, int substations, int seed) =>
         OneLineLayout.Draw(new NetworkGraph(SyntheticGrid.Generate(new SyntheticGridOptions(segments, seed, scheme, Substations: substations))));

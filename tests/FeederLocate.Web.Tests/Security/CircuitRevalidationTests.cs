@@ -8,12 +8,12 @@ namespace FeederLocate.Web.Tests.Security;
 public sealed class CircuitRevalidationTests : IDisposable
 {
     private static readonly Actor Engineer = new("admin", "engineer");
-    private readonly string _folder = Directory.CreateTempSubdirectory("feederlocate-circuit-").FullName;
+    private readonly TempDatabase _db = new("accounts.db");
 
     [Fact]
     public void A_page_stays_signed_in_until_the_account_is_disabled_or_its_role_or_password_changes()
     {
-        using var accounts = new AccountDirectory(AccountStore.Open(Path.Combine(_folder, "accounts.db")), TimeProvider.System);
+        using var accounts = new AccountDirectory(AccountStore.Open(_db.Path), TimeProvider.System);
         accounts.CreateWithPassword("admin", "Administrator", AccountRole.Engineer, "admin-password-1", null, Engineer);
         var page = AccountClaims.For(accounts.CreateWithPassword("ana", "Ana", AccountRole.Operator, "ana-password-1", null, Engineer), "Cookies");
         var other = AccountClaims.For(accounts.CreateWithPassword("ben", "Ben", AccountRole.Operator, "ben-password-1", null, Engineer), "Cookies");
@@ -31,9 +31,5 @@ public sealed class CircuitRevalidationTests : IDisposable
         Assert.False(CircuitRevalidation.StillValid(accounts, third));
     }
 
-    public void Dispose()
-    {
-        Microsoft.Data.Sqlite.SqliteConnection.ClearAllPools();
-        Directory.Delete(_folder, recursive: true);
-    }
+    public void Dispose() => _db.Dispose();
 }

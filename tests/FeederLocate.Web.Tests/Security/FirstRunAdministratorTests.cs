@@ -5,10 +5,10 @@ namespace FeederLocate.Web.Tests.Security;
 
 public sealed class FirstRunAdministratorTests : IDisposable
 {
-    private readonly string _folder = Directory.CreateTempSubdirectory("feederlocate-first-run-").FullName;
+    private readonly TempDatabase _db = new("accounts.db");
 
     private AccountDirectory NewDirectory() =>
-        new(AccountStore.Open(Path.Combine(_folder, "accounts.db")), TimeProvider.System);
+        new(AccountStore.Open(_db.Path), TimeProvider.System);
 
     [Fact]
     public void Without_a_configured_password_the_first_run_prints_a_one_time_password_that_signs_in_once_and_must_be_changed()
@@ -94,9 +94,5 @@ public sealed class FirstRunAdministratorTests : IDisposable
         Assert.Equal(SignInVerdict.WrongNameOrPassword, accounts.SignIn("admin", "a-configured-admin-password").Verdict);
     }
 
-    public void Dispose()
-    {
-        Microsoft.Data.Sqlite.SqliteConnection.ClearAllPools();
-        Directory.Delete(_folder, recursive: true);
-    }
+    public void Dispose() => _db.Dispose();
 }

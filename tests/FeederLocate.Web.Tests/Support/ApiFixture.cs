@@ -25,7 +25,7 @@ public sealed class ApiFixture : IDisposable
         Factory = new WebApplicationFactory<Program>().WithWebHostBuilder(b =>
         {
             b.UseSetting("FeederLocate:DatabasePath", Path.Combine(_folder, "incidents.db"));
-            b.UseSetting("FeederLocate:GridFolder", Path.Combine(TestGrids.Root, "sample-grid"));
+            b.UseSetting("FeederLocate:GridFolder", Path.Combine(RepositoryFiles.Root, "sample-grid"));
             b.UseSetting("FeederLocate:AdministratorPassword", AdministratorPassword);
         });
         Accounts = Factory.Services.GetRequiredService<AccountDirectory>();

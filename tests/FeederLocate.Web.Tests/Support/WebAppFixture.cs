@@ -37,7 +37,7 @@ public sealed class WebAppFixture : IAsyncLifetime
 
     public string BaseAddress { get; private set; } = string.Empty;
 
-    public string ArtifactsFolder => Path.Combine(TestGrids.Root, "tests", "FeederLocate.Web.Tests", "bin", "screenshots");
+    public string ArtifactsFolder => Path.Combine(RepositoryFiles.Root, "tests", "FeederLocate.Web.Tests", "bin", "screenshots");
 
     public async Task InitializeAsync()
     {
@@ -48,7 +48,7 @@ public sealed class WebAppFixture : IAsyncLifetime
         _factory = new WebApplicationFactory<Program>().WithWebHostBuilder(b =>
         {
             b.UseSetting("FeederLocate:DatabasePath", Path.Combine(_folder, "incidents.db"));
-            b.UseSetting("FeederLocate:GridFolder", Path.Combine(TestGrids.Root, "sample-grid"));
+            b.UseSetting("FeederLocate:GridFolder", Path.Combine(RepositoryFiles.Root, "sample-grid"));
             b.UseSetting("Urls", "http://127.0.0.1:0");
             b.UseSetting("FeederLocate:AdministratorPassword", AdministratorPassword);
             b.ConfigureLogging(logging => logging.AddProvider(ServerLog));

@@ -1,6 +1,6 @@
 using FeederLocate.Core.Learning;
 
-namespace FeederLocate.Storage.Tests.Learning;
+namespace FeederLocate.Core.Tests.Learning;
 
 /// <summary>
 /// Credible intervals checked against closed forms where the distribution has one, and against MathNet's

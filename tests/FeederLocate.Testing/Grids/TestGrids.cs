@@ -1,6 +1,6 @@
 using FeederLocate.Core.Model;
 
-namespace FeederLocate.Storage.Tests.Support;
+namespace FeederLocate.Testing;
 
 /// <summary>
 /// An invented 20 kV feeder: S1 (cable, 2 km) and S2 (cable, 3 km) in line, then S3 (overhead, 5 km).

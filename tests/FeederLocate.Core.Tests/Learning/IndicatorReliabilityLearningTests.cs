@@ -2,9 +2,8 @@ using CsCheck;
 using FeederLocate.Core.Evidence;
 using FeederLocate.Core.Learning;
 using FeederLocate.Core.Model;
-using FeederLocate.Storage.Tests.Support;
 
-namespace FeederLocate.Storage.Tests.Learning;
+namespace FeederLocate.Core.Tests.Learning;
 
 /// <summary>
 /// Indicator reliabilities on the test grid: FI1 and FI4 non-directional remote, FI2 directional remote,

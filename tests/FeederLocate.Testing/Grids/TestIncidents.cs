@@ -3,7 +3,7 @@ using FeederLocate.Core.Evidence;
 using FeederLocate.Core.Formats;
 using FeederLocate.Core.Model;
 
-namespace FeederLocate.Storage.Tests.Support;
+namespace FeederLocate.Testing;
 
 /// <summary>Incidents on <see cref="TestGrids.Brackenfold"/>.</summary>
 public static class TestIncidents

@@ -1,9 +1,8 @@
 using CsCheck;
 using FeederLocate.Core.Learning;
 using FeederLocate.Core.Model;
-using FeederLocate.Storage.Tests.Support;
 
-namespace FeederLocate.Storage.Tests.Learning;
+namespace FeederLocate.Core.Tests.Learning;
 
 /// <summary>
 /// Fault rates on the test grid: cable CAB-AL150 (default 3 per 100 km·year) on S1 (2 km) and S2 (3 km),

@@ -5,7 +5,7 @@ using System.Text.Json.Nodes;
 using System.Text.RegularExpressions;
 using CsCheck;
 
-namespace FeederLocate.Cli.Tests.Hardening;
+namespace FeederLocate.Testing;
 
 /// <summary>Edits made on the parsed JSON tree, so the file stays well-formed and reaches the element checks.</summary>
 public enum TreeOp

@@ -2,18 +2,16 @@ using System.Text.Json;
 using FeederLocate.Core.Formats;
 using FeederLocate.Core.Model;
 
-namespace FeederLocate.Cli.Tests.Hardening;
+namespace FeederLocate.Testing;
 
 /// <summary>The sample grids and incidents the fuzz tests mutate, each incident with the grid it names.</summary>
 public static class SampleFiles
 {
-    public static readonly string[] Schemes = ["impedance", "isolated", "resonant", "solid"];
-
     private static readonly Lazy<IReadOnlyList<SampleGrid>> LazyGrids = new(() =>
-        Schemes.Select(s => new SampleGrid(s, CliRun.Sample(s), File.ReadAllText(CliRun.Sample(s)), GridReader.Parse(File.ReadAllText(CliRun.Sample(s))).ValueOrThrow())).ToList());
+        SampleGrids.Schemes.Select(s => new SampleGrid(s, SampleGrids.Path(s), File.ReadAllText(SampleGrids.Path(s)), GridReader.Parse(File.ReadAllText(SampleGrids.Path(s))).ValueOrThrow())).ToList());
 
     private static readonly Lazy<IReadOnlyList<SampleIncident>> LazyIncidents = new(() =>
-        Directory.GetFiles(CliRun.Repo("sample-grid", "incidents"), "*.incident.json")
+        Directory.GetFiles(RepositoryFiles.Path("sample-grid", "incidents"), "*.incident.json")
             .Order(StringComparer.Ordinal)
             .Select(path =>
             {
