@@ -44,6 +44,15 @@ public static partial class OperatorWords
         _ => quantity,
     };
 
+    /// <summary>A fault type in words, with its short form: "phase to earth (LG)".</summary>
+    public static string FaultType(FeederLocate.Core.Evidence.FaultType type) => type switch
+    {
+        Core.Evidence.FaultType.LG => "phase to earth (LG)",
+        Core.Evidence.FaultType.LL => "phase to phase (LL)",
+        Core.Evidence.FaultType.LLG => "two phases to earth (LLG)",
+        _ => "three-phase (LLL)",
+    };
+
     /// <summary>A whole count with thousands grouped: 12,345.</summary>
     public static string Count(double value) => Math.Round(value).ToString("#,0", Numbers);
 
