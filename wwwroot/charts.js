@@ -18,9 +18,11 @@ export function bar(canvasId, labels, series, title) {
       animation: false,
       responsive: true,
       plugins: { title: { display: true, text: title }, legend: { display: series.length > 1 } },
-      scales: { y: { beginAtZero: true } },
+      scales: { y: { beginAtZero: true, ticks: { precision: 0 } } },
     },
   });
   charts.set(canvasId, chart);
+  // Tells the browser tests (and anyone looking) that the chart has drawn.
+  canvas.dataset.drawn = 'true';
   return true;
 }

@@ -17,8 +17,17 @@ public static class FeederLocateWebApp
             Args = args,
             // The web project's own name, whoever hosts it: its static web assets manifest is found by it.
             ApplicationName = typeof(FeederLocateWebApp).Assembly.GetName().Name,
-            WebRootPath = WebRoot.Find(AppContext.BaseDirectory, Directory.GetCurrentDirectory()),
+
+            // The app's own folder, wherever it is started from: its settings, static files (wwwroot/) and
+            // sample grids travel with it (see the project file), and relative paths in the settings start there.
+            ContentRootPath = AppContext.BaseDirectory,
         });
+
+        // Listens where --urls or ASPNETCORE_URLS say, else on the default address.
+        if (string.IsNullOrEmpty(builder.Configuration[WebHostDefaults.ServerUrlsKey]))
+        {
+            builder.WebHost.UseUrls(Hosting.ListenAddresses.Default);
+        }
 
         // Blazor's own script comes from the framework's static web assets, in every environment.
         builder.WebHost.UseStaticWebAssets();

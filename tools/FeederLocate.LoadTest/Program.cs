@@ -47,6 +47,16 @@ internal static class LoadTestProgram
             return result.Passed ? 0 : 1;
         });
 
+        var segments = new Option<int>("--segments") { Description = "Segments of the generated grid", DefaultValueFactory = _ => 10_000 };
+        var rounds = new Option<int>("--rounds") { Description = "Simulated incidents opened (after one warm-up)", DefaultValueFactory = _ => 10 };
+        var viewSeed = new Option<int>("--seed") { Description = "Seed of the grid and the incidents", DefaultValueFactory = _ => 1 };
+        var view = new Command("view", "Measures the server's share of the one-line view on a generated grid: loading it, opening an incident, pan and zoom steps")
+        {
+            segments, rounds, viewSeed,
+        };
+        view.SetAction(parse => ViewBench.Run(parse.GetValue(segments), parse.GetValue(viewSeed), parse.GetValue(rounds), Console.Out));
+        root.Subcommands.Add(view);
+
         return await root.Parse(args).InvokeAsync();
     }
 }

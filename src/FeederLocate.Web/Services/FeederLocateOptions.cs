@@ -3,13 +3,13 @@ namespace FeederLocate.Web.Services;
 /// <summary>Settings of the web app (section "FeederLocate" of the configuration).</summary>
 public sealed class FeederLocateOptions
 {
-    /// <summary>Folder whose *.grid.json files are offered; relative paths are taken from the repository root.</summary>
+    /// <summary>Folder whose *.grid.json files are offered; a relative path starts at the app's folder (its content root).</summary>
     public string GridFolder { get; set; } = "sample-grid";
 
     /// <summary>The grid a new incident opens on unless another is chosen (file name without folder).</summary>
     public string DefaultGrid { get; set; } = "marrowdell-resonant.grid.json";
 
-    /// <summary>The SQLite incident log; created on first run.</summary>
+    /// <summary>The SQLite incident log, created on first run; a relative path starts at the app's folder.</summary>
     public string DatabasePath { get; set; } = "feederlocate.db";
 
     /// <summary>

@@ -11,6 +11,12 @@ public sealed record LoadedGrid(string Key, Grid Grid, NetworkGraph Graph, OneLi
 {
     public string Name => Grid.Name;
 
+    /// <summary>Operators' names of the sections: feeder and bounding devices.</summary>
+    public SectionNames SectionNames { get; } = SectionNames.Build(Graph, FeederMap.Build(Graph));
+
+    /// <summary>The section each segment is in.</summary>
+    public IReadOnlyDictionary<SegmentId, SectionId> SectionOfSegment { get; } = Drawing.Segments.ToDictionary(s => s.Id, s => s.Section);
+
     public static LoadedGrid Of(string key, Grid grid)
     {
         var graph = new NetworkGraph(grid);

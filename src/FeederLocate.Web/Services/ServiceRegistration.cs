@@ -13,10 +13,10 @@ public static class ServiceRegistration
     public static IServiceCollection AddFeederLocate(this IServiceCollection services, IConfiguration configuration, string contentRoot)
     {
         var options = configuration.GetSection("FeederLocate").Get<FeederLocateOptions>() ?? new FeederLocateOptions();
-        var root = RepositoryPaths.Root(contentRoot);
+        var root = contentRoot;
         services.AddSingleton(options);
-        services.AddSingleton(_ => new GridCatalog(RepositoryPaths.Resolve(root, options.GridFolder), options.DefaultGrid));
-        var databasePath = RepositoryPaths.Resolve(root, options.DatabasePath);
+        services.AddSingleton(_ => new GridCatalog(Path.GetFullPath(options.GridFolder, root), options.DefaultGrid));
+        var databasePath = Path.GetFullPath(options.DatabasePath, root);
         // Claimed before the database is opened: a second web app on the same file is refused at start.
         services.AddSingleton(_ => Storage.Maintenance.InstanceLock.Claim(databasePath));
         services.AddSingleton(sp => new IncidentBoard(IncidentStore.Open(databasePath), name => sp.GetRequiredService<GridCatalog>().Find(name)?.Grid));
@@ -27,7 +27,7 @@ public static class ServiceRegistration
         services.AddSingleton(provider => new IncidentAnalysis(provider.GetRequiredService<GridLearning>(), provider.GetRequiredService<IFaultRanker>()));
         services.AddSingleton<IncidentHistory>();
         services.AddSingleton<EvidenceIntake>();
-        services.AddSingleton(_ => new LearningCurves(RepositoryPaths.Resolve(root, options.GridFolder)));
+        services.AddSingleton(_ => new LearningCurves(Path.GetFullPath(options.GridFolder, root)));
         services.AddSingleton(TimeProvider.System);
         return services;
     }

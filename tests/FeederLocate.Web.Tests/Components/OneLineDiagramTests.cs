@@ -23,8 +23,8 @@ public class OneLineDiagramTests : ComponentTest
         var cut = Render<OneLineDiagram>(p => p.Add(c => c.Drawing, _grid.Drawing).Add(c => c.State, State()));
 
         var cables = _grid.Grid.Segments.Count(s => _grid.Grid.LineTypeOf(s).Construction == Construction.Cable);
-        Assert.Equal(cables, cut.FindAll("line.segment.cable").Count);
-        Assert.Equal(_grid.Grid.Segments.Length - cables, cut.FindAll("line.segment.overhead").Count);
+        Assert.Equal(cables, cut.FindAll("polyline.segment.cable").Count);
+        Assert.Equal(_grid.Grid.Segments.Length - cables, cut.FindAll("polyline.segment.overhead").Count);
     }
 
     [Fact]
@@ -52,7 +52,7 @@ public class OneLineDiagramTests : ComponentTest
 
         var cut = Render<OneLineDiagram>(p => p.Add(c => c.Drawing, _grid.Drawing).Add(c => c.State, State(indications: indications)));
 
-        cut.Find("g[data-indicator='FPI-A1-01'] text.mark").MarkupMatches("<text class=\"mark\" y=\"4\">▶</text>");
+        cut.Find("g[data-indicator='FPI-A1-01'] text.mark").MarkupMatches("<text class=\"mark\" y=\"3.5\">▶</text>");
         Assert.Equal("fault", cut.Find("g[data-indicator='FPI-A1-04']").GetAttribute("data-state"));
         Assert.Single(cut.FindAll("g[data-indicator='FPI-A1-04'] line.distrust-mark"));
         Assert.Equal("unknown", cut.Find("g[data-indicator='FPI-A1-07']").GetAttribute("data-state"));
@@ -67,7 +67,7 @@ public class OneLineDiagramTests : ComponentTest
 
         Assert.Equal("72 %", cut.Find("g[data-section-label='SEC-S108'] text").TextContent);
         var shaded = _grid.Drawing.Segments.Count(s => s.Section.Value is "SEC-S108" or "SEC-S112");
-        Assert.Equal(shaded, cut.FindAll("line.suspect").Count);
+        Assert.Equal(shaded, cut.FindAll("polyline.suspect").Count);
     }
 
     [Fact]
@@ -86,5 +86,55 @@ public class OneLineDiagramTests : ComponentTest
 
         Assert.Equal(new IndicatorId("FPI-A2-05"), clickedIndicator);
         Assert.Equal(new SwitchId("LB-A1-4"), clickedSwitch);
+    }
+}
+
+public class OneLineDiagramOnALargeGridTests : ComponentTest
+{
+    private static readonly FeederLocate.Web.Services.LoadedGrid Large = FeederLocate.Web.Services.LoadedGrid.Of("large",
+        FeederLocate.Core.Synthetic.SyntheticGrid.Generate(new FeederLocate.Core.Synthetic.SyntheticGridOptions(10_000, Seed: 1)));
+
+    private static DiagramState AllLive() => new(
+        Large.Grid.Switches.Where(s => !s.NormallyOpen).Select(s => s.Id).ToHashSet(),
+        Large.Grid.Segments.Select(s => s.Id).ToHashSet(),
+        new Dictionary<IndicatorId, DiagramIndication>(),
+        new Dictionary<SectionId, double>(),
+        new HashSet<SectionId>());
+
+    [Fact]
+    public void Opened_on_a_section_it_draws_only_the_part_in_view()
+    {
+        var focus = Large.Graph.Sections.All[Large.Graph.Sections.All.Length / 2].Id;
+
+        var cut = Render<OneLineDiagram>(p => p.Add(c => c.Drawing, Large.Drawing).Add(c => c.State, AllLive()).Add(c => c.Focus, new[] { focus }));
+
+        var drawn = cut.FindAll("polyline.segment");
+        Assert.InRange(drawn.Count, 1, 600);
+        Assert.Contains(drawn, s => Large.Drawing.Segments.Single(d => d.Id.Value == s.GetAttribute("data-segment")).Section == focus);
+        Assert.Equal("detail", cut.Find("[data-testid=oneline]").GetAttribute("data-mode"));
+    }
+
+    [Fact]
+    public void The_whole_network_is_one_path_per_feeder_without_symbols()
+    {
+        var cut = Render<OneLineDiagram>(p => p.Add(c => c.Drawing, Large.Drawing).Add(c => c.State, AllLive()));
+
+        Assert.Equal("overview", cut.Find("[data-testid=oneline]").GetAttribute("data-mode"));
+        Assert.Equal(Large.Drawing.Feeders.Length, cut.FindAll("path.feeder-path").Count);
+        Assert.Empty(cut.FindAll("g[data-indicator]"));
+        Assert.Empty(cut.FindAll("polyline.segment"));
+    }
+
+    [Fact]
+    public void Search_finds_a_device_and_brings_it_into_view()
+    {
+        var target = Large.Grid.Switches[Large.Grid.Switches.Length / 3];
+        var cut = Render<OneLineDiagram>(p => p.Add(c => c.Drawing, Large.Drawing).Add(c => c.State, AllLive()));
+        Assert.Empty(cut.FindAll($"g[data-switch='{target.Id}']"));
+
+        cut.Find("[data-testid=diagram-search]").Input(target.Id.Value);
+        cut.Find("[data-testid=search-matches] button").Click();
+
+        Assert.Contains("found", cut.Find($"g[data-switch='{target.Id}']").ClassList);
     }
 }

@@ -44,11 +44,11 @@ public sealed class WorkspaceAnalysisTests : BunitContext
 
         _ranker.Hold();
         var cut = Render<IncidentWorkspace>(p => p.Add(c => c.Id, id.Value));
-        var busy = cut.Find("[data-testid=analysis-busy]");
+        var busy = cut.Find("[data-testid=working]");
         _ranker.Release();
 
-        busy.MarkupMatches("""<p class="busy" role="status" data-testid="analysis-busy">Computing ranking…</p>""");
-        cut.WaitForAssertion(() => Assert.Empty(cut.FindAll("[data-testid=analysis-busy]")), TimeSpan.FromMinutes(1));
+        busy.MarkupMatches("""<span class="busy" role="status" data-testid="working">computing the suspects and the switching order…</span>""");
+        cut.WaitForAssertion(() => Assert.Empty(cut.FindAll("[data-testid=working]")), TimeSpan.FromMinutes(1));
         Assert.NotEmpty(cut.FindAll("li[data-section]"));
     }
 

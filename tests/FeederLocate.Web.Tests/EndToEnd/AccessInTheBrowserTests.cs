@@ -30,6 +30,7 @@ public sealed class AccessInTheBrowserTests(WebAppFixture app) : IClassFixture<W
         await Assertions.Expect(page.Locator("[data-testid=read-only]")).ToBeVisibleAsync();
         Assert.Equal(0, await page.Locator("[data-testid^='state-']").CountAsync());
         Assert.Equal(0, await page.Locator("[data-testid=log-outcome]").CountAsync());
+        await IncidentWorkflowTests.ShowOnDiagram(page, "FPI-A1-04");
         await page.Locator("g[data-indicator='FPI-A1-04']").ClickAsync();
         Assert.Single(board.Events(new Storage.Incidents.IncidentId(id.Value)));
 

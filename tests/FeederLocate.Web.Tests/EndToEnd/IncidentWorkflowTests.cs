@@ -110,6 +110,15 @@ public sealed class IncidentWorkflowTests(WebAppFixture app) : IClassFixture<Web
     private static async Task SetState(IPage page, string indicator, string state)
     {
         await page.SelectOptionAsync($"[data-testid='state-{indicator}']", state);
+        await ShowOnDiagram(page, indicator);
         await Assertions.Expect(page.Locator($"g[data-indicator='{indicator}']")).ToHaveAttributeAsync("data-state", state);
+    }
+
+    /// <summary>The diagram draws only what is in view: find the element with the diagram's search first.</summary>
+    internal static async Task ShowOnDiagram(IPage page, string id)
+    {
+        await page.FillAsync("[data-testid=diagram-search]", id);
+        await Assertions.Expect(page.Locator("[data-testid=search-matches] button").First).ToContainTextAsync(id);
+        await page.PressAsync("[data-testid=diagram-search]", "Enter");
     }
 }

@@ -9,6 +9,8 @@ const resumeButton = document.getElementById("components-resume-button");
 resumeButton.addEventListener("click", resume);
 
 function handleReconnectStateChanged(event) {
+    // The header's live marker follows the real connection: up only while the circuit is connected.
+    document.documentElement.dataset.connection = event.detail.state === "hide" ? "up" : "down";
     if (event.detail.state === "show") {
         reconnectModal.showModal();
     } else if (event.detail.state === "hide") {
