@@ -202,6 +202,13 @@ public sealed class IncidentStore : IDisposable
                 ArgumentOutOfRangeException.ThrowIfLessThan(step.Order, 1, nameof(step.Order));
                 ArgumentException.ThrowIfNullOrWhiteSpace(step.Action, nameof(step.Action));
                 break;
+            case PlanStepCorrected correction:
+                ArgumentOutOfRangeException.ThrowIfLessThan(correction.Order, 1, nameof(correction.Order));
+                ArgumentException.ThrowIfNullOrWhiteSpace(correction.Reason, nameof(correction.Reason));
+                break;
+            case SwitchingDeviationRecorded deviation:
+                ArgumentException.ThrowIfNullOrWhiteSpace(deviation.Reason, nameof(deviation.Reason));
+                break;
             case OutcomeLogged outcome:
                 ArgumentException.ThrowIfNullOrWhiteSpace(outcome.ConfirmedSegment.Value, nameof(outcome.ConfirmedSegment));
                 break;

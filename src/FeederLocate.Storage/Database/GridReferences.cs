@@ -29,6 +29,7 @@ internal static class GridReferences
         IndicationEntered { Indication.Indicator: var id } when !grid.HasIndicator(id) => $"indicator {id}",
         MeasurementRecorded { Measurement.Device: var id } when !grid.HasSwitch(id) => $"switch {id}",
         SwitchStateChanged { Switch: var id } when !grid.HasSwitch(id) => $"switch {id}",
+        SwitchingDeviationRecorded { Switch: var id } when !grid.HasSwitch(id) => $"switch {id}",
         SubstationRecordAmended { TrippedDevice: { } id } when !grid.HasSwitch(id) => $"switch {id}",
         OutcomeLogged { ConfirmedSegment: var id } when !grid.HasSegment(id) => $"segment {id}",
         _ => null,

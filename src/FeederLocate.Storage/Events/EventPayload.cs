@@ -22,6 +22,8 @@ internal static class EventPayload
     public const string OutcomeLoggedKind = "outcomeLogged";
     public const string IncidentClosedKind = "incidentClosed";
     public const string SubstationRecordAmendedKind = "substationRecordAmended";
+    public const string PlanStepCorrectedKind = "planStepCorrected";
+    public const string SwitchingDeviationRecordedKind = "switchingDeviationRecorded";
 
     // Required constructor parameters and nullable annotations are enforced, so a payload missing a
     // non-optional field fails to read instead of yielding nulls; optional fields have defaults.
@@ -43,6 +45,8 @@ internal static class EventPayload
         OutcomeLogged => OutcomeLoggedKind,
         IncidentClosed => IncidentClosedKind,
         SubstationRecordAmended => SubstationRecordAmendedKind,
+        PlanStepCorrected => PlanStepCorrectedKind,
+        SwitchingDeviationRecorded => SwitchingDeviationRecordedKind,
         _ => throw new ArgumentException($"unknown event type {e.GetType().Name}", nameof(e)),
     };
 
@@ -62,6 +66,8 @@ internal static class EventPayload
             OutcomeLogged o => new OutcomePayload(o.ConfirmedSegment.Value, IncidentFormat.Name(o.FaultType), o.Cause, o.Notes),
             IncidentClosed c => new ClosedPayload(c.Note),
             SubstationRecordAmended a => new AmendedPayload(IncidentFormat.Name(a.FaultType), a.TrippedDevice?.Value),
+            PlanStepCorrected c => new CorrectionPayload(c.Order, c.Reason),
+            SwitchingDeviationRecorded d => new DeviationPayload(d.Switch.Value, IncidentFormat.Name(d.Position), d.Reason, d.Departure),
             _ => throw new ArgumentException($"unknown event type {e.GetType().Name}", nameof(e)),
         };
         return JsonSerializer.Serialize(payload, payload.GetType(), Options);
@@ -82,6 +88,8 @@ internal static class EventPayload
                 OutcomeLoggedKind => Read<OutcomePayload>(json).ToEvent(id),
                 IncidentClosedKind => new IncidentClosed(Read<ClosedPayload>(json).Note),
                 SubstationRecordAmendedKind => Read<AmendedPayload>(json).ToEvent(id),
+                PlanStepCorrectedKind => Read<CorrectionPayload>(json).ToEvent(),
+                SwitchingDeviationRecordedKind => Read<DeviationPayload>(json).ToEvent(id),
                 _ => throw new CorruptEventException(id, $"has unknown kind \"{kind}\""),
             };
         }
@@ -161,5 +169,16 @@ internal static class EventPayload
     {
         public SubstationRecordAmended ToEvent(EventId id) =>
             new(TrippedDevice is null ? null : new SwitchId(TrippedDevice), Choice(id, "faultType", FaultType, IncidentFormat.FaultTypes));
+    }
+
+    private sealed record CorrectionPayload(int Order, string Reason)
+    {
+        public PlanStepCorrected ToEvent() => new(Order, Reason);
+    }
+
+    private sealed record DeviationPayload(string Switch, string Position, string Reason, string? Departure = null)
+    {
+        public SwitchingDeviationRecorded ToEvent(EventId id) =>
+            new(new SwitchId(Switch), Choice(id, "position", Position, IncidentFormat.Positions), Reason, Departure);
     }
 }

@@ -1,5 +1,6 @@
 using System.Collections.Immutable;
 using FeederLocate.Core.Evidence;
+using FeederLocate.Core.Model;
 using FeederLocate.Storage.Errors;
 using FeederLocate.Storage.Events;
 
@@ -9,7 +10,8 @@ namespace FeederLocate.Storage.Incidents;
 /// Adds up an incident's events, in sequence order, into its <see cref="IncidentState"/>:
 /// an indication replaces the earlier one of the same indicator where it stood in the list (new indicators go
 /// last); a measurement's given values replace those of the same device; a switch state replaces the earlier
-/// one; the latest outcome is in force; plan steps accumulate; incidentClosed closes, and nothing may follow it.
+/// one; the latest outcome is in force; plan steps accumulate, a correction withdraws the latest tick of its step, a deviation
+/// sets the positions switched so far as the start of a new plan (its ticks move to the earlier steps); incidentClosed closes, and nothing may follow it.
 /// </summary>
 internal static class IncidentFold
 {
@@ -43,6 +45,10 @@ internal static class IncidentFold
         var steps = state.CompletedSteps.ToBuilder();
         var outcome = state.Outcome;
         var closedAt = state.ClosedAt;
+        var corrections = state.Corrections.ToBuilder();
+        var deviations = state.Deviations.ToBuilder();
+        var earlier = state.EarlierSteps.ToBuilder();
+        var switched = state.SwitchedBeforePlan.ToBuilder();
 
         for (var index = from; index < events.Count; index++)
         {
@@ -85,6 +91,30 @@ internal static class IncidentFold
                     break;
                 case SwitchStateChanged change:
                     switchStates[change.Switch] = change.Position;
+                    switched.Remove(change.Switch);
+                    break;
+                case PlanStepCorrected correction:
+                    var ticked = LastIndexOf(steps, d => d.Step.Order == correction.Order);
+                    corrections.Add(new RecordedCorrection(ticked < 0 ? null : steps[ticked], correction.Reason, stored.Actor, stored.Time));
+                    if (ticked >= 0)
+                    {
+                        steps.RemoveAt(ticked);
+                    }
+
+                    break;
+                case SwitchingDeviationRecorded deviation:
+                    foreach (var done in steps)
+                    {
+                        if (done.Step is { Device: { } device, Action: "open" or "close" })
+                        {
+                            switched[new SwitchId(device)] = done.Step.Action == "close" ? SwitchPosition.Closed : SwitchPosition.Open;
+                        }
+                    }
+
+                    switched[deviation.Switch] = deviation.Position;
+                    earlier.AddRange(steps);
+                    steps.Clear();
+                    deviations.Add(new RecordedDeviation(deviation, stored.Actor, stored.Time));
                     break;
                 case PlanStepCompleted step:
                     steps.Add(new CompletedPlanStep(step, stored.Actor, stored.Time));
@@ -118,9 +148,26 @@ internal static class IncidentFold
             CompletedSteps = steps.ToImmutable(),
             Outcome = outcome,
             ClosedAt = closedAt,
+            Corrections = corrections.ToImmutable(),
+            Deviations = deviations.ToImmutable(),
+            EarlierSteps = earlier.ToImmutable(),
+            SwitchedBeforePlan = switched.ToImmutable(),
             EventCount = state.EventCount + Math.Max(0, events.Count - from),
             LastEvent = events.Count > from ? events[^1].Id : state.LastEvent,
         };
+    }
+
+    private static int LastIndexOf<T>(ImmutableArray<T>.Builder items, Func<T, bool> match)
+    {
+        for (var i = items.Count - 1; i >= 0; i--)
+        {
+            if (match(items[i]))
+            {
+                return i;
+            }
+        }
+
+        return -1;
     }
 
     private static int IndexOf<T>(ImmutableArray<T>.Builder items, Func<T, bool> match)

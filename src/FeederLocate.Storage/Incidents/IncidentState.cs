@@ -1,5 +1,6 @@
 using System.Collections.Immutable;
 using FeederLocate.Core.Evidence;
+using FeederLocate.Core.Model;
 using FeederLocate.Storage.Events;
 
 namespace FeederLocate.Storage.Incidents;
@@ -29,4 +30,24 @@ public sealed record IncidentState(
     /// with a greater id is a later one: what caches of anything derived from the incident key on.
     /// </summary>
     public EventId LastEvent { get; init; }
+
+    /// <summary>Ticks withdrawn by a correction, in the order logged.</summary>
+    public ImmutableArray<RecordedCorrection> Corrections { get; init; } = [];
+
+    /// <summary>Switches operated outside the switching order, in the order logged.</summary>
+    public ImmutableArray<RecordedDeviation> Deviations { get; init; } = [];
+
+    /// <summary>Steps ticked under an earlier plan, before the latest deviation made the plan again.</summary>
+    public ImmutableArray<CompletedPlanStep> EarlierSteps { get; init; } = [];
+
+    /// <summary>
+    /// Positions put by switching up to the latest deviation (the ticks then, and the deviations): the switching
+    /// the present plan starts from. Empty until a deviation; a position found later for a switch replaces it.
+    /// </summary>
+    public ImmutableDictionary<SwitchId, SwitchPosition> SwitchedBeforePlan { get; init; } = ImmutableDictionary<SwitchId, SwitchPosition>.Empty;
+
+    /// <summary>The evidence with the positions switched before the present plan: what the switching order is made from.</summary>
+    public Incident PlanBasis => SwitchedBeforePlan.IsEmpty
+        ? Incident
+        : Incident with { SwitchStates = Incident.SwitchStates.SetItems(SwitchedBeforePlan) };
 }

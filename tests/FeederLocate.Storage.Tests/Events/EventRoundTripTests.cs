@@ -25,6 +25,9 @@ public class EventRoundTripTests
         new OutcomeLogged(new SegmentId("S3")),
         new IncidentClosed("restored"),
         new IncidentClosed(),
+        new PlanStepCorrected(4, "ticked the wrong line"),
+        new SwitchingDeviationRecorded(new SwitchId("LB2"), SwitchPosition.Open, "crew found it jammed", "step 2 (open FU1) is not done yet"),
+        new SwitchingDeviationRecorded(new SwitchId("NO1"), SwitchPosition.Closed, "feed the hospital first"),
     };
 
     [Theory]
