@@ -1,0 +1,130 @@
+using FeederLocate.Application.Incidents;
+using FeederLocate.Core.Evidence;
+using FeederLocate.Core.Model;
+using FeederLocate.Core.Switching;
+using FeederLocate.Core.Topology;
+using FeederLocate.Storage.Events;
+using FeederLocate.Storage.Incidents;
+
+namespace FeederLocate.Application.Switching;
+
+/// <summary>
+/// Ticks, corrections and deviations of an incident's switching order, checked before they are logged: a step
+/// is ticked only in the plan's order and only when the device rules allow it from the incident's switch
+/// positions of the moment (<see cref="StepCheck"/>, the planner's own rules). A mistaken tick is withdrawn by a
+/// logged correction; a switch operated outside the order is logged as a deviation with its reason, after
+/// which the plan is made again from the positions switched.
+/// </summary>
+public sealed class CheckedSwitching(IncidentLog log)
+{
+    /// <summary>Why <paramref name="step"/> of <paramref name="plan"/> may not be ticked now; null when it may.</summary>
+    public static string? Refusal(NetworkGraph graph, IncidentState state, SwitchingPlan plan, SwitchingStep step)
+    {
+        ArgumentNullException.ThrowIfNull(graph);
+        ArgumentNullException.ThrowIfNull(state);
+        ArgumentNullException.ThrowIfNull(plan);
+        ArgumentNullException.ThrowIfNull(step);
+        if (state.Status == IncidentStatus.Closed)
+        {
+            return $"incident {state.Id} is closed";
+        }
+
+        if (!plan.Steps.Any(s => s.Order == step.Order && s.Action == step.Action && s.Device == step.Device))
+        {
+            return $"step {step.Order} is not a step of the present switching order";
+        }
+
+        if (IsDone(state, step))
+        {
+            return $"step {step.Order} is already ticked";
+        }
+
+        if (plan.Steps.FirstOrDefault(s => s.Order < step.Order && !IsDone(state, s)) is { } before)
+        {
+            return $"step {before.Order} ({Describe(before)}) is not done yet: the steps are carried out in order";
+        }
+
+        if (step is not { ChangesNetwork: true, Device: { } device })
+        {
+            return null;
+        }
+
+        var position = step.Action == StepAction.Open ? SwitchPosition.Open : SwitchPosition.Closed;
+        return StepCheck.Check(graph, state.PlanBasis, plan.IsolatedSections[0], IncidentSwitching.Current(graph.Grid, state), device, position);
+    }
+
+    /// <summary>Ticks <paramref name="step"/> as done when the order and the device rules allow it; else refuses, logging nothing.</summary>
+    public StepDecision Tick(NetworkGraph graph, IncidentState state, SwitchingPlan plan, SwitchingStep step, Actor actor)
+    {
+        ArgumentNullException.ThrowIfNull(actor);
+        if (Refusal(graph, state, plan, step) is { } refusal)
+        {
+            return StepDecision.Refused(refusal);
+        }
+
+        log.Record(state.Id, new PlanStepCompleted(step.Order, ActionName(step.Action), step.Device?.Value), actor, graph.Grid);
+        return StepDecision.Logged;
+    }
+
+    /// <summary>Withdraws the tick of step <paramref name="order"/>, with the reason; the tick stays in the log.</summary>
+    public StepDecision Correct(IncidentState state, int order, string reason, Actor actor)
+    {
+        ArgumentNullException.ThrowIfNull(state);
+        ArgumentNullException.ThrowIfNull(actor);
+        if (string.IsNullOrWhiteSpace(reason))
+        {
+            return StepDecision.Refused("give the reason for the correction");
+        }
+
+        if (!state.CompletedSteps.Any(d => d.Step.Order == order))
+        {
+            return StepDecision.Refused($"step {order} is not ticked");
+        }
+
+        log.Record(state.Id, new PlanStepCorrected(order, reason.Trim()), actor);
+        return StepDecision.Logged;
+    }
+
+    /// <summary>
+    /// Logs that <paramref name="device"/> was put in <paramref name="position"/> outside the switching order,
+    /// with the reason and the rule it departs from, if any (named in the log). The plan is then made again.
+    /// </summary>
+    public StepDecision Deviate(NetworkGraph graph, IncidentState state, SectionId? suspect, SwitchId device, SwitchPosition position, string reason, Actor actor)
+    {
+        ArgumentNullException.ThrowIfNull(graph);
+        ArgumentNullException.ThrowIfNull(state);
+        ArgumentNullException.ThrowIfNull(actor);
+        if (string.IsNullOrWhiteSpace(reason))
+        {
+            return StepDecision.Refused("give the reason for the deviation");
+        }
+
+        if (!graph.Grid.HasSwitch(device))
+        {
+            return StepDecision.Refused($"{device} is not a switching device of grid '{graph.Grid.Name}'");
+        }
+
+        var now = IncidentSwitching.Current(graph.Grid, state);
+        if (now.PositionOf(device) == position)
+        {
+            return StepDecision.Refused($"{device} is already {(position == SwitchPosition.Open ? "open" : "closed")}");
+        }
+
+        var departure = suspect is { } section ? StepCheck.Check(graph, state.PlanBasis, section, now, device, position) : null;
+        log.Record(state.Id, new SwitchingDeviationRecorded(device, position, reason.Trim(), departure), actor, graph.Grid);
+        return StepDecision.Logged;
+    }
+
+    /// <summary>The plan document's action words (camelCase, as in the file formats).</summary>
+    public static string ActionName(StepAction action) => action switch
+    {
+        StepAction.ProveDead => "proveDead",
+        _ => action.ToString().ToLowerInvariant(),
+    };
+
+    private static bool IsDone(IncidentState state, SwitchingStep step) =>
+        state.CompletedSteps.Any(d => d.Step.Order == step.Order && d.Step.Action == ActionName(step.Action));
+
+    private static string Describe(SwitchingStep step) =>
+        $"{ActionName(step.Action)} {step.Device?.Value ?? string.Join(" ", step.Segments)}".TrimEnd();
+}
