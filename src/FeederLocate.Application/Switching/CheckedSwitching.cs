@@ -1,3 +1,4 @@
+using FeederLocate.Application.Analysis;
 using FeederLocate.Application.Incidents;
 using FeederLocate.Core.Evidence;
 using FeederLocate.Core.Model;
@@ -13,10 +14,42 @@ namespace FeederLocate.Application.Switching;
 /// is ticked only in the plan's order and only when the device rules allow it from the incident's switch
 /// positions of the moment (<see cref="StepCheck"/>, the planner's own rules). A mistaken tick is withdrawn by a
 /// logged correction; a switch operated outside the order is logged as a deviation with its reason, after
-/// which the plan is made again from the positions switched.
+/// which the plan is made again from the positions switched. The page, the HTTP interface and the command line
+/// all go through here; the by-number forms take the present plan from <see cref="IncidentAnalysis"/>.
 /// </summary>
-public sealed class CheckedSwitching(IncidentLog log)
+public sealed class CheckedSwitching(IncidentLog log, IncidentAnalysis analysis)
 {
+    /// <summary>Ticks step <paramref name="order"/> of the incident's present switching order, checked as <see cref="Tick"/>.</summary>
+    public async Task<StepDecision> TickAsync(NetworkGraph graph, IncidentId id, int order, Actor actor)
+    {
+        ArgumentNullException.ThrowIfNull(graph);
+        var state = log.State(id);
+        var (plan, problem) = await analysis.PlanAsync(graph, state).ConfigureAwait(false);
+        if (plan is null)
+        {
+            return StepDecision.Refused($"incident {id} has no switching order: {problem}");
+        }
+
+        if (plan.Steps.FirstOrDefault(s => s.Order == order) is not { } step)
+        {
+            return StepDecision.Refused($"step {order} is not a step of the present switching order (steps 1 to {plan.Steps.Length})");
+        }
+
+        return Tick(graph, state, plan, step, actor);
+    }
+
+    /// <summary>Withdraws the tick of step <paramref name="order"/> of incident <paramref name="id"/>, as <see cref="Correct(IncidentState, int, string, Actor)"/>.</summary>
+    public StepDecision Correct(IncidentId id, int order, string reason, Actor actor) => Correct(log.State(id), order, reason, actor);
+
+    /// <summary>Logs a deviation on incident <paramref name="id"/>, checked against the present plan's isolated section.</summary>
+    public async Task<StepDecision> DeviateAsync(NetworkGraph graph, IncidentId id, SwitchId device, SwitchPosition position, string reason, Actor actor)
+    {
+        ArgumentNullException.ThrowIfNull(graph);
+        var state = log.State(id);
+        var plan = (await analysis.PlanAsync(graph, state).ConfigureAwait(false)).Plan;
+        return Deviate(graph, state, plan?.IsolatedSections.FirstOrDefault(), device, position, reason, actor);
+    }
+
     /// <summary>Why <paramref name="step"/> of <paramref name="plan"/> may not be ticked now; null when it may.</summary>
     public static string? Refusal(NetworkGraph graph, IncidentState state, SwitchingPlan plan, SwitchingStep step)
     {

@@ -71,6 +71,7 @@ public static class IncidentApi
                     : Results.UnprocessableEntity(ApiError.Single("cannot plan", "incident", Text(id), "plan", plan.Problem ?? "no plan"));
             }));
         api.MapPost("/incidents/{id:long}/outcome", PostOutcome).RequireAuthorization(AccessPolicies.ApiWrite);
+        api.MapSwitchingApi();
         return app;
     }
 
@@ -160,19 +161,19 @@ public static class IncidentApi
         });
     }
 
-    private static string Text(long id) => id.ToString(System.Globalization.CultureInfo.InvariantCulture);
+    internal static string Text(long id) => id.ToString(System.Globalization.CultureInfo.InvariantCulture);
 
-    private static IResult UnknownIncident(long id) =>
+    internal static IResult UnknownIncident(long id) =>
         Results.NotFound(ApiError.Single("unknown incident", "incident", Text(id), "id", "does not exist"));
 
-    private static IResult GridNotLoaded(long id, IncidentState state) =>
+    internal static IResult GridNotLoaded(long id, IncidentState state) =>
         Results.Conflict(ApiError.Single("grid not loaded", "incident", id.ToString(System.Globalization.CultureInfo.InvariantCulture), "grid", $"\"{state.GridName}\" is not loaded"));
 
     /// <summary>
     /// Runs <paramref name="action"/> on the incident when the account may see its grid. An incident of a grid
     /// outside the account's grids is answered exactly like one that does not exist, so ids reveal nothing.
     /// </summary>
-    private static IResult WithIncident(IncidentBoard board, ClaimsPrincipal user, long id, Func<IncidentState, IResult> action)
+    internal static IResult WithIncident(IncidentBoard board, ClaimsPrincipal user, long id, Func<IncidentState, IResult> action)
     {
         try
         {
@@ -194,7 +195,7 @@ public static class IncidentApi
     }
 
     /// <summary><see cref="WithIncident"/> for an action that awaits.</summary>
-    private static async Task<IResult> WithIncidentAsync(IncidentBoard board, ClaimsPrincipal user, long id, Func<IncidentState, Task<IResult>> action)
+    internal static async Task<IResult> WithIncidentAsync(IncidentBoard board, ClaimsPrincipal user, long id, Func<IncidentState, Task<IResult>> action)
     {
         IncidentState? found = null;
         var checkedResult = WithIncident(board, user, id, state =>
@@ -206,7 +207,7 @@ public static class IncidentApi
     }
 
     /// <summary>The body as text, or null when it is over the limit (whatever the server in front enforces).</summary>
-    private static async Task<string?> ReadBody(HttpRequest request)
+    internal static async Task<string?> ReadBody(HttpRequest request)
     {
         if (request.ContentLength > MaximumBodyBytes)
         {
@@ -225,7 +226,7 @@ public static class IncidentApi
         return read > MaximumBodyBytes ? null : new string(buffer, 0, read);
     }
 
-    private static IResult TooLarge() => Results.Json(
+    internal static IResult TooLarge() => Results.Json(
         ApiError.Single("body too large", "request", "body", string.Empty, $"must be at most {MaximumBodyBytes} bytes"),
         statusCode: StatusCodes.Status413PayloadTooLarge);
 

@@ -2,6 +2,7 @@ using FeederLocate.Application.Analysis;
 using FeederLocate.Application.Evidence;
 using FeederLocate.Application.History;
 using FeederLocate.Application.Incidents;
+using FeederLocate.Application.Switching;
 using FeederLocate.Storage;
 using FeederLocate.Web.Security;
 
@@ -25,6 +26,7 @@ public static class ServiceRegistration
         services.AddSingleton(provider => new IncidentAnalysis(provider.GetRequiredService<GridLearning>(), provider.GetRequiredService<IFaultRanker>()));
         services.AddSingleton<IncidentHistory>();
         services.AddSingleton<EvidenceIntake>();
+        services.AddSingleton<CheckedSwitching>();
         services.AddSingleton(TimeProvider.System);
         return services;
     }

@@ -1,4 +1,5 @@
 using FeederLocate.Application.Analysis;
+using FeederLocate.Application.History;
 using FeederLocate.Application.Switching;
 using FeederLocate.Application.Tests.Support;
 using FeederLocate.Core.Evaluation;
@@ -60,6 +61,23 @@ public sealed class CheckedSwitchingTests : IDisposable
         return outcome.Plan ?? throw new InvalidOperationException(outcome.Problem);
     }
 
+    /// <summary>The use case with the core's ranking and no learned priors beyond the (empty) log's.</summary>
+    private CheckedSwitching Switching() => new(_test.Log, new IncidentAnalysis(new GridLearning(_test.Log), new CoreFaultRanker()));
+
+    [Fact]
+    public async Task By_number_a_tick_takes_the_present_plan_and_refuses_a_step_it_does_not_have()
+    {
+        var graph = Samples.Graph("resonant");
+        var (id, plan) = Open(graph, Samples.Incident("resonant-standing-earth-fault-b1.incident.json", graph.Grid));
+        var switching = Switching();
+
+        Assert.True((await switching.TickAsync(graph, id, 1, Samples.Operator)).IsLogged);
+        Assert.Equal($"step 99 is not a step of the present switching order (steps 1 to {plan.Steps.Length})",
+            (await switching.TickAsync(graph, id, 99, Samples.Operator)).Refusal);
+        Assert.StartsWith("step 2 (", (await switching.TickAsync(graph, id, 3, Samples.Operator)).Refusal, StringComparison.Ordinal);
+        Assert.Equal([1], _test.Log.State(id).CompletedSteps.Select(d => d.Step.Order));
+    }
+
     [Fact]
     public void Closing_the_tie_before_opening_the_downstream_boundary_is_refused_with_the_reason()
     {
@@ -67,7 +85,7 @@ public sealed class CheckedSwitchingTests : IDisposable
         // "close NO-A1-B1" (step 5) before "open LB-B1-3" (step 4).
         var graph = Samples.Graph("resonant");
         var (id, plan) = Open(graph, Samples.Incident("resonant-standing-earth-fault-b1.incident.json", graph.Grid));
-        var switching = new CheckedSwitching(_test.Log);
+        var switching = Switching();
         foreach (var step in plan.Steps.Take(3))
         {
             Assert.True(switching.Tick(graph, _test.Log.State(id), plan, step, Samples.Operator).IsLogged);
@@ -96,7 +114,7 @@ public sealed class CheckedSwitchingTests : IDisposable
     {
         var (graph, incident) = Case(name);
         var (id, plan) = Open(graph, incident);
-        var switching = new CheckedSwitching(_test.Log);
+        var switching = Switching();
 
         foreach (var step in plan.Steps)
         {
@@ -148,7 +166,7 @@ public sealed class CheckedSwitchingTests : IDisposable
     {
         var graph = Samples.Graph("resonant");
         var (id, plan) = Open(graph, Samples.Incident("resonant-standing-earth-fault-b1.incident.json", graph.Grid));
-        var switching = new CheckedSwitching(_test.Log);
+        var switching = Switching();
         switching.Tick(graph, _test.Log.State(id), plan, plan.Steps[0], Samples.Operator);
         Assert.Equal("step 1 is already ticked", switching.Tick(graph, _test.Log.State(id), plan, plan.Steps[0], Samples.Operator).Refusal);
 
@@ -168,7 +186,7 @@ public sealed class CheckedSwitchingTests : IDisposable
     {
         var graph = Samples.Graph("resonant");
         var (id, plan) = Open(graph, Samples.Incident("resonant-standing-earth-fault-b1.incident.json", graph.Grid));
-        var switching = new CheckedSwitching(_test.Log);
+        var switching = Switching();
         foreach (var step in plan.Steps.Take(3))
         {
             switching.Tick(graph, _test.Log.State(id), plan, step, Samples.Operator);
