@@ -28,6 +28,7 @@ public static class CliApp
             EvaluateCommand.Create(console),
             RecordCommand.Create(console),
             SwitchesCommand.Create(console),
+            SwitchingCommand.Create(console),
             GenerateCommand.Create(console),
             BenchCommand.Create(console),
         };

@@ -148,6 +148,28 @@ public sealed class CheckedSwitching(IncidentLog log, IncidentAnalysis analysis)
         return StepDecision.Logged;
     }
 
+    /// <summary>
+    /// Logs that <paramref name="device"/> was found in <paramref name="position"/> on site (named with its
+    /// position, as the page's confirmation does); refused when the model already has it so, or the incident is closed.
+    /// </summary>
+    public StepDecision Found(NetworkGraph graph, IncidentId id, SwitchId device, SwitchPosition position, Actor actor)
+    {
+        ArgumentNullException.ThrowIfNull(graph);
+        var state = log.State(id);
+        if (state.Status == IncidentStatus.Closed)
+        {
+            return StepDecision.Refused($"incident {id} is closed");
+        }
+
+        if (!graph.Grid.HasSwitch(device))
+        {
+            return StepDecision.Refused($"{device} is not a switching device of grid '{graph.Grid.Name}'");
+        }
+
+        log.Record(id, new SwitchStateChanged(device, position), actor, graph.Grid);
+        return StepDecision.Logged;
+    }
+
     /// <summary>The plan document's action words (camelCase, as in the file formats).</summary>
     public static string ActionName(StepAction action) => action switch
     {

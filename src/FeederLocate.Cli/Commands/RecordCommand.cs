@@ -2,7 +2,6 @@ using System.CommandLine;
 using FeederLocate.Cli.Input;
 using FeederLocate.Cli.Output;
 using FeederLocate.Core.Model;
-using FeederLocate.Storage.Accounts;
 using FeederLocate.Storage.Events;
 
 namespace FeederLocate.Cli.Commands;
@@ -37,7 +36,7 @@ internal static class RecordCommand
             throw new BadInputException($"error: --segment \"{segmentId}\" is not a segment of grid {grid.Name}");
         }
 
-        var actor = Logger(dbPath, by);
+        var actor = CliActor.Of(dbPath, by, "logging outcomes");
         using var log = HistoryDatabase.OpenLog(dbPath);
         var id = log.Record(grid, incident, new OutcomeLogged(segment, incident.FaultType, cause), actor);
         if (json)
@@ -50,28 +49,5 @@ internal static class RecordCommand
         }
 
         return CliApp.Success;
-    }
-
-    /// <summary>Who the log names: the account given with --by (checked against the database's accounts), else the machine's user.</summary>
-    private static Actor Logger(string dbPath, string? by)
-    {
-        if (by is null)
-        {
-            return new Actor($"cli:{Environment.UserName}", "system");
-        }
-
-        if (!File.Exists(dbPath))
-        {
-            throw new BadInputException($"error: --by \"{by}\" must name an account of {dbPath}, which does not exist yet");
-        }
-
-        using var accounts = AccountStore.Open(dbPath);
-        return accounts.Find(by) switch
-        {
-            null => throw new BadInputException($"error: --by \"{by}\" is not an account of {dbPath}"),
-            { IsDisabled: true } => throw new BadInputException($"error: --by \"{by}\" is a disabled account"),
-            { Role: AccountRole.Viewer } => throw new BadInputException($"error: --by \"{by}\" is a viewer; logging outcomes needs an operator or engineer"),
-            var account => new Actor(account.Name, AccountRoles.Name(account.Role)),
-        };
     }
 }

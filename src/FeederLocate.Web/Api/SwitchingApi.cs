@@ -48,17 +48,10 @@ internal static class SwitchingApi
                         IncidentFormat.Positions[body.Position!], body.Reason ?? string.Empty, AccountClaims.ActorOf(user)));
             }))
             .RequireAuthorization(AccessPolicies.ApiWrite);
-        api.MapPost("/incidents/{id:long}/switches", (long id, ClaimsPrincipal user, HttpRequest request, IncidentBoard board, GridCatalog grids) =>
-            WithBody<PositionBody>(id, user, request, board, grids, "switch position", (grid, body) =>
-            {
-                if (Position(grid, body, "switch position") is { } problem)
-                {
-                    return Task.FromResult(problem);
-                }
-
-                board.Record(new IncidentId(id), new SwitchStateChanged(new SwitchId(body.Switch!), IncidentFormat.Positions[body.Position!]), AccountClaims.ActorOf(user), grid.Grid);
-                return Task.FromResult(Results.Accepted($"/api/incidents/{id}/switches", new { accepted = 1 }));
-            }))
+        api.MapPost("/incidents/{id:long}/switches", (long id, ClaimsPrincipal user, HttpRequest request, IncidentBoard board, GridCatalog grids, CheckedSwitching switching) =>
+            WithBody<PositionBody>(id, user, request, board, grids, "switch position", (grid, body) => Task.FromResult(
+                Position(grid, body, "switch position") ?? Answer(id, "switch", body.Switch!,
+                    switching.Found(grid.Graph, new IncidentId(id), new SwitchId(body.Switch!), IncidentFormat.Positions[body.Position!], AccountClaims.ActorOf(user))))))
             .RequireAuthorization(AccessPolicies.ApiWrite);
     }
 
