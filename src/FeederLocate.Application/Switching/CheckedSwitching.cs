@@ -17,10 +17,12 @@ namespace FeederLocate.Application.Switching;
 /// which the plan is made again from the positions switched. The page, the HTTP interface and the command line
 /// all go through here; the by-number forms take the present plan from <see cref="IncidentAnalysis"/>.
 /// </summary>
-public sealed class CheckedSwitching(IncidentLog log, IncidentAnalysis analysis)
+public sealed class CheckedSwitching(IncidentLog log, IncidentAnalysis analysis, TimeProvider? clock = null)
 {
+    private readonly TimeProvider _clock = clock ?? TimeProvider.System;
+
     /// <summary>Ticks step <paramref name="order"/> of the incident's present switching order, checked as <see cref="Tick"/>.</summary>
-    public async Task<StepDecision> TickAsync(NetworkGraph graph, IncidentId id, int order, Actor actor)
+    public async Task<StepDecision> TickAsync(NetworkGraph graph, IncidentId id, int order, Actor actor, DateTimeOffset? doneAt = null)
     {
         ArgumentNullException.ThrowIfNull(graph);
         var state = log.State(id);
@@ -35,7 +37,7 @@ public sealed class CheckedSwitching(IncidentLog log, IncidentAnalysis analysis)
             return StepDecision.Refused($"step {order} is not a step of the present switching order (steps 1 to {plan.Steps.Length})");
         }
 
-        return Tick(graph, state, plan, step, actor);
+        return Tick(graph, state, plan, step, actor, doneAt);
     }
 
     /// <summary>Withdraws the tick of step <paramref name="order"/> of incident <paramref name="id"/>, as <see cref="Correct(IncidentState, int, string, Actor)"/>.</summary>
@@ -86,16 +88,21 @@ public sealed class CheckedSwitching(IncidentLog log, IncidentAnalysis analysis)
         return StepCheck.Check(graph, state.PlanBasis, plan.IsolatedSections[0], IncidentSwitching.Current(graph.Grid, state), device, position);
     }
 
-    /// <summary>Ticks <paramref name="step"/> as done when the order and the device rules allow it; else refuses, logging nothing.</summary>
-    public StepDecision Tick(NetworkGraph graph, IncidentState state, SwitchingPlan plan, SwitchingStep step, Actor actor)
+    /// <summary>
+    /// Ticks <paramref name="step"/> as done when the order and the device rules allow it, carried out at
+    /// <paramref name="doneAt"/> (null: now; neither in the future nor before the fault); else refuses, logging nothing.
+    /// </summary>
+    public StepDecision Tick(NetworkGraph graph, IncidentState state, SwitchingPlan plan, SwitchingStep step, Actor actor, DateTimeOffset? doneAt = null)
     {
         ArgumentNullException.ThrowIfNull(actor);
-        if (Refusal(graph, state, plan, step) is { } refusal)
+        var refusal = Refusal(graph, state, plan, step)
+            ?? (doneAt is { } at ? Times.EventTimes.Problem($"step {step.Order} done at", at, state, _clock.GetUtcNow()) : null);
+        if (refusal is not null)
         {
             return StepDecision.Refused(refusal);
         }
 
-        log.Record(state.Id, new PlanStepCompleted(step.Order, ActionName(step.Action), step.Device?.Value), actor, graph.Grid);
+        log.Record(state.Id, new PlanStepCompleted(step.Order, ActionName(step.Action), step.Device?.Value, null, doneAt), actor, graph.Grid);
         return StepDecision.Logged;
     }
 

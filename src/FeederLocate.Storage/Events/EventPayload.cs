@@ -24,6 +24,7 @@ internal static class EventPayload
     public const string SubstationRecordAmendedKind = "substationRecordAmended";
     public const string PlanStepCorrectedKind = "planStepCorrected";
     public const string SwitchingDeviationRecordedKind = "switchingDeviationRecorded";
+    public const string IncidentTimesEnteredKind = "incidentTimesEntered";
 
     // Required constructor parameters and nullable annotations are enforced, so a payload missing a
     // non-optional field fails to read instead of yielding nulls; optional fields have defaults.
@@ -47,6 +48,7 @@ internal static class EventPayload
         SubstationRecordAmended => SubstationRecordAmendedKind,
         PlanStepCorrected => PlanStepCorrectedKind,
         SwitchingDeviationRecorded => SwitchingDeviationRecordedKind,
+        IncidentTimesEntered => IncidentTimesEnteredKind,
         _ => throw new ArgumentException($"unknown event type {e.GetType().Name}", nameof(e)),
     };
 
@@ -62,12 +64,13 @@ internal static class EventPayload
             MeasurementRecorded { Measurement: var m } => new MeasurementPayload(
                 m.Device.Value, m.PhaseCurrentA, m.ResidualCurrentA, m.NeutralVoltageV),
             SwitchStateChanged s => new SwitchPayload(s.Switch.Value, IncidentFormat.Name(s.Position)),
-            PlanStepCompleted p => new PlanStepPayload(p.Order, p.Action, p.Device, p.Note),
+            PlanStepCompleted p => new PlanStepPayload(p.Order, p.Action, p.Device, p.Note, p.DoneAt),
             OutcomeLogged o => new OutcomePayload(o.ConfirmedSegment.Value, IncidentFormat.Name(o.FaultType), o.Cause, o.Notes),
             IncidentClosed c => new ClosedPayload(c.Note),
             SubstationRecordAmended a => new AmendedPayload(IncidentFormat.Name(a.FaultType), a.TrippedDevice?.Value),
             PlanStepCorrected c => new CorrectionPayload(c.Order, c.Reason),
             SwitchingDeviationRecorded d => new DeviationPayload(d.Switch.Value, IncidentFormat.Name(d.Position), d.Reason, d.Departure),
+            IncidentTimesEntered t => new TimesPayload(t.FaultAt, t.TrippedAt, t.ReclosedAt),
             _ => throw new ArgumentException($"unknown event type {e.GetType().Name}", nameof(e)),
         };
         return JsonSerializer.Serialize(payload, payload.GetType(), Options);
@@ -90,6 +93,7 @@ internal static class EventPayload
                 SubstationRecordAmendedKind => Read<AmendedPayload>(json).ToEvent(id),
                 PlanStepCorrectedKind => Read<CorrectionPayload>(json).ToEvent(),
                 SwitchingDeviationRecordedKind => Read<DeviationPayload>(json).ToEvent(id),
+                IncidentTimesEnteredKind => Read<TimesPayload>(json).ToEvent(),
                 _ => throw new CorruptEventException(id, $"has unknown kind \"{kind}\""),
             };
         }
@@ -152,9 +156,14 @@ internal static class EventPayload
             new(new SwitchId(Switch), Choice(id, "position", Position, IncidentFormat.Positions));
     }
 
-    private sealed record PlanStepPayload(int Order, string Action, string? Device = null, string? Note = null)
+    private sealed record PlanStepPayload(int Order, string Action, string? Device = null, string? Note = null, DateTimeOffset? DoneAt = null)
     {
-        public PlanStepCompleted ToEvent() => new(Order, Action, Device, Note);
+        public PlanStepCompleted ToEvent() => new(Order, Action, Device, Note, DoneAt);
+    }
+
+    private sealed record TimesPayload(DateTimeOffset? FaultAt = null, DateTimeOffset? TrippedAt = null, DateTimeOffset? ReclosedAt = null)
+    {
+        public IncidentTimesEntered ToEvent() => new(FaultAt, TrippedAt, ReclosedAt);
     }
 
     private sealed record OutcomePayload(string ConfirmedSegment, string FaultType, string? Cause = null, string? Notes = null)

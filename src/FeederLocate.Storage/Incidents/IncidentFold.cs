@@ -49,6 +49,7 @@ internal static class IncidentFold
         var deviations = state.Deviations.ToBuilder();
         var earlier = state.EarlierSteps.ToBuilder();
         var switched = state.SwitchedBeforePlan.ToBuilder();
+        var times = state.Times;
 
         for (var index = from; index < events.Count; index++)
         {
@@ -92,6 +93,9 @@ internal static class IncidentFold
                 case SwitchStateChanged change:
                     switchStates[change.Switch] = change.Position;
                     switched.Remove(change.Switch);
+                    break;
+                case IncidentTimesEntered entered:
+                    times = new IncidentTimes(entered.FaultAt ?? times.FaultAt, entered.TrippedAt ?? times.TrippedAt, entered.ReclosedAt ?? times.ReclosedAt);
                     break;
                 case PlanStepCorrected correction:
                     var ticked = LastIndexOf(steps, d => d.Step.Order == correction.Order);
@@ -152,6 +156,7 @@ internal static class IncidentFold
             Deviations = deviations.ToImmutable(),
             EarlierSteps = earlier.ToImmutable(),
             SwitchedBeforePlan = switched.ToImmutable(),
+            Times = times,
             EventCount = state.EventCount + Math.Max(0, events.Count - from),
             LastEvent = events.Count > from ? events[^1].Id : state.LastEvent,
         };

@@ -46,6 +46,12 @@ public sealed record IncidentState(
     /// </summary>
     public ImmutableDictionary<SwitchId, SwitchPosition> SwitchedBeforePlan { get; init; } = ImmutableDictionary<SwitchId, SwitchPosition>.Empty;
 
+    /// <summary>The fault, trip and reclosure times as entered.</summary>
+    public IncidentTimes Times { get; init; } = IncidentTimes.None;
+
+    /// <summary>When the fault began: the time entered, else when it was reported.</summary>
+    public DateTimeOffset FaultAt => Times.FaultAt ?? Incident.ReportedAt;
+
     /// <summary>The evidence with the positions switched before the present plan: what the switching order is made from.</summary>
     public Incident PlanBasis => SwitchedBeforePlan.IsEmpty
         ? Incident

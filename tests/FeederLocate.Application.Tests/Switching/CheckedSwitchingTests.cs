@@ -79,6 +79,24 @@ public sealed class CheckedSwitchingTests : IDisposable
     }
 
     [Fact]
+    public async Task A_steps_actual_time_is_kept_and_one_in_the_future_is_refused()
+    {
+        var graph = Samples.Graph("resonant");
+        var (id, _) = Open(graph, Samples.Incident("resonant-standing-earth-fault-b1.incident.json", graph.Grid));
+        var clock = TestClock.Manual();
+        var switching = new CheckedSwitching(_test.Log, new IncidentAnalysis(new GridLearning(_test.Log), new CoreFaultRanker()), clock);
+
+        var future = await switching.TickAsync(graph, id, 1, Samples.Operator, TestClock.Start.AddMinutes(3));
+        var earlier = await switching.TickAsync(graph, id, 1, Samples.Operator, TestClock.Start.AddMinutes(-4));
+
+        Assert.Equal("step 1 done at 2026-03-14T05:48:00Z is in the future (now 2026-03-14T05:45:00Z)", future.Refusal);
+        Assert.True(earlier.IsLogged);
+        var done = Assert.Single(_test.Log.State(id).CompletedSteps);
+        Assert.Equal(TestClock.Start.AddMinutes(-4), done.DoneAt);
+        Assert.Equal(TestClock.Start, done.CompletedAt);
+    }
+
+    [Fact]
     public void Closing_the_tie_before_opening_the_downstream_boundary_is_refused_with_the_reason()
     {
         // The reproduction of the report: on the resonant demo incident, steps 1 to 3 ticked, then
