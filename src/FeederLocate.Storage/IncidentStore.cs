@@ -179,9 +179,14 @@ public sealed class IncidentStore : IDisposable
         var now = _clock.GetUtcNow();
         foreach (var e in events)
         {
-            if (closed)
+            if (closed && e is not IncidentReopened)
             {
                 throw new IncidentClosedException(incident, EventPayload.KindOf(e));
+            }
+
+            if (!closed && e is IncidentReopened)
+            {
+                throw new InvalidOperationException($"incident {incident} is open: only a closed incident is reopened");
             }
 
             stored.Add(EventTable.InsertEvent(_connection, transaction, incident, ++sequence, now, actor, e));
@@ -202,6 +207,11 @@ public sealed class IncidentStore : IDisposable
                 ArgumentOutOfRangeException.ThrowIfLessThan(step.Order, 1, nameof(step.Order));
                 ArgumentException.ThrowIfNullOrWhiteSpace(step.Action, nameof(step.Action));
                 break;
+            case IncidentReopened reopened:
+                ArgumentException.ThrowIfNullOrWhiteSpace(reopened.Reason, nameof(reopened.Reason));
+                break;
+            case IncidentStageChanged moved when moved.Stage is IncidentStage.Open or IncidentStage.Closed || !Enum.IsDefined(moved.Stage):
+                throw new ArgumentException($"incidentStageChanged moves to located, isolated, restored or repaired, not {moved.Stage}", nameof(e));
             case PlanStepCorrected correction:
                 ArgumentOutOfRangeException.ThrowIfLessThan(correction.Order, 1, nameof(correction.Order));
                 ArgumentException.ThrowIfNullOrWhiteSpace(correction.Reason, nameof(correction.Reason));

@@ -25,6 +25,8 @@ internal static class EventPayload
     public const string PlanStepCorrectedKind = "planStepCorrected";
     public const string SwitchingDeviationRecordedKind = "switchingDeviationRecorded";
     public const string IncidentTimesEnteredKind = "incidentTimesEntered";
+    public const string IncidentStageChangedKind = "incidentStageChanged";
+    public const string IncidentReopenedKind = "incidentReopened";
 
     // Required constructor parameters and nullable annotations are enforced, so a payload missing a
     // non-optional field fails to read instead of yielding nulls; optional fields have defaults.
@@ -49,6 +51,8 @@ internal static class EventPayload
         PlanStepCorrected => PlanStepCorrectedKind,
         SwitchingDeviationRecorded => SwitchingDeviationRecordedKind,
         IncidentTimesEntered => IncidentTimesEnteredKind,
+        IncidentStageChanged => IncidentStageChangedKind,
+        IncidentReopened => IncidentReopenedKind,
         _ => throw new ArgumentException($"unknown event type {e.GetType().Name}", nameof(e)),
     };
 
@@ -71,6 +75,8 @@ internal static class EventPayload
             PlanStepCorrected c => new CorrectionPayload(c.Order, c.Reason),
             SwitchingDeviationRecorded d => new DeviationPayload(d.Switch.Value, IncidentFormat.Name(d.Position), d.Reason, d.Departure),
             IncidentTimesEntered t => new TimesPayload(t.FaultAt, t.TrippedAt, t.ReclosedAt),
+            IncidentStageChanged c => new StagePayload(Incidents.IncidentStages.Name(c.Stage)),
+            IncidentReopened r => new ReopenedPayload(r.Reason),
             _ => throw new ArgumentException($"unknown event type {e.GetType().Name}", nameof(e)),
         };
         return JsonSerializer.Serialize(payload, payload.GetType(), Options);
@@ -94,6 +100,8 @@ internal static class EventPayload
                 PlanStepCorrectedKind => Read<CorrectionPayload>(json).ToEvent(),
                 SwitchingDeviationRecordedKind => Read<DeviationPayload>(json).ToEvent(id),
                 IncidentTimesEnteredKind => Read<TimesPayload>(json).ToEvent(),
+                IncidentStageChangedKind => Read<StagePayload>(json).ToEvent(id),
+                IncidentReopenedKind => new IncidentReopened(Read<ReopenedPayload>(json).Reason),
                 _ => throw new CorruptEventException(id, $"has unknown kind \"{kind}\""),
             };
         }
@@ -160,6 +168,15 @@ internal static class EventPayload
     {
         public PlanStepCompleted ToEvent() => new(Order, Action, Device, Note, DoneAt);
     }
+
+    private sealed record StagePayload(string Stage)
+    {
+        public IncidentStageChanged ToEvent(EventId id) => Incidents.IncidentStages.TryParse(Stage, out var stage)
+            ? new IncidentStageChanged(stage)
+            : throw new CorruptEventException(id, $"has unknown stage \"{Stage}\"");
+    }
+
+    private sealed record ReopenedPayload(string Reason);
 
     private sealed record TimesPayload(DateTimeOffset? FaultAt = null, DateTimeOffset? TrippedAt = null, DateTimeOffset? ReclosedAt = null)
     {

@@ -11,7 +11,7 @@ namespace FeederLocate.Storage.Incidents;
 /// an indication replaces the earlier one of the same indicator where it stood in the list (new indicators go
 /// last); a measurement's given values replace those of the same device; a switch state replaces the earlier
 /// one; the latest outcome is in force; plan steps accumulate, a correction withdraws the latest tick of its step, a deviation
-/// sets the positions switched so far as the start of a new plan (its ticks move to the earlier steps); incidentClosed closes, and nothing may follow it.
+/// sets the positions switched so far as the start of a new plan (its ticks move to the earlier steps); incidentClosed closes, and nothing may follow it but incidentReopened; each stage change is kept with who and when.
 /// </summary>
 internal static class IncidentFold
 {
@@ -26,7 +26,11 @@ internal static class IncidentFold
         }
 
         var first = events[0];
-        var start = new IncidentState(first.Incident, opened.GridName, opened.Incident, IncidentStatus.Open, [], null, first.Actor, first.Time, null, 1) { LastEvent = first.Id };
+        var start = new IncidentState(first.Incident, opened.GridName, opened.Incident, IncidentStatus.Open, [], null, first.Actor, first.Time, null, 1)
+        {
+            LastEvent = first.Id,
+            Stages = [new StageChange(IncidentStage.Open, first.Actor, first.Time)],
+        };
         return Continue(start, events, 1);
     }
 
@@ -50,11 +54,12 @@ internal static class IncidentFold
         var earlier = state.EarlierSteps.ToBuilder();
         var switched = state.SwitchedBeforePlan.ToBuilder();
         var times = state.Times;
+        var stages = state.Stages.ToBuilder();
 
         for (var index = from; index < events.Count; index++)
         {
             var stored = events[index];
-            if (closedAt is not null)
+            if (closedAt is not null && stored.Event is not IncidentReopened)
             {
                 throw new CorruptEventException(stored.Id, $"follows the closing of incident {stored.Incident}");
             }
@@ -126,8 +131,19 @@ internal static class IncidentFold
                 case OutcomeLogged logged:
                     outcome = new LoggedOutcome(logged, stored.Actor, stored.Time);
                     break;
-                case IncidentClosed:
+                case IncidentClosed closed:
                     closedAt = stored.Time;
+                    stages.Add(new StageChange(IncidentStage.Closed, stored.Actor, stored.Time, closed.Note));
+                    break;
+                case IncidentReopened when closedAt is null:
+                    throw new CorruptEventException(stored.Id, $"reopens incident {stored.Incident}, which is open");
+                case IncidentReopened reopened:
+                    closedAt = null;
+                    var before = stages.Count >= 2 ? stages[^2].Stage : IncidentStage.Open;
+                    stages.Add(new StageChange(before == IncidentStage.Closed ? IncidentStage.Open : before, stored.Actor, stored.Time, reopened.Reason));
+                    break;
+                case IncidentStageChanged moved:
+                    stages.Add(new StageChange(moved.Stage, stored.Actor, stored.Time));
                     break;
                 case SubstationRecordAmended amended:
                     incident = incident with { TrippedDevice = amended.TrippedDevice, FaultType = amended.FaultType };
@@ -157,6 +173,7 @@ internal static class IncidentFold
             EarlierSteps = earlier.ToImmutable(),
             SwitchedBeforePlan = switched.ToImmutable(),
             Times = times,
+            Stages = stages.ToImmutable(),
             EventCount = state.EventCount + Math.Max(0, events.Count - from),
             LastEvent = events.Count > from ? events[^1].Id : state.LastEvent,
         };

@@ -46,6 +46,12 @@ public sealed record IncidentState(
     /// </summary>
     public ImmutableDictionary<SwitchId, SwitchPosition> SwitchedBeforePlan { get; init; } = ImmutableDictionary<SwitchId, SwitchPosition>.Empty;
 
+    /// <summary>Every stage the incident went through, with who and when, the first being its opening.</summary>
+    public ImmutableArray<StageChange> Stages { get; init; } = [];
+
+    /// <summary>Where the incident stands now.</summary>
+    public IncidentStage Stage => Stages.IsEmpty ? IncidentStage.Open : Stages[^1].Stage;
+
     /// <summary>The fault, trip and reclosure times as entered.</summary>
     public IncidentTimes Times { get; init; } = IncidentTimes.None;
 

@@ -31,6 +31,7 @@ public class EventRoundTripTests
         new PlanStepCompleted(2, "close", "NO1", DoneAt: new DateTimeOffset(2026, 3, 14, 5, 52, 10, TimeSpan.Zero)),
         new IncidentTimesEntered(new DateTimeOffset(2026, 3, 14, 5, 31, 40, TimeSpan.Zero), new DateTimeOffset(2026, 3, 14, 5, 31, 40, 120, TimeSpan.Zero)),
         new IncidentTimesEntered(null, null, new DateTimeOffset(2026, 3, 14, 5, 31, 45, TimeSpan.Zero)),
+        new IncidentStageChanged(Storage.Incidents.IncidentStage.Isolated),
     };
 
     [Theory]
