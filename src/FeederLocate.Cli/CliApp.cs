@@ -29,6 +29,7 @@ public static class CliApp
             RecordCommand.Create(console),
             SwitchesCommand.Create(console),
             SwitchingCommand.Create(console),
+            LifecycleCommand.Create(console),
             GenerateCommand.Create(console),
             BenchCommand.Create(console),
         };

@@ -32,9 +32,9 @@ internal static class SwitchingCommand
         return command;
     }
 
-    private sealed record Common(Argument<string> Grid, Option<string?> Db, Option<long> Incident, Option<string?> By, Option<bool> Json);
+    internal sealed record Common(Argument<string> Grid, Option<string?> Db, Option<long> Incident, Option<string?> By, Option<bool> Json);
 
-    private static Common Shared(Command command)
+    internal static Common Shared(Command command)
     {
         var common = new Common(
             CliOptions.Grid(),
@@ -50,16 +50,18 @@ internal static class SwitchingCommand
         return common;
     }
 
-    private static Option<string> Reason(string description) => new("--reason") { Description = description, Required = true };
+    internal static Option<string> Reason(string description) => new("--reason") { Description = description, Required = true };
 
     private static Command Tick(CliConsole console)
     {
         var command = new Command("tick", "Tick a step of the present switching order as done: only in order, and only when the device rules allow it now");
         var common = Shared(command);
         var step = new Option<int>("--step") { Description = "The step's number in the present order", Required = true };
+        var at = new Option<DateTimeOffset?>("--at") { Description = "When it was actually carried out (ISO 8601); default: now" };
         command.Options.Add(step);
+        command.Options.Add(at);
         command.SetAction(parse => Run(console, parse, common, "ticking a step", engineerOnly: false,
-            (switching, graph, id, actor) => switching.TickAsync(graph, id, parse.GetValue(step), actor).GetAwaiter().GetResult(),
+            (switching, graph, id, actor) => switching.TickAsync(graph, id, parse.GetValue(step), actor, parse.GetValue(at)).GetAwaiter().GetResult(),
             $"step {parse.GetValue(step)} ticked"));
         return command;
     }
@@ -111,7 +113,7 @@ internal static class SwitchingCommand
         new Option<string>("--switch") { Description = "The switching device", Required = true },
         new Option<string>("--position") { Description = "open or closed", Required = true });
 
-    private static SwitchId SwitchOf(NetworkGraph graph, string id) => graph.Grid.HasSwitch(new SwitchId(id))
+    internal static SwitchId SwitchOf(NetworkGraph graph, string id) => graph.Grid.HasSwitch(new SwitchId(id))
         ? new SwitchId(id)
         : throw new BadInputException($"error: --switch \"{id}\" is not a switching device of grid {graph.Grid.Name}");
 
@@ -120,7 +122,14 @@ internal static class SwitchingCommand
         : throw new BadInputException($"error: --position must be open or closed, got \"{text}\"");
 
     private static int Run(CliConsole console, ParseResult parse, Common common, string doing, bool engineerOnly,
-        Func<CheckedSwitching, NetworkGraph, IncidentId, Actor, StepDecision> act, string done)
+        Func<CheckedSwitching, NetworkGraph, IncidentId, Actor, StepDecision> act, string done) =>
+        RunOn(console, parse, common, doing, engineerOnly, (log, graph, id, actor) => act(Checked(log), graph, id, actor), done);
+
+    private static CheckedSwitching Checked(IncidentLog log) => new(log, new IncidentAnalysis(new GridLearning(log), new CoreFaultRanker()));
+
+    /// <summary>Loads the grid and the incident, names the actor, runs <paramref name="act"/> on the log, and prints what came of it.</summary>
+    internal static int RunOn(CliConsole console, ParseResult parse, Common common, string doing, bool engineerOnly,
+        Func<IncidentLog, NetworkGraph, IncidentId, Actor, StepDecision> act, string done)
     {
         var grid = InputFiles.LoadGrid(parse.GetValue(common.Grid)!, console.Error);
         var dbPath = parse.GetValue(common.Db)!;
@@ -146,10 +155,9 @@ internal static class SwitchingCommand
             }
 
             var graph = new NetworkGraph(grid);
-            var switching = new CheckedSwitching(log, new IncidentAnalysis(new GridLearning(log), new CoreFaultRanker()));
             try
             {
-                decision = act(switching, graph, id, actor);
+                decision = act(log, graph, id, actor);
             }
             catch (IncidentStoreException e)
             {

@@ -72,6 +72,7 @@ public static class IncidentApi
             }));
         api.MapPost("/incidents/{id:long}/outcome", PostOutcome).RequireAuthorization(AccessPolicies.ApiWrite);
         api.MapSwitchingApi();
+        api.MapLifecycleApi();
         return app;
     }
 
@@ -232,10 +233,10 @@ public static class IncidentApi
 
     public sealed record GridEntry(string Name, string File, int Substations, int Segments, int Sections, int Indicators);
 
-    public sealed record IncidentEntry(long Id, string Grid, DateTimeOffset ReportedAt, string Status, string FaultType, string? ConfirmedSegment, int Events)
+    public sealed record IncidentEntry(long Id, string Grid, DateTimeOffset ReportedAt, string Status, string FaultType, string? ConfirmedSegment, int Events, string Stage)
     {
         public static IncidentEntry Of(IncidentSummary s) =>
-            new(s.Id.Value, s.GridName, s.ReportedAt, s.Status.ToString(), IncidentFormat.Name(s.FaultType), s.ConfirmedSegment?.Value, s.EventCount);
+            new(s.Id.Value, s.GridName, s.ReportedAt, s.Status.ToString(), IncidentFormat.Name(s.FaultType), s.ConfirmedSegment?.Value, s.EventCount, IncidentStages.Name(s.Stage));
     }
 
     /// <summary>The incident's switch positions now, and those that differ from normal.</summary>

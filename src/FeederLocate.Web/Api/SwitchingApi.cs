@@ -26,7 +26,7 @@ internal static class SwitchingApi
         api.MapPost("/incidents/{id:long}/steps", (long id, ClaimsPrincipal user, HttpRequest request, IncidentBoard board, GridCatalog grids, CheckedSwitching switching) =>
             WithBody<StepBody>(id, user, request, board, grids, "step", async (grid, body) => body.Order is not { } order
                 ? Bad("step", "order", "must give the step's number")
-                : Answer(id, "step", Text(order), await switching.TickAsync(grid.Graph, new IncidentId(id), order, AccountClaims.ActorOf(user)))))
+                : Answer(id, "step", Text(order), await switching.TickAsync(grid.Graph, new IncidentId(id), order, AccountClaims.ActorOf(user), body.DoneAt))))
             .RequireAuthorization(AccessPolicies.ApiWrite);
         api.MapPost("/incidents/{id:long}/corrections", (long id, ClaimsPrincipal user, HttpRequest request, IncidentBoard board, GridCatalog grids, CheckedSwitching switching) =>
             WithBody<CorrectionBody>(id, user, request, board, grids, "correction", (_, body) => Task.FromResult(body.Order is not { } order
@@ -55,7 +55,7 @@ internal static class SwitchingApi
             .RequireAuthorization(AccessPolicies.ApiWrite);
     }
 
-    private static async Task<IResult> WithBody<T>(long id, ClaimsPrincipal user, HttpRequest request, IncidentBoard board, GridCatalog grids, string what,
+    internal static async Task<IResult> WithBody<T>(long id, ClaimsPrincipal user, HttpRequest request, IncidentBoard board, GridCatalog grids, string what,
         Func<LoadedGrid, T, Task<IResult>> action)
         where T : class
     {
@@ -113,16 +113,16 @@ internal static class SwitchingApi
             : Bad(what, "position", $"must be open or closed, got \"{body.Position}\"");
     }
 
-    private static IResult Answer(long id, string elementKind, string elementId, StepDecision decision) => decision.IsLogged
+    internal static IResult Answer(long id, string elementKind, string elementId, StepDecision decision) => decision.IsLogged
         ? Results.Accepted($"/api/incidents/{id}", new { accepted = 1 })
         : Results.UnprocessableEntity(ApiError.Single("refused", elementKind, elementId, "switching", decision.Refusal!));
 
-    private static IResult Bad(string what, string field, string message) =>
+    internal static IResult Bad(string what, string field, string message) =>
         Results.BadRequest(ApiError.Single($"bad {what}", what, "body", field, message));
 
     private static string Text(int value) => value.ToString(System.Globalization.CultureInfo.InvariantCulture);
 
-    public sealed record StepBody(int? Order);
+    public sealed record StepBody(int? Order, DateTimeOffset? DoneAt);
 
     public sealed record CorrectionBody(int? Order, string? Reason);
 

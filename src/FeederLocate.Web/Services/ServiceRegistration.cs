@@ -27,6 +27,8 @@ public static class ServiceRegistration
         services.AddSingleton<IncidentHistory>();
         services.AddSingleton<EvidenceIntake>();
         services.AddSingleton<CheckedSwitching>();
+        services.AddSingleton<FeederLocate.Application.Lifecycle.IncidentLifecycle>();
+        services.AddSingleton<FeederLocate.Application.Times.IncidentTimesEntry>();
         services.AddSingleton(TimeProvider.System);
         return services;
     }

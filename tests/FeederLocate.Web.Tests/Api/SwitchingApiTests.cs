@@ -88,4 +88,50 @@ public sealed class SwitchingApiTests(ApiFixture app) : IClassFixture<ApiFixture
         Assert.Equal(HttpStatusCode.Accepted, recorded.StatusCode);
         Assert.Equal("open", positions.GetProperty("positions").GetProperty("LB-B1-3").GetString());
     }
+
+    [Fact]
+    public async Task The_lifecycle_moves_on_closes_after_the_outcome_and_the_return_to_normal_and_refuses_with_reasons()
+    {
+        var opened = await app.Client.PostAsync($"/api/incidents?grid={Uri.EscapeDataString(ApiFixture.SolidGrid)}",
+            Json("""{ "format": "feederlocate-incident/1", "reportedAt": "2026-11-30T06:12:00Z", "trippedDevice": "CB-A1", "faultType": "LG", "indications": [] }"""));
+        var id = (await opened.Content.ReadFromJsonAsync<JsonElement>()).GetProperty("id").GetInt64();
+
+        var times = await app.Client.PostAsync($"/api/incidents/{id}/times", Json("""{ "faultAt": "2026-11-30T06:11:40Z" }"""));
+        var lateReading = await app.Client.PostAsync($"/api/incidents/{id}/indications", Json("""{ "indicator": "FPI-A1-04", "state": "fault", "source": "field", "readAt": "2026-11-30T06:00:00Z" }"""));
+        var located = await app.Client.PostAsync($"/api/incidents/{id}/stage", Json("""{ "stage": "located" }"""));
+        var back = await app.Client.PostAsync($"/api/incidents/{id}/stage", Json("""{ "stage": "open" }"""));
+        var closeEarly = await app.Client.PostAsync($"/api/incidents/{id}/close", Json("""{ }"""));
+        await app.Client.PostAsync($"/api/incidents/{id}/outcome", Json("""{ "segment": "S109", "faultType": "LG" }"""));
+        await app.Client.PostAsync($"/api/incidents/{id}/stage", Json("""{ "stage": "repaired" }"""));
+        var normal = await app.Client.PostAsync($"/api/incidents/{id}/normal", Json("""{ "switch": "CB-A1" }"""));
+        var closed = await app.Client.PostAsync($"/api/incidents/{id}/close", Json("""{ "note": "back to normal" }"""));
+        var reopenByOperator = await app.Client.PostAsync($"/api/incidents/{id}/reopen", Json("""{ "reason": "again" }"""));
+        var entry = await app.Client.GetFromJsonAsync<JsonElement>($"/api/incidents/{id}");
+
+        Assert.Equal(HttpStatusCode.Accepted, times.StatusCode);
+        Assert.Equal(HttpStatusCode.BadRequest, lateReading.StatusCode);
+        Assert.Equal("is before the fault began at 2026-11-30T06:11:40Z", (await Message(lateReading))[^"is before the fault began at 2026-11-30T06:11:40Z".Length..]);
+        Assert.Equal(HttpStatusCode.Accepted, located.StatusCode);
+        Assert.Equal(HttpStatusCode.UnprocessableEntity, back.StatusCode);
+        Assert.Equal($"log the outcome of incident {id} before closing it", await Message(closeEarly));
+        Assert.Equal((HttpStatusCode.Accepted, HttpStatusCode.Accepted), (normal.StatusCode, closed.StatusCode));
+        Assert.Equal("only an engineer reopens an incident", await Message(reopenByOperator));
+        Assert.Equal(("Closed", "closed"), (entry.GetProperty("status").GetString(), entry.GetProperty("stage").GetString()));
+    }
+
+    [Fact]
+    public async Task An_indication_post_that_does_not_mention_suspect_keeps_the_distrust_mark()
+    {
+        var opened = await app.Client.PostAsync($"/api/incidents?grid={Uri.EscapeDataString(ApiFixture.SolidGrid)}",
+            Json("""{ "format": "feederlocate-incident/1", "reportedAt": "2026-11-30T06:12:00Z", "trippedDevice": "CB-A1", "faultType": "LG", "indications": [] }"""));
+        var id = (await opened.Content.ReadFromJsonAsync<JsonElement>()).GetProperty("id").GetInt64();
+        await app.Client.PostAsync($"/api/incidents/{id}/indications", Json("""{ "indicator": "FPI-A1-04", "state": "none", "source": "remote", "suspect": true }"""));
+
+        var posted = await app.Client.PostAsync($"/api/incidents/{id}/indications", Json("""[{"indicator":"FPI-A1-04","state":"fault","source":"remote"}]"""));
+
+        Assert.Equal(HttpStatusCode.Accepted, posted.StatusCode);
+        var board = Microsoft.Extensions.DependencyInjection.ServiceProviderServiceExtensions.GetRequiredService<Services.IncidentBoard>(app.Factory.Services);
+        var indication = board.State(new Storage.Incidents.IncidentId(id)).Incident.IndicationOf(new Core.Model.IndicatorId("FPI-A1-04"))!;
+        Assert.Equal((Core.Evidence.IndicatorState.Fault, true), (indication.State, indication.Suspect));
+    }
 }
