@@ -55,6 +55,7 @@ internal static class IncidentFold
         var switched = state.SwitchedBeforePlan.ToBuilder();
         var times = state.Times;
         var stages = state.Stages.ToBuilder();
+        var entries = state.IndicationEntries.ToBuilder();
 
         for (var index = from; index < events.Count; index++)
         {
@@ -67,6 +68,11 @@ internal static class IncidentFold
             switch (stored.Event)
             {
                 case IndicationEntered { Indication: var indication }:
+                    var previous = entries.GetValueOrDefault(indication.Indicator);
+                    var overrode = previous is not null && previous.Actor.Name != stored.Actor.Name && stored.Time - previous.EnteredAt <= IndicationEntry.OverrideWindow
+                        ? previous with { Overrode = null }
+                        : null;
+                    entries[indication.Indicator] = new IndicationEntry(indication, stored.Actor, stored.Time, overrode);
                     var at = IndexOf(indications, i => i.Indicator == indication.Indicator);
                     if (at < 0)
                     {
@@ -174,6 +180,7 @@ internal static class IncidentFold
             SwitchedBeforePlan = switched.ToImmutable(),
             Times = times,
             Stages = stages.ToImmutable(),
+            IndicationEntries = entries.ToImmutable(),
             EventCount = state.EventCount + Math.Max(0, events.Count - from),
             LastEvent = events.Count > from ? events[^1].Id : state.LastEvent,
         };

@@ -46,6 +46,12 @@ public sealed record IncidentState(
     /// </summary>
     public ImmutableDictionary<SwitchId, SwitchPosition> SwitchedBeforePlan { get; init; } = ImmutableDictionary<SwitchId, SwitchPosition>.Empty;
 
+    /// <summary>
+    /// Who entered each indicator's present reading after the opening, and when (readings given with the
+    /// opening are the opener's, at <see cref="OpenedAt"/>, and are not listed).
+    /// </summary>
+    public ImmutableDictionary<IndicatorId, IndicationEntry> IndicationEntries { get; init; } = ImmutableDictionary<IndicatorId, IndicationEntry>.Empty;
+
     /// <summary>Every stage the incident went through, with who and when, the first being its opening.</summary>
     public ImmutableArray<StageChange> Stages { get; init; } = [];
 
