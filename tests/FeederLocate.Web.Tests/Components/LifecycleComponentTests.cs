@@ -91,4 +91,16 @@ public class LifecycleComponentTests : ComponentTest
         cut.Find("[data-testid=times-enter]").Click();
         Assert.Equal(new IncidentTimesEntered(null, new DateTimeOffset(2026, 3, 1, 8, 0, 2, TimeSpan.Zero), null), entered);
     }
+
+    [Fact]
+    public void Outcome_form_offers_the_incidents_fault_type_first()
+    {
+        OutcomeLogged? logged = null;
+        var cut = Render<OutcomeForm>(p => p.Add(c => c.Segments, [new SegmentId("S109")]).Add(c => c.FaultType, FaultType.LLG).Add(c => c.OnLog, o => logged = o));
+
+        cut.Find("[data-testid='outcome-segment']").Change("S109");
+        cut.Find("[data-testid='log-outcome']").Click();
+
+        Assert.Equal(new OutcomeLogged(new SegmentId("S109"), FaultType.LLG), logged);
+    }
 }

@@ -61,18 +61,19 @@ public sealed class WorkspaceAnalysisTests : BunitContext
     {
         var id = _board.Open(_grids.Default!, new SwitchId("CB-A1"), FaultType.LG, new DateTimeOffset(2026, 11, 30, 6, 12, 0, TimeSpan.Zero), new Actor("ana", "operator"));
         var cut = Render<IncidentWorkspace>(p => p.Add(c => c.Id, id.Value));
-        cut.WaitForAssertion(() => Assert.NotEmpty(cut.FindAll("g[data-switch='LB-A1-3']")), TimeSpan.FromMinutes(1));
+        // The page is ready once the analysis is shown (it renders again then).
+        cut.WaitForAssertion(() => Assert.NotEmpty(cut.FindAll("li[data-section]")), TimeSpan.FromMinutes(1));
 
         cut.Find("g[data-switch='LB-A1-3']").Click();
 
-        Assert.Contains("Record that LB-A1-3 is found open?", cut.Find("[data-testid=switch-confirmation]").TextContent, StringComparison.Ordinal);
+        cut.WaitForAssertion(() => Assert.Contains("Record that LB-A1-3 is found open?", cut.Find("[data-testid=switch-confirmation]").TextContent, StringComparison.Ordinal));
         Assert.Single(_board.Events(id));
         cut.Find("[data-testid=switch-cancel]").Click();
         Assert.Empty(cut.FindAll("[data-testid=switch-confirmation]"));
         Assert.Single(_board.Events(id));
 
         cut.Find("g[data-switch='LB-A1-3']").Click();
-        cut.Find("[data-testid=switch-confirm]").Click();
+        cut.WaitForElement("[data-testid=switch-confirm]").Click();
 
         var changed = Assert.IsType<SwitchStateChanged>(_board.Events(id)[^1].Event);
         Assert.Equal(new SwitchStateChanged(new SwitchId("LB-A1-3"), SwitchPosition.Open), changed);
