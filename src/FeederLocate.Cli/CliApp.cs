@@ -30,6 +30,8 @@ public static class CliApp
             RecordCommand.Create(console),
             RetractCommand.Create(console),
             SwitchesCommand.Create(console),
+            SwitchingCommand.Create(console),
+            LifecycleCommand.Create(console),
             GenerateCommand.Create(console),
             BenchCommand.Create(console),
         };

@@ -261,9 +261,14 @@ public sealed class IncidentStore : IDisposable
         var now = _clock.GetUtcNow();
         foreach (var e in events)
         {
-            if (closed && e is not OutcomeRetracted)
+            if (closed && e is not (OutcomeRetracted or IncidentReopened))
             {
                 throw new IncidentClosedException(incident, EventPayload.KindOf(e));
+            }
+
+            if (!closed && e is IncidentReopened)
+            {
+                throw new InvalidOperationException($"incident {incident} is open: only a closed incident is reopened");
             }
 
             stored.Add(EventTable.InsertEvent(_connection, transaction, incident, ++sequence, now, actor, e));
@@ -322,6 +327,18 @@ public sealed class IncidentStore : IDisposable
             case PlanStepCompleted step:
                 ArgumentOutOfRangeException.ThrowIfLessThan(step.Order, 1, nameof(step.Order));
                 ArgumentException.ThrowIfNullOrWhiteSpace(step.Action, nameof(step.Action));
+                break;
+            case IncidentReopened reopened:
+                ArgumentException.ThrowIfNullOrWhiteSpace(reopened.Reason, nameof(reopened.Reason));
+                break;
+            case IncidentStageChanged moved when moved.Stage is IncidentStage.Open or IncidentStage.Closed || !Enum.IsDefined(moved.Stage):
+                throw new ArgumentException($"incidentStageChanged moves to located, isolated, restored or repaired, not {moved.Stage}", nameof(e));
+            case PlanStepCorrected correction:
+                ArgumentOutOfRangeException.ThrowIfLessThan(correction.Order, 1, nameof(correction.Order));
+                ArgumentException.ThrowIfNullOrWhiteSpace(correction.Reason, nameof(correction.Reason));
+                break;
+            case SwitchingDeviationRecorded deviation:
+                ArgumentException.ThrowIfNullOrWhiteSpace(deviation.Reason, nameof(deviation.Reason));
                 break;
             case OutcomeLogged outcome:
                 ArgumentException.ThrowIfNullOrWhiteSpace(outcome.ConfirmedSegment.Value, nameof(outcome.ConfirmedSegment));

@@ -9,7 +9,7 @@ namespace FeederLocate.Application.Analysis;
 
 /// <summary>
 /// The ranking of an incident's evidence, with priors learned from the other outcomes of its grid, and the
-/// switching order for its most likely section. A logged incident's results are kept per grid, incident and the
+/// switching order for its most likely section, made from the positions switched before the present plan. A logged incident's results are kept per grid, incident and the
 /// last event among the ranking's inputs (the incident's own events and those of every incident of the grid with
 /// an outcome); event ids only grow, so any change to an input makes a new key. The cache is bounded (least
 /// recently used goes) and shared: concurrent requests for one key wait for one computation, which runs on the
@@ -98,7 +98,7 @@ public sealed class IncidentAnalysis
         {
             var ranking = await RankAsync(key, graph, state, outcomes).ConfigureAwait(false);
             return ranking.Result is { } result
-                ? await Task.Run(() => EvidenceAnalysis.Plan(graph, state.Incident, result)).ConfigureAwait(false)
+                ? await Task.Run(() => EvidenceAnalysis.Plan(graph, state.PlanBasis, result)).ConfigureAwait(false)
                 : new PlanAttempt(null, ranking.Problem);
         }).ConfigureAwait(false);
 

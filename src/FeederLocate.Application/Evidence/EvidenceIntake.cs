@@ -1,3 +1,4 @@
+using System.Text.Json;
 using FeederLocate.Application.Incidents;
 using FeederLocate.Core.Formats;
 using FeederLocate.Core.Model;
@@ -16,14 +17,51 @@ public sealed record EvidenceResult(int Accepted, IReadOnlyList<ValidationIssue>
 /// Evidence for a logged incident given as JSON in the incident format's own shapes (one item or an array): read
 /// by the incident reader, with its messages, checked against the incident's grid, and logged all or none.
 /// </summary>
-public sealed class EvidenceIntake(IncidentLog log)
+public sealed class EvidenceIntake(IncidentLog log, TimeProvider? clock = null)
 {
+    private readonly TimeProvider _clock = clock ?? TimeProvider.System;
+
     /// <summary>
-    /// Indications: one object or an array of them, as in an incident file's <c>indications</c>; with the
-    /// incident's fault time known, a reading dated before it is refused by the reader.
+    /// Indications: one object or an array of them, as in an incident file's <c>indications</c>. An item that
+    /// does not mention <c>suspect</c> keeps the operator's distrust mark on its indicator as it stands; only an
+    /// explicit <c>"suspect": false</c> clears it.
     /// </summary>
-    public EvidenceResult AddIndications(IncidentId incident, Grid grid, string json, Actor actor) =>
-        Add(incident, grid, actor, IncidentReader.ParseIndications(json, grid, log.State(incident).Incident.FaultAt), i => new IndicationEntered(i));
+    public EvidenceResult AddIndications(IncidentId incident, Grid grid, string json, Actor actor)
+    {
+        var read = IncidentReader.ParseIndications(json, grid, log.State(incident).Incident.FaultAt);
+        if (read.Value is not { } items)
+        {
+            return Add(incident, grid, actor, read, i => new IndicationEntered(i));
+        }
+
+        var state = log.State(incident);
+        var now = _clock.GetUtcNow();
+        var late = items
+            .Select(i => i.ReadAt is { } at && Times.EventTimes.Problem("readAt", at, state, now) is { } problem
+                ? new ValidationIssue(Severity.Error, "indication", i.Indicator.Value, "readAt", problem["readAt ".Length..])
+                : null)
+            .OfType<ValidationIssue>()
+            .ToList();
+        if (late.Count > 0)
+        {
+            return new EvidenceResult(0, [.. read.Issues, .. late]);
+        }
+
+        var silent = WithoutDistrustField(json);
+        var marked = state.Incident.Indications.Where(i => i.Distrusted).Select(i => i.Indicator).ToHashSet();
+        return Add(incident, grid, actor, read, i =>
+            new IndicationEntered(silent.Contains(i.Indicator.Value) && marked.Contains(i.Indicator) ? i with { Distrusted = true } : i));
+    }
+
+    /// <summary>The indicators of the items (already read without errors) that do not mention <c>suspect</c>.</summary>
+    private static HashSet<string> WithoutDistrustField(string json)
+    {
+        using var document = JsonDocument.Parse(json);
+        var items = document.RootElement.ValueKind == JsonValueKind.Array ? document.RootElement.EnumerateArray().ToList() : [document.RootElement];
+        return [.. items
+            .Where(item => !item.TryGetProperty("suspect", out _) && item.TryGetProperty("indicator", out var id) && id.ValueKind == JsonValueKind.String)
+            .Select(item => item.GetProperty("indicator").GetString()!)];
+    }
 
     /// <summary>Substation measurements: one object or an array, as in an incident file's <c>measurements</c>.</summary>
     public EvidenceResult AddMeasurements(IncidentId incident, Grid grid, string json, Actor actor) =>

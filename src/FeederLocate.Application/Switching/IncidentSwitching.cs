@@ -10,14 +10,23 @@ public static class IncidentSwitching
 {
     /// <summary>
     /// Every device's position now: normal positions, then the positions recorded for the incident, then its
-    /// tripped device open, then the open and close steps of the switching order ticked as done, in the order
-    /// they were ticked. A step naming a device not in <paramref name="grid"/> is passed over.
+    /// tripped device open, then the positions switched before the present plan (ticks and deviations up to the
+    /// latest deviation), then the open and close steps of the present switching order ticked as done, in the
+    /// order they were ticked. A step naming a device not in <paramref name="grid"/> is passed over.
     /// </summary>
     public static SwitchStates Current(Grid grid, IncidentState state)
     {
         ArgumentNullException.ThrowIfNull(grid);
         ArgumentNullException.ThrowIfNull(state);
         var states = SwitchStates.AfterTrip(grid, state.Incident);
+        foreach (var (device, position) in state.SwitchedBeforePlan)
+        {
+            if (grid.HasSwitch(device))
+            {
+                states = states.With(device, position);
+            }
+        }
+
         foreach (var done in state.CompletedSteps)
         {
             if (done.Step is { Device: { } device, Action: "open" or "close" } && grid.HasSwitch(new SwitchId(device)))

@@ -41,7 +41,7 @@ internal static class RecordCommand
             throw new BadInputException($"error: --segment \"{segmentId}\" is not a segment of grid {grid.Name}");
         }
 
-        var actor = Logger(dbPath, by);
+        var actor = CliActor.Of(dbPath, by, "logging outcomes");
         using var log = HistoryDatabase.OpenLog(dbPath);
         var id = log.Append(grid, incident, new OutcomeLogged(segment, incident.FaultType, cause), actor);
         if (json)

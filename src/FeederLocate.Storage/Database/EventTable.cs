@@ -35,12 +35,15 @@ internal static class EventTable
         using var command = Command(connection, transaction, """
             SELECT i.grid_name,
                    (SELECT COALESCE(MAX(sequence), 0) FROM events WHERE incident_id = i.id),
-                   EXISTS (SELECT 1 FROM events WHERE incident_id = i.id AND kind = $closedKind)
+                   COALESCE((SELECT kind = $closedKind FROM events
+                             WHERE incident_id = i.id AND kind IN ($closedKind, $reopenedKind)
+                             ORDER BY sequence DESC LIMIT 1), 0)
             FROM incidents i
             WHERE i.id = $incident
             """);
         command.Parameters.AddWithValue("$incident", incident.Value);
         command.Parameters.AddWithValue("$closedKind", EventPayload.IncidentClosedKind);
+        command.Parameters.AddWithValue("$reopenedKind", EventPayload.IncidentReopenedKind);
         using var reader = command.ExecuteReader();
         return reader.Read() ? new Head(reader.GetString(0), reader.GetInt32(1), reader.GetBoolean(2)) : null;
     }

@@ -30,6 +30,7 @@ internal static class GridReferences
         MeasurementRecorded { Measurement.Device: var id } when !grid.HasSwitch(id) => $"switch {id}",
         SwitchStateChanged { Switch: var id } when !grid.HasSwitch(id) => $"switch {id}",
         TripAmended { TrippedDevice: { } id } when !grid.HasSwitch(id) => $"switch {id}",
+        SwitchingDeviationRecorded { Switch: var id } when !grid.HasSwitch(id) => $"switch {id}",
         OutcomeLogged { ConfirmedSegment: var id } when !grid.HasSegment(id) => $"segment {id}",
         ProtectionRecorded p => p.Fuses.Keys.Concat(p.Relays.Select(r => r.Device)).Concat(p.Reclosing is { } r ? [r.Device] : [])
             .Where(id => !grid.HasSwitch(id)).Select(id => $"switch {id}").FirstOrDefault(),

@@ -25,6 +25,11 @@ internal static class EventPayload
     public const string TripAmendedKind = "substationRecordAmended";
     public const string ProtectionRecordedKind = "protectionRecorded";
     public const string OutcomeRetractedKind = "outcomeRetracted";
+    public const string PlanStepCorrectedKind = "planStepCorrected";
+    public const string SwitchingDeviationRecordedKind = "switchingDeviationRecorded";
+    public const string IncidentTimesEnteredKind = "incidentTimesEntered";
+    public const string IncidentStageChangedKind = "incidentStageChanged";
+    public const string IncidentReopenedKind = "incidentReopened";
 
     // Required constructor parameters and nullable annotations are enforced, so a payload missing a
     // non-optional field fails to read instead of yielding nulls; optional fields have defaults.
@@ -49,6 +54,11 @@ internal static class EventPayload
         ProtectionRecorded => ProtectionRecordedKind,
         OutcomeRetracted => OutcomeRetractedKind,
         UnreadableEvent u => u.StoredKind,
+        PlanStepCorrected => PlanStepCorrectedKind,
+        SwitchingDeviationRecorded => SwitchingDeviationRecordedKind,
+        IncidentTimesEntered => IncidentTimesEnteredKind,
+        IncidentStageChanged => IncidentStageChangedKind,
+        IncidentReopened => IncidentReopenedKind,
         _ => throw new ArgumentException($"unknown event type {e.GetType().Name}", nameof(e)),
     };
 
@@ -64,13 +74,18 @@ internal static class EventPayload
             MeasurementRecorded { Measurement: var m } => new MeasurementPayload(
                 m.Device.Value, m.PhaseCurrentA, m.ResidualCurrentA, m.NeutralVoltageV),
             SwitchStateChanged s => new SwitchPayload(s.Switch.Value, IncidentFormat.Name(s.Position)),
-            PlanStepCompleted p => new PlanStepPayload(p.Order, p.Action, p.Device, p.Note),
+            PlanStepCompleted p => new PlanStepPayload(p.Order, p.Action, p.Device, p.Note, p.DoneAt),
             OutcomeLogged o => new OutcomePayload(o.ConfirmedSegment.Value, IncidentFormat.Name(o.FaultType), o.Cause, o.Notes),
             IncidentClosed c => new ClosedPayload(c.Note),
             TripAmended a => new AmendedPayload(IncidentFormat.Name(a.FaultType), a.TrippedDevice?.Value),
             ProtectionRecorded p => new ProtectionPayload(ProtectionText(p)),
             OutcomeRetracted r => new RetractedPayload(r.Reason),
             UnreadableEvent => throw new ArgumentException("an unreadable event is never written", nameof(e)),
+            PlanStepCorrected c => new CorrectionPayload(c.Order, c.Reason),
+            SwitchingDeviationRecorded d => new DeviationPayload(d.Switch.Value, IncidentFormat.Name(d.Position), d.Reason, d.Departure),
+            IncidentTimesEntered t => new TimesPayload(t.FaultAt, t.TrippedAt, t.ReclosedAt),
+            IncidentStageChanged c => new StagePayload(Incidents.IncidentStages.Name(c.Stage)),
+            IncidentReopened r => new ReopenedPayload(r.Reason),
             _ => throw new ArgumentException($"unknown event type {e.GetType().Name}", nameof(e)),
         };
         return JsonSerializer.Serialize(payload, payload.GetType(), Options);
@@ -93,6 +108,11 @@ internal static class EventPayload
                 TripAmendedKind => Read<AmendedPayload>(json).ToEvent(id),
                 ProtectionRecordedKind => Protection(id, Read<ProtectionPayload>(json)),
                 OutcomeRetractedKind => new OutcomeRetracted(Read<RetractedPayload>(json).Reason),
+                PlanStepCorrectedKind => Read<CorrectionPayload>(json).ToEvent(),
+                SwitchingDeviationRecordedKind => Read<DeviationPayload>(json).ToEvent(id),
+                IncidentTimesEnteredKind => Read<TimesPayload>(json).ToEvent(),
+                IncidentStageChangedKind => Read<StagePayload>(json).ToEvent(id),
+                IncidentReopenedKind => new IncidentReopened(Read<ReopenedPayload>(json).Reason),
                 _ => throw new CorruptEventException(id, $"has unknown kind \"{kind}\""),
             };
         }
@@ -183,9 +203,23 @@ internal static class EventPayload
             new(new SwitchId(Switch), Choice(id, "position", Position, IncidentFormat.Positions));
     }
 
-    private sealed record PlanStepPayload(int Order, string Action, string? Device = null, string? Note = null)
+    private sealed record PlanStepPayload(int Order, string Action, string? Device = null, string? Note = null, DateTimeOffset? DoneAt = null)
     {
-        public PlanStepCompleted ToEvent() => new(Order, Action, Device, Note);
+        public PlanStepCompleted ToEvent() => new(Order, Action, Device, Note, DoneAt);
+    }
+
+    private sealed record StagePayload(string Stage)
+    {
+        public IncidentStageChanged ToEvent(EventId id) => Incidents.IncidentStages.TryParse(Stage, out var stage)
+            ? new IncidentStageChanged(stage)
+            : throw new CorruptEventException(id, $"has unknown stage \"{Stage}\"");
+    }
+
+    private sealed record ReopenedPayload(string Reason);
+
+    private sealed record TimesPayload(DateTimeOffset? FaultAt = null, DateTimeOffset? TrippedAt = null, DateTimeOffset? ReclosedAt = null)
+    {
+        public IncidentTimesEntered ToEvent() => new(FaultAt, TrippedAt, ReclosedAt);
     }
 
     private sealed record OutcomePayload(string ConfirmedSegment, string FaultType, string? Cause = null, string? Notes = null)
@@ -202,5 +236,16 @@ internal static class EventPayload
     {
         public TripAmended ToEvent(EventId id) =>
             new(TrippedDevice is null ? null : new SwitchId(TrippedDevice), Choice(id, "faultType", FaultType, IncidentFormat.FaultTypes));
+    }
+
+    private sealed record CorrectionPayload(int Order, string Reason)
+    {
+        public PlanStepCorrected ToEvent() => new(Order, Reason);
+    }
+
+    private sealed record DeviationPayload(string Switch, string Position, string Reason, string? Departure = null)
+    {
+        public SwitchingDeviationRecorded ToEvent(EventId id) =>
+            new(new SwitchId(Switch), Choice(id, "position", Position, IncidentFormat.Positions), Reason, Departure);
     }
 }

@@ -1,5 +1,6 @@
 using System.Collections.Immutable;
 using FeederLocate.Core.Evidence;
+using FeederLocate.Core.Model;
 using FeederLocate.Storage.Errors;
 using FeederLocate.Storage.Events;
 
@@ -9,8 +10,9 @@ namespace FeederLocate.Storage.Incidents;
 /// Adds up an incident's events, in sequence order, into its <see cref="IncidentState"/>:
 /// an indication replaces the earlier one of the same indicator where it stood in the list (new indicators go
 /// last); a measurement's given values replace those of the same device; a switch state replaces the earlier
-/// one; the latest outcome is in force until retracted; plan steps accumulate; incidentClosed closes, and only a
-/// retraction may follow it. An event that cannot be read, or cannot apply where it stands, is quarantined:
+/// one; the latest outcome is in force until retracted; plan steps accumulate, a correction withdraws the latest tick of its step, a deviation
+/// sets the positions switched so far as the start of a new plan (its ticks move to the earlier steps); incidentClosed closes, and only a retraction or incidentReopened may follow it; each stage change is kept with who and when.
+/// An event that cannot be read, or cannot apply where it stands, is quarantined:
 /// left out and named in <see cref="IncidentState.Quarantined"/>, never a reason to refuse the rest.
 /// </summary>
 internal static class IncidentFold
@@ -28,7 +30,11 @@ internal static class IncidentFold
         }
 
         var first = events[0];
-        var start = new IncidentState(first.Incident, opened.GridName, opened.Incident, IncidentStatus.Open, [], null, first.Actor, first.Time, null, 1) { LastEvent = first.Id };
+        var start = new IncidentState(first.Incident, opened.GridName, opened.Incident, IncidentStatus.Open, [], null, first.Actor, first.Time, null, 1)
+        {
+            LastEvent = first.Id,
+            Stages = [new StageChange(IncidentStage.Open, first.Actor, first.Time)],
+        };
         return Continue(start, events, 1);
     }
 
@@ -48,6 +54,13 @@ internal static class IncidentFold
         var outcome = state.Outcome;
         var closedAt = state.ClosedAt;
         var quarantined = state.Quarantined.ToBuilder();
+        var corrections = state.Corrections.ToBuilder();
+        var deviations = state.Deviations.ToBuilder();
+        var earlier = state.EarlierSteps.ToBuilder();
+        var switched = state.SwitchedBeforePlan.ToBuilder();
+        var times = state.Times;
+        var stages = state.Stages.ToBuilder();
+        var entries = state.IndicationEntries.ToBuilder();
 
         for (var index = from; index < events.Count; index++)
         {
@@ -58,7 +71,7 @@ internal static class IncidentFold
                 continue;
             }
 
-            if (closedAt is not null && stored.Event is not OutcomeRetracted)
+            if (closedAt is not null && stored.Event is not (OutcomeRetracted or IncidentReopened))
             {
                 quarantined.Add(new QuarantinedEvent(stored.Id, stored.Incident, stored.Sequence, stored.Kind, $"follows the closing of incident {stored.Incident}"));
                 continue;
@@ -67,6 +80,11 @@ internal static class IncidentFold
             switch (stored.Event)
             {
                 case IndicationEntered { Indication: var indication }:
+                    var previous = entries.GetValueOrDefault(indication.Indicator);
+                    var overrode = previous is not null && previous.Actor.Name != stored.Actor.Name && stored.Time - previous.EnteredAt <= IndicationEntry.OverrideWindow
+                        ? previous with { Overrode = null }
+                        : null;
+                    entries[indication.Indicator] = new IndicationEntry(indication, stored.Actor, stored.Time, overrode);
                     var at = IndexOf(indications, i => i.Indicator == indication.Indicator);
                     if (at < 0)
                     {
@@ -97,6 +115,33 @@ internal static class IncidentFold
                     break;
                 case SwitchStateChanged change:
                     switchStates[change.Switch] = change.Position;
+                    switched.Remove(change.Switch);
+                    break;
+                case IncidentTimesEntered entered:
+                    times = new IncidentTimes(entered.FaultAt ?? times.FaultAt, entered.TrippedAt ?? times.TrippedAt, entered.ReclosedAt ?? times.ReclosedAt);
+                    break;
+                case PlanStepCorrected correction:
+                    var ticked = LastIndexOf(steps, d => d.Step.Order == correction.Order);
+                    corrections.Add(new RecordedCorrection(ticked < 0 ? null : steps[ticked], correction.Reason, stored.Actor, stored.Time));
+                    if (ticked >= 0)
+                    {
+                        steps.RemoveAt(ticked);
+                    }
+
+                    break;
+                case SwitchingDeviationRecorded deviation:
+                    foreach (var done in steps)
+                    {
+                        if (done.Step is { Device: { } device, Action: "open" or "close" })
+                        {
+                            switched[new SwitchId(device)] = done.Step.Action == "close" ? SwitchPosition.Closed : SwitchPosition.Open;
+                        }
+                    }
+
+                    switched[deviation.Switch] = deviation.Position;
+                    earlier.AddRange(steps);
+                    steps.Clear();
+                    deviations.Add(new RecordedDeviation(deviation, stored.Actor, stored.Time));
                     break;
                 case PlanStepCompleted step:
                     steps.Add(new CompletedPlanStep(step, stored.Actor, stored.Time));
@@ -104,8 +149,19 @@ internal static class IncidentFold
                 case OutcomeLogged logged:
                     outcome = new OutcomeInForce(logged, stored.Actor, stored.Time);
                     break;
-                case IncidentClosed:
+                case IncidentClosed closed:
                     closedAt = stored.Time;
+                    stages.Add(new StageChange(IncidentStage.Closed, stored.Actor, stored.Time, closed.Note));
+                    break;
+                case IncidentReopened when closedAt is null:
+                    throw new CorruptEventException(stored.Id, $"reopens incident {stored.Incident}, which is open");
+                case IncidentReopened reopened:
+                    closedAt = null;
+                    var before = stages.Count >= 2 ? stages[^2].Stage : IncidentStage.Open;
+                    stages.Add(new StageChange(before == IncidentStage.Closed ? IncidentStage.Open : before, stored.Actor, stored.Time, reopened.Reason));
+                    break;
+                case IncidentStageChanged moved:
+                    stages.Add(new StageChange(moved.Stage, stored.Actor, stored.Time));
                     break;
                 case TripAmended amended:
                     incident = incident with { TrippedDevice = amended.TrippedDevice, FaultType = amended.FaultType };
@@ -137,10 +193,30 @@ internal static class IncidentFold
             CompletedSteps = steps.ToImmutable(),
             Outcome = outcome,
             ClosedAt = closedAt,
+            Corrections = corrections.ToImmutable(),
+            Deviations = deviations.ToImmutable(),
+            EarlierSteps = earlier.ToImmutable(),
+            SwitchedBeforePlan = switched.ToImmutable(),
+            Times = times,
+            Stages = stages.ToImmutable(),
+            IndicationEntries = entries.ToImmutable(),
             EventCount = state.EventCount + Math.Max(0, events.Count - from),
             Quarantined = quarantined.ToImmutable(),
             LastEvent = events.Count > from ? events[^1].Id : state.LastEvent,
         };
+    }
+
+    private static int LastIndexOf<T>(ImmutableArray<T>.Builder items, Func<T, bool> match)
+    {
+        for (var i = items.Count - 1; i >= 0; i--)
+        {
+            if (match(items[i]))
+            {
+                return i;
+            }
+        }
+
+        return -1;
     }
 
     private static int IndexOf<T>(ImmutableArray<T>.Builder items, Func<T, bool> match)

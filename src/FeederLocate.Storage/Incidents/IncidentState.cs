@@ -1,5 +1,6 @@
 using System.Collections.Immutable;
 using FeederLocate.Core.Evidence;
+using FeederLocate.Core.Model;
 using FeederLocate.Storage.Events;
 
 namespace FeederLocate.Storage.Incidents;
@@ -33,4 +34,42 @@ public sealed record IncidentState(
     /// with a greater id is a later one: what caches of anything derived from the incident key on.
     /// </summary>
     public EventId LastEvent { get; init; }
+
+    /// <summary>Ticks withdrawn by a correction, in the order logged.</summary>
+    public ImmutableArray<RecordedCorrection> Corrections { get; init; } = [];
+
+    /// <summary>Switches operated outside the switching order, in the order logged.</summary>
+    public ImmutableArray<RecordedDeviation> Deviations { get; init; } = [];
+
+    /// <summary>Steps ticked under an earlier plan, before the latest deviation made the plan again.</summary>
+    public ImmutableArray<CompletedPlanStep> EarlierSteps { get; init; } = [];
+
+    /// <summary>
+    /// Positions put by switching up to the latest deviation (the ticks then, and the deviations): the switching
+    /// the present plan starts from. Empty until a deviation; a position found later for a switch replaces it.
+    /// </summary>
+    public ImmutableDictionary<SwitchId, SwitchPosition> SwitchedBeforePlan { get; init; } = ImmutableDictionary<SwitchId, SwitchPosition>.Empty;
+
+    /// <summary>
+    /// Who entered each indicator's present reading after the opening, and when (readings given with the
+    /// opening are the opener's, at <see cref="OpenedAt"/>, and are not listed).
+    /// </summary>
+    public ImmutableDictionary<IndicatorId, IndicationEntry> IndicationEntries { get; init; } = ImmutableDictionary<IndicatorId, IndicationEntry>.Empty;
+
+    /// <summary>Every stage the incident went through, with who and when, the first being its opening.</summary>
+    public ImmutableArray<StageChange> Stages { get; init; } = [];
+
+    /// <summary>Where the incident stands now.</summary>
+    public IncidentStage Stage => Stages.IsEmpty ? IncidentStage.Open : Stages[^1].Stage;
+
+    /// <summary>The fault, trip and reclosure times as entered.</summary>
+    public IncidentTimes Times { get; init; } = IncidentTimes.None;
+
+    /// <summary>When the fault began: the time entered, else when it was reported.</summary>
+    public DateTimeOffset FaultAt => Times.FaultAt ?? Incident.ReportedAt;
+
+    /// <summary>The evidence with the positions switched before the present plan: what the switching order is made from.</summary>
+    public Incident PlanBasis => SwitchedBeforePlan.IsEmpty
+        ? Incident
+        : Incident with { SwitchStates = Incident.SwitchStates.SetItems(SwitchedBeforePlan) };
 }

@@ -29,6 +29,12 @@ public sealed record IncidentSummary(
             outcome?.ConfirmedSegment,
             outcome?.Cause,
             outcome?.Notes,
-            state.EventCount);
+            state.EventCount)
+        {
+            Stage = state.Stage,
+        };
     }
+
+    /// <summary>Where the incident stands (open when the summary was made without its stages).</summary>
+    public IncidentStage Stage { get; init; }
 }

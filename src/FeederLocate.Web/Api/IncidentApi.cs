@@ -99,6 +99,8 @@ public static class IncidentApi
                 : Results.BadRequest(ApiError.Single("unknown grid", "request", "query", "grid",
                     $"must name a loaded grid of this account ({string.Join(", ", grids.VisibleTo(user).Select(g => $"\"{g.Name}\""))}), got \"{grid}\"")));
         api.MapPost("/incidents/{id:long}/outcome/retraction", PostRetraction).RequireAuthorization(AccessPolicies.ApiEngineer);
+        api.MapSwitchingApi();
+        api.MapLifecycleApi();
         return app;
     }
 
@@ -250,19 +252,19 @@ public static class IncidentApi
         ? Results.BadRequest(ApiError.Single("too long", "outcome", Text(id), field, $"holds {length} characters; at most {maxChars} are accepted"))
         : null;
 
-    private static string Text(long id) => id.ToString(System.Globalization.CultureInfo.InvariantCulture);
+    internal static string Text(long id) => id.ToString(System.Globalization.CultureInfo.InvariantCulture);
 
-    private static IResult UnknownIncident(long id) =>
+    internal static IResult UnknownIncident(long id) =>
         Results.NotFound(ApiError.Single("unknown incident", "incident", Text(id), "id", "does not exist"));
 
-    private static IResult GridNotLoaded(long id, IncidentState state) =>
+    internal static IResult GridNotLoaded(long id, IncidentState state) =>
         Results.Conflict(ApiError.Single("grid not loaded", "incident", id.ToString(System.Globalization.CultureInfo.InvariantCulture), "grid", $"\"{state.GridName}\" is not loaded"));
 
     /// <summary>
     /// Runs <paramref name="action"/> on the incident when the account may see its grid. An incident of a grid
     /// outside the account's grids is answered exactly like one that does not exist, so ids reveal nothing.
     /// </summary>
-    private static IResult WithIncident(IncidentBoard board, ClaimsPrincipal user, long id, Func<IncidentState, IResult> action)
+    internal static IResult WithIncident(IncidentBoard board, ClaimsPrincipal user, long id, Func<IncidentState, IResult> action)
     {
         try
         {
@@ -296,7 +298,7 @@ public static class IncidentApi
     }
 
     /// <summary><see cref="WithIncident"/> for an action that awaits.</summary>
-    private static async Task<IResult> WithIncidentAsync(IncidentBoard board, ClaimsPrincipal user, long id, Func<IncidentState, Task<IResult>> action)
+    internal static async Task<IResult> WithIncidentAsync(IncidentBoard board, ClaimsPrincipal user, long id, Func<IncidentState, Task<IResult>> action)
     {
         IncidentState? found = null;
         var checkedResult = WithIncident(board, user, id, state =>
@@ -313,7 +315,7 @@ public static class IncidentApi
     /// The body as text, or null when it is over the limit (whatever the server in front enforces). A body that is
     /// not valid UTF-8 is refused (<see cref="BodyNotUtf8Exception"/>, a 400 problem), never silently repaired.
     /// </summary>
-    private static async Task<string?> ReadBody(HttpRequest request)
+    internal static async Task<string?> ReadBody(HttpRequest request)
     {
         if (request.ContentLength > MaximumBodyBytes)
         {
@@ -339,16 +341,16 @@ public static class IncidentApi
         return read > MaximumBodyBytes ? null : new string(buffer, 0, read);
     }
 
-    private static IResult TooLarge() => Results.Json(
+    internal static IResult TooLarge() => Results.Json(
         ApiError.Single("body too large", "request", "body", string.Empty, $"must be at most {MaximumBodyBytes} bytes"),
         statusCode: StatusCodes.Status413PayloadTooLarge);
 
     public sealed record GridEntry(string Name, string File, int Substations, int Segments, int Sections, int Indicators);
 
-    public sealed record IncidentEntry(long Id, string Grid, DateTimeOffset ReportedAt, string Status, string FaultType, string? ConfirmedSegment, int Events)
+    public sealed record IncidentEntry(long Id, string Grid, DateTimeOffset ReportedAt, string Status, string FaultType, string? ConfirmedSegment, int Events, string Stage)
     {
         public static IncidentEntry Of(IncidentSummary s) =>
-            new(s.Id.Value, s.GridName, s.ReportedAt, s.Status.ToString(), IncidentFormat.Name(s.FaultType), s.ConfirmedSegment?.Value, s.EventCount);
+            new(s.Id.Value, s.GridName, s.ReportedAt, s.Status.ToString(), IncidentFormat.Name(s.FaultType), s.ConfirmedSegment?.Value, s.EventCount, IncidentStages.Name(s.Stage));
     }
 
     /// <summary>The incident's switch positions now, and those that differ from normal.</summary>

@@ -2,6 +2,7 @@ using FeederLocate.Application.Analysis;
 using FeederLocate.Application.Evidence;
 using FeederLocate.Application.History;
 using FeederLocate.Application.Incidents;
+using FeederLocate.Application.Switching;
 using FeederLocate.Storage;
 using FeederLocate.Web.Security;
 
@@ -28,6 +29,9 @@ public static class ServiceRegistration
         services.AddSingleton<IncidentHistory>();
         services.AddSingleton<EvidenceIntake>();
         services.AddSingleton(_ => new LearningCurves(Path.GetFullPath(options.GridFolder, root)));
+        services.AddSingleton<CheckedSwitching>();
+        services.AddSingleton<FeederLocate.Application.Lifecycle.IncidentLifecycle>();
+        services.AddSingleton<FeederLocate.Application.Times.IncidentTimesEntry>();
         services.AddSingleton(TimeProvider.System);
         return services;
     }

@@ -33,6 +33,22 @@ public sealed class EvidenceIntakeTests : IDisposable
         Assert.Equal(1880, state.Incident.Measurements.Single(m => m.Device == new SwitchId("CB-A1")).PhaseCurrentA);
     }
 
+    [Fact]
+    public void An_item_that_does_not_mention_suspect_keeps_the_operators_distrust_mark_and_an_explicit_false_clears_it()
+    {
+        var id = OpenTrip();
+        var intake = new EvidenceIntake(_test.Log);
+        _test.Log.Append(id, new IndicationEntered(new Indication(new IndicatorId("FPI-A1-04"), IndicatorState.None, IndicationSource.Remote, Distrusted: true)), Samples.Operator);
+
+        intake.AddIndications(id, _grid, """[{"indicator":"FPI-A1-04","state":"fault","source":"remote"}]""", Samples.Operator);
+        var kept = _test.Log.State(id).Incident.IndicationOf(new IndicatorId("FPI-A1-04"))!;
+        intake.AddIndications(id, _grid, """{"indicator":"FPI-A1-04","state":"fault","source":"remote","suspect":false}""", Samples.Operator);
+        var cleared = _test.Log.State(id).Incident.IndicationOf(new IndicatorId("FPI-A1-04"))!;
+
+        Assert.Equal((IndicatorState.Fault, true), (kept.State, kept.Distrusted));
+        Assert.Equal((IndicatorState.Fault, false), (cleared.State, cleared.Distrusted));
+    }
+
     [Theory]
     [InlineData("""[ { "indicator": "FPI-A1-01", "state": "forward", "source": "remote" }, { "indicator": "FPI-A1-04", "state": "sideways", "source": "remote" } ]""")]
     [InlineData("""[ { "indicator": "FPI-A1-99", "state": "fault", "source": "remote" }, 7, { "state": "fault" } ]""")]

@@ -25,6 +25,13 @@ public class EventRoundTripTests
         new OutcomeLogged(new SegmentId("S3")),
         new IncidentClosed("restored"),
         new IncidentClosed(),
+        new PlanStepCorrected(4, "ticked the wrong line"),
+        new SwitchingDeviationRecorded(new SwitchId("LB2"), SwitchPosition.Open, "crew found it jammed", "step 2 (open FU1) is not done yet"),
+        new SwitchingDeviationRecorded(new SwitchId("NO1"), SwitchPosition.Closed, "feed the hospital first"),
+        new PlanStepCompleted(2, "close", "NO1", DoneAt: new DateTimeOffset(2026, 3, 14, 5, 52, 10, TimeSpan.Zero)),
+        new IncidentTimesEntered(new DateTimeOffset(2026, 3, 14, 5, 31, 40, TimeSpan.Zero), new DateTimeOffset(2026, 3, 14, 5, 31, 40, 120, TimeSpan.Zero)),
+        new IncidentTimesEntered(null, null, new DateTimeOffset(2026, 3, 14, 5, 31, 45, TimeSpan.Zero)),
+        new IncidentStageChanged(Storage.Incidents.IncidentStage.Isolated),
     };
 
     [Theory]

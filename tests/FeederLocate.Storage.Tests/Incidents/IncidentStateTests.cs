@@ -105,7 +105,10 @@ public class IncidentStateTests
 
         Assert.Equal(
         [
-            new IncidentSummary(first, TestGrids.BrackenfoldName, TestIncidents.ReportedAt, IncidentStatus.Closed, FaultType.LLG, new SegmentId("S2"), "digger", null, 3),
+            new IncidentSummary(first, TestGrids.BrackenfoldName, TestIncidents.ReportedAt, IncidentStatus.Closed, FaultType.LLG, new SegmentId("S2"), "digger", null, 3)
+            {
+                Stage = IncidentStage.Closed,
+            },
             new IncidentSummary(second, "Ferncombe 11 kV", TestIncidents.ReportedAt.AddDays(3), IncidentStatus.Open, null, null, null, null, 1),
         ], list);
     }

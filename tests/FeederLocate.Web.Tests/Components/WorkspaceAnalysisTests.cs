@@ -27,7 +27,11 @@ public sealed class WorkspaceAnalysisTests : BunitContext
         _board = new IncidentBoard(IncidentStore.Open(_database.Path));
         Services.AddSingleton(_grids);
         Services.AddSingleton(_board);
-        Services.AddSingleton(new IncidentAnalysis(new GridLearning(_board), _ranker));
+        var analysis = new IncidentAnalysis(new GridLearning(_board), _ranker);
+        Services.AddSingleton(analysis);
+        Services.AddSingleton(new FeederLocate.Application.Switching.CheckedSwitching(_board, analysis));
+        Services.AddSingleton(new FeederLocate.Application.Lifecycle.IncidentLifecycle(_board));
+        Services.AddSingleton(new FeederLocate.Application.Times.IncidentTimesEntry(_board, TimeProvider.System));
         Services.AddSingleton(TimeProvider.System);
         var access = AddAuthorization();
         access.SetAuthorized("ana");
@@ -50,6 +54,29 @@ public sealed class WorkspaceAnalysisTests : BunitContext
         busy.MarkupMatches("""<span class="busy" role="status" data-testid="working">computing the suspects and the switching order…</span>""");
         cut.WaitForAssertion(() => Assert.Empty(cut.FindAll("[data-testid=working]")), TimeSpan.FromMinutes(1));
         Assert.NotEmpty(cut.FindAll("li[data-section]"));
+    }
+
+    [Fact]
+    public void A_switch_click_records_nothing_until_the_operator_confirms_the_device_and_position()
+    {
+        var id = _board.Open(_grids.Default!, new SwitchId("CB-A1"), FaultType.LG, new DateTimeOffset(2026, 11, 30, 6, 12, 0, TimeSpan.Zero), new Actor("ana", "operator"));
+        var cut = Render<IncidentWorkspace>(p => p.Add(c => c.Id, id.Value));
+        // The page is ready once the analysis is shown (it renders again then).
+        cut.WaitForAssertion(() => Assert.NotEmpty(cut.FindAll("li[data-section]")), TimeSpan.FromMinutes(1));
+
+        cut.Find("g[data-switch='LB-A1-3']").Click();
+
+        cut.WaitForAssertion(() => Assert.Contains("Record that LB-A1-3 is found open?", cut.Find("[data-testid=switch-confirmation]").TextContent, StringComparison.Ordinal));
+        Assert.Single(_board.Events(id));
+        cut.Find("[data-testid=switch-cancel]").Click();
+        Assert.Empty(cut.FindAll("[data-testid=switch-confirmation]"));
+        Assert.Single(_board.Events(id));
+
+        cut.Find("g[data-switch='LB-A1-3']").Click();
+        cut.WaitForElement("[data-testid=switch-confirm]").Click();
+
+        var changed = Assert.IsType<SwitchStateChanged>(_board.Events(id)[^1].Event);
+        Assert.Equal(new SwitchStateChanged(new SwitchId("LB-A1-3"), SwitchPosition.Open), changed);
     }
 
     protected override void Dispose(bool disposing)

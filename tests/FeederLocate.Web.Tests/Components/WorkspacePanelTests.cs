@@ -223,7 +223,7 @@ public class RecordAndPlanPanelTests : ComponentTest
 
         var cut = Render<PlanSteps>(p => p.Add(c => c.Plan, plan));
 
-        Assert.Contains("Isolate SEC-S105, SEC-S206", cut.Find("[data-testid='plan-steps']").TextContent, StringComparison.Ordinal);
+        Assert.Contains("Isolate SEC-S105; SEC-S206", cut.Find("[data-testid='plan-steps']").TextContent, StringComparison.Ordinal);
     }
 
     private static class Incidents

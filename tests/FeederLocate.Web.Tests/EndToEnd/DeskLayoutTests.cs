@@ -119,7 +119,8 @@ public sealed class DeskLayoutTests(WebAppFixture app) : IClassFixture<WebAppFix
         var page = await app.SignedInPage("ana", "ana-password-1", "/history", Size(1366, 768));
         await WaitForCircuit(page);
 
-        await Assertions.Expect(page.Locator("canvas[data-drawn=true]")).ToHaveCountAsync(2);
+        // Indicator performance, faults per section and the grid's measured learning curve.
+        await Assertions.Expect(page.Locator("canvas[data-drawn=true]")).ToHaveCountAsync(3);
         await page.CloseAsync();
     }
 

@@ -46,14 +46,7 @@ internal static class PlanReplay
                 continue;
             }
 
-            var open = step.Action == StepAction.Open;
-            var next = states.With(id, open ? SwitchPosition.Open : SwitchPosition.Closed);
-            var nextNetwork = ctx.TryEnergise(next);
-            var problem = open
-                ? DeviceRules.Open(device, states.IsClosed(index), fromLive, toLive, ctx.CurrentThrough(network, index))
-                : nextNetwork is null
-                    ? $"closing {id} would close a loop or parallel two substations"
-                    : DeviceRules.Close(device, states.IsClosed(index), fromLive, toLive, ctx.ZoneLive(nextNetwork, ctx.SuspectZone) || ctx.AlsoIsolated.Any(z => ctx.ZoneLive(nextNetwork, z)));
+            var problem = StepCheck.Problem(ctx, states, network, index, step.Action == StepAction.Open, out var next, out var nextNetwork);
             if (problem is not null)
             {
                 violations.Add($"step {step.Order}: {problem}");

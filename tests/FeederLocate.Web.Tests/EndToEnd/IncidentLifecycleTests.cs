@@ -1,0 +1,79 @@
+using System.Text.RegularExpressions;
+using FeederLocate.Web.Tests.Support;
+using Microsoft.Playwright;
+
+namespace FeederLocate.Web.Tests.EndToEnd;
+
+/// <summary>Checked switching and the incident's lifecycle in a real headless Chromium against the app on a loopback port.</summary>
+public sealed class IncidentLifecycleTests(WebAppFixture app) : IClassFixture<WebAppFixture>
+{
+    private const string SolidGrid = "Marrowdell 20 kV (solidly grounded)";
+
+    [Fact]
+    public async Task An_operator_is_refused_a_tick_out_of_order_corrects_a_tick_confirms_a_switch_and_takes_the_incident_to_closed()
+    {
+        var page = await app.SignedInPage("ana", "ana-password-1", "/", new BrowserNewPageOptions { ViewportSize = new ViewportSize { Width = 1600, Height = 1100 } });
+        await WaitForCircuit(page);
+        await page.SelectOptionAsync("[data-testid=new-grid]", SolidGrid);
+        await page.SelectOptionAsync("[data-testid=new-tripped]", "CB-A1");
+        await page.SelectOptionAsync("[data-testid=new-type]", "LG");
+        await page.ClickAsync("[data-testid=open-incident]");
+        await app.WaitForPath(page, "/incidents/");
+        await WaitForCircuit(page);
+
+        // A reading shows who entered it.
+        await page.SelectOptionAsync("[data-testid='state-FPI-A1-04']", "fault");
+        await Assertions.Expect(page.Locator("[data-testid='entered-FPI-A1-04']")).ToContainTextAsync("ana (operator) at");
+
+        // Step 3 before steps 1 and 2: refused with the reason, and its box stays unticked.
+        await Assertions.Expect(page.Locator("[data-testid=plan-steps] li[data-step='3']")).ToBeVisibleAsync();
+        await page.ClickAsync("[data-testid=tick-3]");
+        await Assertions.Expect(page.Locator("[data-testid=tick-refusal]")).ToContainTextAsync("step 1 (");
+        await Assertions.Expect(page.Locator("[data-testid=tick-refusal]")).ToContainTextAsync("is not done yet: the steps are carried out in order");
+        await Assertions.Expect(page.Locator("[data-testid=tick-3]")).Not.ToBeCheckedAsync();
+        await Assertions.Expect(page.Locator("[data-testid=done-3]")).ToHaveCountAsync(0);
+
+        // Step 1 ticked, then withdrawn with a reason: the tick is gone from the list (it stays in the log).
+        await page.ClickAsync("[data-testid=tick-1]");
+        await Assertions.Expect(page.Locator("[data-testid=done-1]")).ToContainTextAsync("done by ana (operator)");
+        await page.ClickAsync("[data-testid=correct-1]");
+        await page.FillAsync("[data-testid=correct-reason-1]", "crew not yet on site");
+        await page.ClickAsync("[data-testid=correct-confirm-1]");
+        await Assertions.Expect(page.Locator("[data-testid=done-1]")).ToHaveCountAsync(0);
+
+        // A click on a switch only asks; the position changes once confirmed.
+        var sectionaliser = page.Locator("g[data-switch='LB-A1-3']");
+        await sectionaliser.ClickAsync();
+        await Assertions.Expect(page.Locator("[data-testid=switch-confirmation]")).ToContainTextAsync("Record that LB-A1-3 is found open?");
+        await Assertions.Expect(sectionaliser).ToHaveClassAsync(new Regex(@"\bclosed\b"));
+        await page.ClickAsync("[data-testid=switch-confirm]");
+        await Assertions.Expect(sectionaliser).ToHaveClassAsync(new Regex(@"\bopen\b"));
+        await sectionaliser.ClickAsync();
+        await page.ClickAsync("[data-testid=switch-confirm]");
+        await Assertions.Expect(sectionaliser).ToHaveClassAsync(new Regex(@"\bclosed\b"));
+
+        // From open to closed: located, the outcome, repaired, the return to normal, closing.
+        await page.ClickAsync("[data-testid=stage-located]");
+        await Assertions.Expect(page.Locator("[data-testid=stage]")).ToHaveTextAsync("located");
+        await page.SelectOptionAsync("[data-testid=outcome-segment]", "S109");
+        await page.ClickAsync("[data-testid=log-outcome]");
+        await Assertions.Expect(page.Locator("[data-testid=logged-outcome]")).ToContainTextAsync("S109");
+        await page.ClickAsync("[data-testid=stage-repaired]");
+        await Assertions.Expect(page.Locator("[data-testid=off-normal]")).ToContainTextAsync("CB-A1 is open, normally closed");
+        await page.ClickAsync("[data-testid='normal-CB-A1']");
+        await Assertions.Expect(page.Locator("[data-testid=all-normal]")).ToBeVisibleAsync();
+        await page.ClickAsync("[data-testid=close-incident]");
+        await Assertions.Expect(page.Locator("[data-testid=stage]")).ToHaveTextAsync("closed");
+        await Assertions.Expect(page.Locator("[data-testid=closed-read-only]")).ToBeVisibleAsync();
+        await Assertions.Expect(page.Locator("[data-testid=stage-history] li")).ToHaveCountAsync(4);
+        await Assertions.Expect(page.Locator("[data-testid=indicator-entry]")).ToHaveCountAsync(0);
+
+        await page.GotoAsync(app.BaseAddress + "/");
+        await WaitForCircuit(page);
+        await Assertions.Expect(page.Locator("[data-testid=incident-list]")).ToContainTextAsync("closed");
+        await page.CloseAsync();
+    }
+
+    private static Task WaitForCircuit(IPage page) =>
+        page.Locator("[data-testid=interactive]").WaitForAsync(new LocatorWaitForOptions { Timeout = 30_000 });
+}
