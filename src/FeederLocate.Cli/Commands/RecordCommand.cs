@@ -55,9 +55,4 @@ internal static class RecordCommand
 
         return CliApp.Success;
     }
-
-    /// <summary>Who the log names: the account given with --by, proven by its token (<see cref="ProvenAccount"/>), else the machine's user.</summary>
-    private static Actor Logger(string dbPath, string? by) => by is null
-        ? new Actor($"cli:{Environment.UserName}", "system")
-        : ProvenAccount.Of(dbPath, by, AccountRole.Operator, "logging outcomes");
 }

@@ -3,7 +3,7 @@ using FeederLocate.Storage.Events;
 
 namespace FeederLocate.Cli.Input;
 
-/// <summary>Who a command's change names in the log: the account given with --by, checked against the database's accounts.</summary>
+/// <summary>Who a command's change names in the log: the account given with --by, proven by one of its API tokens (<see cref="ProvenAccount"/>).</summary>
 internal static class CliActor
 {
     /// <summary>
@@ -19,19 +19,7 @@ internal static class CliActor
                 : new Actor($"cli:{Environment.UserName}", "system");
         }
 
-        if (!File.Exists(dbPath))
-        {
-            throw new BadInputException($"error: --by \"{by}\" must name an account of {dbPath}, which does not exist yet");
-        }
-
-        using var accounts = AccountStore.Open(dbPath);
-        return accounts.Find(by) switch
-        {
-            null => throw new BadInputException($"error: --by \"{by}\" is not an account of {dbPath}"),
-            { IsDisabled: true } => throw new BadInputException($"error: --by \"{by}\" is a disabled account"),
-            { Role: AccountRole.Viewer } => throw new BadInputException($"error: --by \"{by}\" is a viewer; {doing} needs an operator or engineer"),
-            { Role: not AccountRole.Engineer } when engineerOnly => throw new BadInputException($"error: --by \"{by}\" is not an engineer; {doing} needs an engineer"),
-            var account => new Actor(account.Name, AccountRoles.Name(account.Role)),
-        };
+        // Anyone at the machine could type a name: the account is proven by one of its API tokens.
+        return ProvenAccount.Of(dbPath, by, engineerOnly ? AccountRole.Engineer : AccountRole.Operator, doing);
     }
 }

@@ -1,5 +1,6 @@
 namespace FeederLocate.Cli.Tests.Commands;
 
+[Collection(TokenEnvironment.Name)]
 public sealed class HistoryCommandTests : IDisposable
 {
     private readonly TempDatabase _db = new();

@@ -5,6 +5,7 @@ using FeederLocate.Storage.Events;
 
 namespace FeederLocate.Cli.Tests.Commands;
 
+[Collection(TokenEnvironment.Name)]
 public sealed class LifecycleCommandTests : IDisposable
 {
     private readonly TempDatabase _database = new();
@@ -26,9 +27,11 @@ public sealed class LifecycleCommandTests : IDisposable
     public void An_incident_is_worked_from_open_to_closed_and_reopened_by_an_engineer_with_every_refusal_explained()
     {
         var id = OpenTrip();
+        string eliToken;
         using (var accounts = Storage.Accounts.AccountStore.Open(Db))
         {
             accounts.Create("eli", "Eli Grade", Storage.Accounts.AccountRole.Engineer, "unused-hash", false, null, "admin");
+            eliToken = accounts.IssueToken("eli", "desk", "admin").Secret;
         }
 
         var times = Incident("times", id, "--fault-at", "2026-11-30T06:11:40Z", "--tripped-at", "2026-11-30T06:11:40.2Z");
@@ -45,7 +48,17 @@ public sealed class LifecycleCommandTests : IDisposable
         var normal = Incident("normal", id, "--switch", "CB-A1");
         var closed = Incident("close", id, "--note", "back to normal");
         var reopenedByNobody = Incident("reopen", id, "--reason", "fault again");
-        var reopened = Incident("reopen", id, "--reason", "fault again", "--by", "eli");
+        Environment.SetEnvironmentVariable("FEEDERLOCATE_TOKEN", eliToken);
+        CliRun reopened;
+        try
+        {
+            reopened = Incident("reopen", id, "--reason", "fault again", "--by", "eli");
+        }
+        finally
+        {
+            Environment.SetEnvironmentVariable("FEEDERLOCATE_TOKEN", null);
+        }
+
         var history = CliRun.Of("history", "--db", Db, "--json").Json().EnumerateArray().Single();
 
         Assert.Equal((0, 2, 2, 0, 2), (times.ExitCode, future.ExitCode, badStage.ExitCode, located.ExitCode, closeEarly.ExitCode));

@@ -34,14 +34,14 @@ public sealed class SwitchingApiTests(ApiFixture app) : IClassFixture<ApiFixture
             Assert.Equal(HttpStatusCode.Accepted, (await app.Client.PostAsync($"/api/incidents/{id}/steps", Json($$"""{ "order": {{order}} }"""))).StatusCode);
         }
 
-        // Step 5 closes the tie NO-A1-B1; step 4 (open LB-B1-3) must come first.
+        // Step 4 (open RC-B1-1) must come before step 5.
         var early = await app.Client.PostAsync($"/api/incidents/{id}/steps", Json("""{ "order": 5 }"""));
         var noOrder = await app.Client.PostAsync($"/api/incidents/{id}/steps", Json("""{ }"""));
         var noReason = await app.Client.PostAsync($"/api/incidents/{id}/corrections", Json("""{ "order": 3 }"""));
         var corrected = await app.Client.PostAsync($"/api/incidents/{id}/corrections", Json("""{ "order": 3, "reason": "ticked before the crew reported" }"""));
 
         Assert.Equal(HttpStatusCode.UnprocessableEntity, early.StatusCode);
-        Assert.Equal("step 4 (open LB-B1-3) is not done yet: the steps are carried out in order", await Message(early));
+        Assert.Equal("step 4 (open RC-B1-1) is not done yet: the steps are carried out in order", await Message(early));
         Assert.Equal(HttpStatusCode.BadRequest, noOrder.StatusCode);
         Assert.Equal(HttpStatusCode.UnprocessableEntity, noReason.StatusCode);
         Assert.Equal("give the reason for the correction", await Message(noReason));

@@ -69,7 +69,7 @@ public sealed class WorkspaceAnalysisTests : BunitContext
         cut.WaitForAssertion(() => Assert.Contains("Record that LB-A1-3 is found open?", cut.Find("[data-testid=switch-confirmation]").TextContent, StringComparison.Ordinal));
         Assert.Single(_board.Events(id));
         cut.Find("[data-testid=switch-cancel]").Click();
-        Assert.Empty(cut.FindAll("[data-testid=switch-confirmation]"));
+        cut.WaitForAssertion(() => Assert.Empty(cut.FindAll("[data-testid=switch-confirmation]")));
         Assert.Single(_board.Events(id));
 
         cut.Find("g[data-switch='LB-A1-3']").Click();

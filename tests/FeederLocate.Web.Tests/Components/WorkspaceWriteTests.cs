@@ -34,7 +34,11 @@ public sealed class WorkspaceWriteTests : BunitContext
         _board = new IncidentBoard(_store, name => _grids.Find(name)?.Grid);
         Services.AddSingleton(_grids);
         Services.AddSingleton(_board);
-        Services.AddSingleton(new IncidentAnalysis(new GridLearning(_board), new CoreFaultRanker()));
+        var analysis = new IncidentAnalysis(new GridLearning(_board), new CoreFaultRanker());
+        Services.AddSingleton(analysis);
+        Services.AddSingleton(new FeederLocate.Application.Switching.CheckedSwitching(_board, analysis));
+        Services.AddSingleton(new FeederLocate.Application.Lifecycle.IncidentLifecycle(_board));
+        Services.AddSingleton(new FeederLocate.Application.Times.IncidentTimesEntry(_board, TimeProvider.System));
         Services.AddSingleton(TimeProvider.System);
         _access = AddAuthorization();
         _access.SetAuthorized("ana");
@@ -56,6 +60,7 @@ public sealed class WorkspaceWriteTests : BunitContext
 
         // NO-A1-A2 ties feeders A1 and A2 of the demo grid; both are fed, so closing it makes a loop.
         cut.InvokeAsync(() => cut.Find("g[data-switch='NO-A1-A2']").Click());
+        cut.WaitForElement("[data-testid=switch-confirm]").Click();
 
         cut.WaitForAssertion(() => Assert.Contains("radial", cut.Find("[data-testid=not-saved]").TextContent, StringComparison.Ordinal), TimeSpan.FromMinutes(1));
         Assert.Contains("open", cut.Find("g[data-switch='NO-A1-A2']").ClassName, StringComparison.Ordinal);
