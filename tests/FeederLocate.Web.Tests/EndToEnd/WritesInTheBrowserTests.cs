@@ -27,6 +27,8 @@ public sealed class WritesInTheBrowserTests(WebAppFixture app) : IClassFixture<W
 
         // NO-A1-A2 ties two fed feeders of the demo grid: closing it makes a loop, which is refused.
         await page.Locator("g[data-switch='NO-A1-A2']").DispatchEventAsync("click");
+        // A switch click only asks; the position is recorded once confirmed.
+        await page.Locator("[data-testid=switch-confirm]").ClickAsync();
         await Assertions.Expect(page.Locator("[data-testid=not-saved]")).ToContainTextAsync("radial");
         await Assertions.Expect(page.Locator("g[data-switch='NO-A1-A2']")).ToHaveClassAsync(new System.Text.RegularExpressions.Regex(@"\bopen\b"));
 
