@@ -35,24 +35,12 @@ public sealed class HistoryCommandTests : IDisposable
         }
 
         string[] Record(string by) => ["record", SampleGrids.Path("solid"), Incident("solid-lg-trip-a1.incident.json"), "--segment", "S109", "--db", Db, "--by", by, "--json"];
-        CliRun WithToken(string? token, string[] args)
-        {
-            Environment.SetEnvironmentVariable("FEEDERLOCATE_TOKEN", token);
-            try
-            {
-                return CliRun.Of(args);
-            }
-            finally
-            {
-                Environment.SetEnvironmentVariable("FEEDERLOCATE_TOKEN", null);
-            }
-        }
 
-        var noToken = WithToken(null, Record("ana"));
-        var othersToken = WithToken(veraToken, Record("ana"));
-        var byOperator = WithToken(anaToken, Record("ana"));
-        var byViewer = WithToken(veraToken, Record("vera"));
-        var byNobody = WithToken(anaToken, Record("nobody"));
+        var noToken = TokenEnvironment.Run(null, Record("ana"));
+        var othersToken = TokenEnvironment.Run(veraToken, Record("ana"));
+        var byOperator = TokenEnvironment.Run(anaToken, Record("ana"));
+        var byViewer = TokenEnvironment.Run(veraToken, Record("vera"));
+        var byNobody = TokenEnvironment.Run(anaToken, Record("nobody"));
         var byDefault = CliRun.Of("record", SampleGrids.Path("solid"), Incident("solid-lg-trip-a1.incident.json"), "--segment", "S109", "--db", Db, "--json");
 
         Assert.Equal((2, 2, 0, 2, 2, 0), (noToken.ExitCode, othersToken.ExitCode, byOperator.ExitCode, byViewer.ExitCode, byNobody.ExitCode, byDefault.ExitCode));
@@ -81,25 +69,13 @@ public sealed class HistoryCommandTests : IDisposable
 
         Assert.Equal(0, CliRun.Of("record", SampleGrids.Path("solid"), Incident("solid-lg-trip-a1.incident.json"), "--segment", "S109", "--db", Db).ExitCode);
         string[] Retract(string by) => ["retract", "--db", Db, "--incident", "1", "--reason", "crew found the fault on S108", "--by", by, "--json"];
-        CliRun WithToken(string? token, string[] args)
-        {
-            Environment.SetEnvironmentVariable("FEEDERLOCATE_TOKEN", token);
-            try
-            {
-                return CliRun.Of(args);
-            }
-            finally
-            {
-                Environment.SetEnvironmentVariable("FEEDERLOCATE_TOKEN", null);
-            }
-        }
 
-        var noToken = WithToken(null, Retract("eli"));
-        var byOperator = WithToken(operatorToken, Retract("ana"));
-        var byEngineer = WithToken(engineerToken, Retract("eli"));
-        var again = WithToken(engineerToken, Retract("eli"));
+        var noToken = TokenEnvironment.Run(null, Retract("eli"));
+        var byOperator = TokenEnvironment.Run(operatorToken, Retract("ana"));
+        var byEngineer = TokenEnvironment.Run(engineerToken, Retract("eli"));
+        var again = TokenEnvironment.Run(engineerToken, Retract("eli"));
         var stats = CliRun.Of("stats", SampleGrids.Path("solid"), "--db", Db, "--json");
-        var missing = WithToken(engineerToken, ["retract", "--db", Db + ".typo", "--incident", "1", "--reason", "x", "--by", "eli"]);
+        var missing = TokenEnvironment.Run(engineerToken, ["retract", "--db", Db + ".typo", "--incident", "1", "--reason", "x", "--by", "eli"]);
 
         Assert.Equal((2, 2, 0, 2, 2), (noToken.ExitCode, byOperator.ExitCode, byEngineer.ExitCode, again.ExitCode, missing.ExitCode));
         Assert.Contains("--by \"ana\" is an operator; retracting an outcome needs an engineer", byOperator.Error, StringComparison.Ordinal);

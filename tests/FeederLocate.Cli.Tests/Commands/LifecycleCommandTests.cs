@@ -48,16 +48,7 @@ public sealed class LifecycleCommandTests : IDisposable
         var normal = Incident("normal", id, "--switch", "CB-A1");
         var closed = Incident("close", id, "--note", "back to normal");
         var reopenedByNobody = Incident("reopen", id, "--reason", "fault again");
-        Environment.SetEnvironmentVariable("FEEDERLOCATE_TOKEN", eliToken);
-        CliRun reopened;
-        try
-        {
-            reopened = Incident("reopen", id, "--reason", "fault again", "--by", "eli");
-        }
-        finally
-        {
-            Environment.SetEnvironmentVariable("FEEDERLOCATE_TOKEN", null);
-        }
+        var reopened = TokenEnvironment.Run(eliToken, () => Incident("reopen", id, "--reason", "fault again", "--by", "eli"));
 
         var history = CliRun.Of("history", "--db", Db, "--json").Json().EnumerateArray().Single();
 

@@ -60,10 +60,10 @@ public sealed class SwitchingCommandTests : IDisposable
         }
 
         var noAccount = Switching("deviate", id, "--switch", "NO-A1-B1", "--position", "closed", "--reason", "feed the tail");
-        var byOperator = WithToken(anaToken, () => Switching("deviate", id, "--switch", "NO-A1-B1", "--position", "closed", "--reason", "feed the tail", "--by", "ana"));
+        var byOperator = TokenEnvironment.Run(anaToken, () => Switching("deviate", id, "--switch", "NO-A1-B1", "--position", "closed", "--reason", "feed the tail", "--by", "ana"));
         var withoutToken = Switching("deviate", id, "--switch", "NO-A1-B1", "--position", "closed", "--reason", "feed the tail", "--by", "eli");
-        var byEngineer = WithToken(eliToken, () => Switching("deviate", id, "--switch", "NO-A1-B1", "--position", "closed", "--reason", "feed the tail", "--by", "eli"));
-        var found = WithToken(anaToken, () => Switching("found", id, "--switch", "LB-B1-3", "--position", "open", "--by", "ana"));
+        var byEngineer = TokenEnvironment.Run(eliToken, () => Switching("deviate", id, "--switch", "NO-A1-B1", "--position", "closed", "--reason", "feed the tail", "--by", "eli"));
+        var found = TokenEnvironment.Run(anaToken, () => Switching("found", id, "--switch", "LB-B1-3", "--position", "open", "--by", "ana"));
         var unknown = Switching("found", id, "--switch", "LB-ZZ", "--position", "open");
         var badPosition = Switching("found", id, "--switch", "LB-B1-3", "--position", "ajar");
         var switches = CliRun.Of("switches", SampleGrids.Path("resonant"), "--db", Db, "--incident", id, "--json").Json().GetProperty("positions");
@@ -77,19 +77,6 @@ public sealed class SwitchingCommandTests : IDisposable
         Assert.Contains("--position must be open or closed, got \"ajar\"", badPosition.Error, StringComparison.Ordinal);
         Assert.Equal("closed", switches.GetProperty("NO-A1-B1").GetString());
         Assert.Equal("open", switches.GetProperty("LB-B1-3").GetString());
-    }
-
-    private static CliRun WithToken(string token, Func<CliRun> run)
-    {
-        Environment.SetEnvironmentVariable("FEEDERLOCATE_TOKEN", token);
-        try
-        {
-            return run();
-        }
-        finally
-        {
-            Environment.SetEnvironmentVariable("FEEDERLOCATE_TOKEN", null);
-        }
     }
 
     public void Dispose() => _database.Dispose();

@@ -8,4 +8,21 @@ namespace FeederLocate.Cli.Tests.Commands;
 public sealed class TokenEnvironment
 {
     public const string Name = "token environment";
+
+    /// <summary>Runs the command line with <paramref name="token"/> in FEEDERLOCATE_TOKEN, then clears it.</summary>
+    public static CliRun Run(string? token, string[] args) => Run(token, () => CliRun.Of(args));
+
+    /// <summary>Runs <paramref name="run"/> with <paramref name="token"/> in FEEDERLOCATE_TOKEN, then clears it.</summary>
+    public static CliRun Run(string? token, Func<CliRun> run)
+    {
+        Environment.SetEnvironmentVariable("FEEDERLOCATE_TOKEN", token);
+        try
+        {
+            return run();
+        }
+        finally
+        {
+            Environment.SetEnvironmentVariable("FEEDERLOCATE_TOKEN", null);
+        }
+    }
 }
