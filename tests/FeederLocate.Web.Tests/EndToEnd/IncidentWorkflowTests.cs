@@ -86,6 +86,7 @@ public sealed class IncidentWorkflowTests(WebAppFixture app) : IClassFixture<Web
 
         await Assertions.Expect(page.Locator("[data-testid=sign-in-form]")).ToBeVisibleAsync();
         Assert.Contains("returnUrl=%2Fincidents%2F1", page.Url, StringComparison.Ordinal);
+        await Assertions.Expect(page.Locator("[data-testid=cautions]")).ToContainTextAsync("lock and tag");
         await Assertions.Expect(page.Locator("[data-testid=cautions]")).ToContainTextAsync("prove dead");
         await page.CloseAsync();
     }
