@@ -28,6 +28,11 @@ export function observe(svg, dotnet) {
   };
 
   const show = v => {
+    const was = current();
+    if (Math.abs(v.scale - was.scale) < 1e-9 * was.scale && Math.abs(v.cx - was.cx) < 0.005 && Math.abs(v.cy - was.cy) < 0.005) {
+      return; // at the zoom's limit: nothing moves, nothing to ask for
+    }
+
     const w = v.width / v.scale;
     const h = v.height / v.scale;
     svg.setAttribute('viewBox', `${round(v.cx - (w / 2))} ${round(v.cy - (h / 2))} ${round(w)} ${round(h)}`);
