@@ -11,8 +11,13 @@ public sealed record LoadedGrid(string Key, Grid Grid, NetworkGraph Graph, OneLi
 {
     public string Name => Grid.Name;
 
+    private SegmentNames? _segmentNames;
+
     /// <summary>Operators' names of the sections: feeder and bounding devices.</summary>
     public SectionNames SectionNames { get; } = SectionNames.Build(Graph, FeederMap.Build(Graph));
+
+    /// <summary>Operators' names of the segments: their section, and their place in it.</summary>
+    public SegmentNames SegmentNames => _segmentNames ??= SegmentNames.Build(Graph, FeederMap.Build(Graph), SectionNames);
 
     /// <summary>The section each segment is in.</summary>
     public IReadOnlyDictionary<SegmentId, SectionId> SectionOfSegment { get; } = Drawing.Segments.ToDictionary(s => s.Id, s => s.Section);

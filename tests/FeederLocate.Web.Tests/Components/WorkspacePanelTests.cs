@@ -67,11 +67,16 @@ public class WorkspacePanelTests : ComponentTest
             CrossCountryProbability = 0.9,
         };
 
-        var cut = Render<RankedList>(p => p.Add(c => c.Ranking, ranking));
+        var cut = Render<RankedList>(p => p.Add(c => c.Ranking, ranking).Add(c => c.SegmentNames, _grid.SegmentNames));
 
         var warning = cut.Find("[data-testid='cross-country']");
         Assert.Contains("no single fault explains the evidence", warning.TextContent, StringComparison.Ordinal);
-        cut.Find("li[data-pair='S105+S206']").MarkupMatches("<li data-pair=\"S105+S206\">S105 (SEC-S105) + S206 (SEC-S206): 70 %</li>");
+        var first = _grid.SegmentNames[new SegmentId("S105")];
+        var second = _grid.SegmentNames[new SegmentId("S206")];
+        Assert.StartsWith("A1: ", first, StringComparison.Ordinal);
+        Assert.StartsWith("A2: ", second, StringComparison.Ordinal);
+        cut.Find("li[data-pair='S105+S206']").MarkupMatches(
+            $"<li data-pair=\"S105+S206\" title=\"S105 (SEC-S105) + S206 (SEC-S206)\">{first} + {second}: 70 %</li>");
         Assert.Empty(cut.FindAll("[data-testid='inconsistent']"));
     }
 

@@ -57,7 +57,7 @@ public sealed class IncidentLifecycleTests(WebAppFixture app) : IClassFixture<We
         await Assertions.Expect(page.Locator("[data-testid=stage]")).ToHaveTextAsync("located");
         await page.SelectOptionAsync("[data-testid=outcome-segment]", "S109");
         await page.ClickAsync("[data-testid=log-outcome]");
-        await Assertions.Expect(page.Locator("[data-testid=logged-outcome]")).ToContainTextAsync("S109");
+        await Assertions.Expect(page.Locator("[data-testid=logged-outcome] [title=S109]")).ToContainTextAsync(" → "); // named by its section; the id is the tooltip
         await page.ClickAsync("[data-testid=stage-repaired]");
         await Assertions.Expect(page.Locator("[data-testid=off-normal]")).ToContainTextAsync("CB-A1 is open, normally closed");
         await page.ClickAsync("[data-testid='normal-CB-A1']");
