@@ -32,6 +32,7 @@ public static class CliApp
             SwitchesCommand.Create(console),
             SwitchingCommand.Create(console),
             LifecycleCommand.Create(console),
+            HandoverCommand.Create(console),
             GenerateCommand.Create(console),
             BenchCommand.Create(console),
         };

@@ -101,7 +101,14 @@ public sealed class IncidentStore : IDisposable
     /// Logs an incident with its confirmed fault location and closes it, all in one transaction: the
     /// <c>record</c> command. The outcome's segment must be in <paramref name="grid"/>.
     /// </summary>
-    public IncidentId Append(Grid grid, Incident incident, OutcomeLogged outcome, Actor actor)
+    public IncidentId Append(Grid grid, Incident incident, OutcomeLogged outcome, Actor actor) =>
+        AppendPast(grid, incident, outcome, actor);
+
+    /// <summary>Logs an incident whose patrol found no fault, with that outcome, and closes it, in one transaction.</summary>
+    public IncidentId Append(Grid grid, Incident incident, NoFaultFoundLogged outcome, Actor actor) =>
+        AppendPast(grid, incident, outcome, actor);
+
+    private IncidentId AppendPast(Grid grid, Incident incident, IncidentEvent outcome, Actor actor)
     {
         ArgumentNullException.ThrowIfNull(grid);
         ArgumentNullException.ThrowIfNull(outcome);
@@ -281,14 +288,14 @@ public sealed class IncidentStore : IDisposable
     /// <summary>A retraction needs an outcome in force where it stands: the one logged, or one earlier in the batch.</summary>
     private void CheckRetractions(IncidentId incident, IReadOnlyList<IncidentEvent> events)
     {
-        var inForce = State(incident).Outcome is not null;
+        var inForce = State(incident).HasOutcome;
         foreach (var e in events)
         {
             if (e is OutcomeRetracted)
             {
                 inForce = inForce ? false : throw new OutcomeNotLoggedException(incident);
             }
-            else if (e is OutcomeLogged)
+            else if (e is OutcomeLogged or NoFaultFoundLogged)
             {
                 inForce = true;
             }
@@ -344,6 +351,13 @@ public sealed class IncidentStore : IDisposable
                 ArgumentException.ThrowIfNullOrWhiteSpace(outcome.ConfirmedSegment.Value, nameof(outcome.ConfirmedSegment));
                 CheckLength(incident, "cause", outcome.Cause, EvidenceLimits.MaxCauseChars);
                 CheckLength(incident, "notes", outcome.Notes, EvidenceLimits.MaxNoteChars);
+                break;
+            case NoFaultFoundLogged finding:
+                CheckLength(incident, "notes", finding.Notes, EvidenceLimits.MaxNoteChars);
+                break;
+            case ReturnStepCompleted back:
+                ArgumentOutOfRangeException.ThrowIfLessThan(back.Order, 1, nameof(back.Order));
+                ArgumentException.ThrowIfNullOrWhiteSpace(back.Action, nameof(back.Action));
                 break;
             case OutcomeRetracted retraction:
                 ArgumentException.ThrowIfNullOrWhiteSpace(retraction.Reason, nameof(retraction.Reason));

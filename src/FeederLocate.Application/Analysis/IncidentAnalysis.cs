@@ -64,13 +64,36 @@ public sealed class IncidentAnalysis
             : new PlanAttempt(null, ranking.Problem);
     }
 
-    /// <summary>The return to normal after the repair, from the state the incident's plan leaves.</summary>
+    /// <summary>
+    /// The incident's return to normal: from the switch positions as carried out before the return
+    /// (<see cref="Switching.IncidentSwitching.BeforeReturn"/>), with the clearance of the present plan's earths and
+    /// locks that were ticked as put on. It does not change while its own steps are ticked, so their numbers hold.
+    /// </summary>
     public async Task<ReturnAttempt> ReturnAsync(NetworkGraph graph, IncidentState state)
     {
+        ArgumentNullException.ThrowIfNull(graph);
+        ArgumentNullException.ThrowIfNull(state);
         var plan = await PlanAsync(graph, state).ConfigureAwait(false);
-        return plan.Plan is { } found
-            ? await Task.Run(() => EvidenceAnalysis.Return(graph, state.Incident, found)).ConfigureAwait(false)
-            : new ReturnAttempt(null, plan.Problem);
+        var start = Switching.IncidentSwitching.BeforeReturn(graph.Grid, state);
+        // The clearance takes off only the earths and locks whose steps were ticked as put on.
+        var placed = plan.Plan is { } found
+            ? found with
+            {
+                Steps = [.. found.Steps.Where(s => s.Action is not (Core.Switching.StepAction.Earth or Core.Switching.StepAction.Lock)
+                    || state.CompletedSteps.Any(d => d.Step.Order == s.Order && d.Step.Action == Switching.CheckedSwitching.ActionName(s.Action)))],
+            }
+            : null;
+        return await Task.Run(() =>
+        {
+            try
+            {
+                return new ReturnAttempt(Core.Switching.SwitchingPlanner.PlanReturnFrom(graph, start, placed), null);
+            }
+            catch (Core.Switching.PlanningException e)
+            {
+                return new ReturnAttempt(null, e.Message);
+            }
+        }).ConfigureAwait(false);
     }
 
     /// <summary>The ranking and the plan of a logged incident together.</summary>

@@ -103,6 +103,19 @@ public class IncidentLog : IDisposable
     public IncidentId Open(Grid grid, SwitchId? trippedDevice, FaultType? faultType, DateTimeOffset reportedAt, Actor actor) =>
         Open(grid, new Incident(reportedAt, null, ImmutableDictionary<SwitchId, SwitchPosition>.Empty, trippedDevice, faultType, [], []), actor);
 
+    /// <summary>Logs a past incident whose patrol found no fault, with that outcome, and closes it, in one transaction.</summary>
+    public IncidentId Append(Grid grid, Incident incident, NoFaultFoundLogged outcome, Actor actor)
+    {
+        IncidentId id;
+        lock (_gate)
+        {
+            id = _store.Append(grid, incident, outcome, actor);
+        }
+
+        Changed?.Invoke(id);
+        return id;
+    }
+
     /// <summary>Logs a past incident with where its fault was confirmed, and closes it, in one transaction.</summary>
     public IncidentId Append(Grid grid, Incident incident, OutcomeLogged outcome, Actor actor)
     {

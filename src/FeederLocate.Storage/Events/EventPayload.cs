@@ -30,6 +30,8 @@ internal static class EventPayload
     public const string IncidentTimesEnteredKind = "incidentTimesEntered";
     public const string IncidentStageChangedKind = "incidentStageChanged";
     public const string IncidentReopenedKind = "incidentReopened";
+    public const string NoFaultFoundLoggedKind = "noFaultFoundLogged";
+    public const string ReturnStepCompletedKind = "returnStepCompleted";
 
     // Required constructor parameters and nullable annotations are enforced, so a payload missing a
     // non-optional field fails to read instead of yielding nulls; optional fields have defaults.
@@ -59,6 +61,8 @@ internal static class EventPayload
         IncidentTimesEntered => IncidentTimesEnteredKind,
         IncidentStageChanged => IncidentStageChangedKind,
         IncidentReopened => IncidentReopenedKind,
+        NoFaultFoundLogged => NoFaultFoundLoggedKind,
+        ReturnStepCompleted => ReturnStepCompletedKind,
         _ => throw new ArgumentException($"unknown event type {e.GetType().Name}", nameof(e)),
     };
 
@@ -86,6 +90,8 @@ internal static class EventPayload
             IncidentTimesEntered t => new TimesPayload(t.FaultAt, t.TrippedAt, t.ReclosedAt),
             IncidentStageChanged c => new StagePayload(Incidents.IncidentStages.Name(c.Stage)),
             IncidentReopened r => new ReopenedPayload(r.Reason),
+            NoFaultFoundLogged n => new NoFaultFoundPayload(n.Transient, n.FaultType is { } t ? IncidentFormat.Name(t) : null, n.Notes),
+            ReturnStepCompleted r => new ReturnStepPayload(r.Order, r.Action, r.Device, r.DoneAt),
             _ => throw new ArgumentException($"unknown event type {e.GetType().Name}", nameof(e)),
         };
         return JsonSerializer.Serialize(payload, payload.GetType(), Options);
@@ -113,6 +119,8 @@ internal static class EventPayload
                 IncidentTimesEnteredKind => Read<TimesPayload>(json).ToEvent(),
                 IncidentStageChangedKind => Read<StagePayload>(json).ToEvent(id),
                 IncidentReopenedKind => new IncidentReopened(Read<ReopenedPayload>(json).Reason),
+                NoFaultFoundLoggedKind => Read<NoFaultFoundPayload>(json).ToEvent(id),
+                ReturnStepCompletedKind => Read<ReturnStepPayload>(json).ToEvent(),
                 _ => throw new CorruptEventException(id, $"has unknown kind \"{kind}\""),
             };
         }
@@ -216,6 +224,17 @@ internal static class EventPayload
     }
 
     private sealed record ReopenedPayload(string Reason);
+
+    private sealed record NoFaultFoundPayload(bool Transient, string? FaultType = null, string? Notes = null)
+    {
+        public NoFaultFoundLogged ToEvent(EventId id) =>
+            new(Transient, FaultType is null ? null : Choice(id, "faultType", FaultType, IncidentFormat.FaultTypes), Notes);
+    }
+
+    private sealed record ReturnStepPayload(int Order, string Action, string? Device = null, DateTimeOffset? DoneAt = null)
+    {
+        public ReturnStepCompleted ToEvent() => new(Order, Action, Device, DoneAt);
+    }
 
     private sealed record TimesPayload(DateTimeOffset? FaultAt = null, DateTimeOffset? TrippedAt = null, DateTimeOffset? ReclosedAt = null)
     {

@@ -11,6 +11,8 @@ using FeederLocate.Storage.Errors;
 using FeederLocate.Storage.Events;
 using FeederLocate.Storage.Incidents;
 using System.Security.Claims;
+using FeederLocate.Application.Lifecycle;
+using FeederLocate.Core.Topology;
 using FeederLocate.Web.Security;
 using FeederLocate.Web.Services;
 using Microsoft.AspNetCore.Mvc;
@@ -92,6 +94,13 @@ public static class IncidentApi
                     ? Results.Json(ReturnPlanDocument.From(found), DocumentJson.Options)
                     : Results.UnprocessableEntity(ApiError.Single("cannot plan the return", "incident", Text(id), "plan", back.Problem ?? "no plan"));
             }));
+        api.MapGet("/handover", async (ClaimsPrincipal user, GridCatalog grids, ShiftHandover handover, TimeProvider clock) =>
+        {
+            NetworkGraph? GraphOf(string name) => AccountClaims.MaySee(user, name) ? grids.Find(name)?.Graph : null;
+            bool Visible(string name) => AccountClaims.MaySee(user, name);
+            var entries = await handover.EntriesAsync(GraphOf, Visible);
+            return Results.Json(HandoverDocument.From(clock.GetUtcNow(), entries, handover.IncidentsWithoutGrid(GraphOf, Visible)), DocumentJson.Options);
+        });
         api.MapPost("/incidents/{id:long}/outcome", PostOutcome).RequireAuthorization(AccessPolicies.ApiWrite);
         api.MapGet("/learning", (string? grid, ClaimsPrincipal user, GridCatalog grids, GridLearning learning, LearningCurves curves) =>
             grids.Find(grid ?? string.Empty) is { } loaded && AccountClaims.MaySee(user, loaded.Name)
@@ -185,6 +194,29 @@ public static class IncidentApi
             catch (JsonException e)
             {
                 return Results.BadRequest(ApiError.Single("not an outcome", "outcome", "body", string.Empty, $"is not valid: {e.Message}"));
+            }
+
+            var noFault = body?.NoFaultFound == true || body?.Transient == true;
+            if (noFault && body?.Segment is { Length: > 0 })
+            {
+                return Results.BadRequest(ApiError.Single("segment with no fault found", "outcome", "body", "segment", "must be left out when no fault was found"));
+            }
+
+            if (body is not null && noFault)
+            {
+                FaultType? found = null;
+                if (body.FaultType is { } foundText && !IncidentFormat.FaultTypes.TryGetValue(foundText, out found))
+                {
+                    return Results.BadRequest(ApiError.Single("bad fault type", "outcome", "body", "faultType", $"must be LG, LL, LLG, LLL or unknown, got \"{foundText}\""));
+                }
+
+                if (TooLong(id, "notes", body.Notes, EvidenceLimits.MaxNoteChars) is { } tooLongNote)
+                {
+                    return tooLongNote;
+                }
+
+                board.Append(new IncidentId(id), new NoFaultFoundLogged(body.Transient == true, found, body.Notes), AccountClaims.ActorOf(user));
+                return Results.Accepted($"/api/incidents/{id}", new { accepted = 1 });
             }
 
             if (body?.Segment is not { Length: > 0 } segment || !grid.Grid.HasSegment(new SegmentId(segment)))
@@ -361,7 +393,8 @@ public static class IncidentApi
             states.Deviations().ToDictionary(d => d.Key.Value, d => IncidentFormat.Name(d.Value)));
     }
 
-    public sealed record OutcomeBody(string? Segment, string? FaultType, string? Cause, string? Notes);
+    /// <param name="NoFaultFound">True: the patrol found no fault (no segment then); <paramref name="Transient"/>: it cleared by itself.</param>
+    public sealed record OutcomeBody(string? Segment, string? FaultType, string? Cause, string? Notes, bool? NoFaultFound = null, bool? Transient = null);
 
     public sealed record RetractionBody(string? Reason);
 }

@@ -31,6 +31,8 @@ public static class ServiceRegistration
         services.AddSingleton(_ => new LearningCurves(Path.GetFullPath(options.GridFolder, root)));
         services.AddSingleton<CheckedSwitching>();
         services.AddSingleton<FeederLocate.Application.Lifecycle.IncidentLifecycle>();
+        services.AddSingleton<ReturnSwitching>();
+        services.AddSingleton<FeederLocate.Application.Lifecycle.ShiftHandover>();
         services.AddSingleton<FeederLocate.Application.Times.IncidentTimesEntry>();
         services.AddSingleton(TimeProvider.System);
         return services;

@@ -30,7 +30,9 @@ public sealed class WorkspaceAnalysisTests : BunitContext
         var analysis = new IncidentAnalysis(new GridLearning(_board), _ranker);
         Services.AddSingleton(analysis);
         Services.AddSingleton(new FeederLocate.Application.Switching.CheckedSwitching(_board, analysis));
-        Services.AddSingleton(new FeederLocate.Application.Lifecycle.IncidentLifecycle(_board));
+        Services.AddSingleton(new FeederLocate.Application.Lifecycle.IncidentLifecycle(_board, analysis));
+        Services.AddSingleton(new FeederLocate.Application.Switching.ReturnSwitching(_board, analysis));
+        Services.AddSingleton(new FeederLocate.Application.Evidence.EvidenceIntake(_board, TimeProvider.System));
         Services.AddSingleton(new FeederLocate.Application.Times.IncidentTimesEntry(_board, TimeProvider.System));
         Services.AddSingleton(TimeProvider.System);
         var access = AddAuthorization();
