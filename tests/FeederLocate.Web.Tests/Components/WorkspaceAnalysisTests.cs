@@ -25,16 +25,7 @@ public sealed class WorkspaceAnalysisTests : BunitContext
     public WorkspaceAnalysisTests()
     {
         _board = new IncidentBoard(IncidentStore.Open(_database.Path));
-        Services.AddSingleton(_grids);
-        Services.AddSingleton(_board);
-        var analysis = new IncidentAnalysis(new GridLearning(_board), _ranker);
-        Services.AddSingleton(analysis);
-        Services.AddSingleton(new FeederLocate.Application.Switching.CheckedSwitching(_board, analysis));
-        Services.AddSingleton(new FeederLocate.Application.Lifecycle.IncidentLifecycle(_board, analysis));
-        Services.AddSingleton(new FeederLocate.Application.Switching.ReturnSwitching(_board, analysis));
-        Services.AddSingleton(new FeederLocate.Application.Evidence.EvidenceIntake(_board, TimeProvider.System));
-        Services.AddSingleton(new FeederLocate.Application.Times.IncidentTimesEntry(_board, TimeProvider.System));
-        Services.AddSingleton(TimeProvider.System);
+        WorkspaceServices.Add(Services, _grids, _board, new IncidentAnalysis(new GridLearning(_board), _ranker));
         var access = AddAuthorization();
         access.SetAuthorized("ana");
         access.SetRoles("operator");

@@ -11,6 +11,7 @@ using FeederLocate.Storage.Events;
 using FeederLocate.Web.Components.Pages.Workspace;
 using FeederLocate.Web.Security;
 using FeederLocate.Web.Services;
+using FeederLocate.Web.Tests.Support;
 using Microsoft.Extensions.DependencyInjection;
 
 namespace FeederLocate.Web.Tests.Components;
@@ -32,16 +33,7 @@ public sealed class WorkspaceWriteTests : BunitContext
     {
         _store = IncidentStore.Open(_database.Path);
         _board = new IncidentBoard(_store, name => _grids.Find(name)?.Grid);
-        Services.AddSingleton(_grids);
-        Services.AddSingleton(_board);
-        var analysis = new IncidentAnalysis(new GridLearning(_board), new CoreFaultRanker());
-        Services.AddSingleton(analysis);
-        Services.AddSingleton(new FeederLocate.Application.Switching.CheckedSwitching(_board, analysis));
-        Services.AddSingleton(new FeederLocate.Application.Lifecycle.IncidentLifecycle(_board, analysis));
-        Services.AddSingleton(new FeederLocate.Application.Switching.ReturnSwitching(_board, analysis));
-        Services.AddSingleton(new FeederLocate.Application.Evidence.EvidenceIntake(_board, TimeProvider.System));
-        Services.AddSingleton(new FeederLocate.Application.Times.IncidentTimesEntry(_board, TimeProvider.System));
-        Services.AddSingleton(TimeProvider.System);
+        WorkspaceServices.Add(Services, _grids, _board, new IncidentAnalysis(new GridLearning(_board), new CoreFaultRanker()));
         _access = AddAuthorization();
         _access.SetAuthorized("ana");
         _access.SetRoles("operator");
