@@ -20,10 +20,11 @@ public sealed class WorkspaceAnalysisTests : BunitContext
     private readonly TempDatabase _database = new();
     private readonly HeldRanker _ranker = new();
     private readonly IncidentBoard _board;
-    private readonly GridCatalog _grids = new(RepositoryFiles.Path("sample-grid"), SampleGrids.FileName("solid"));
+    private readonly GridCatalog _grids;
 
     public WorkspaceAnalysisTests()
     {
+        _grids = LoadedGrids.Samples(_database.Path);
         _board = new IncidentBoard(IncidentStore.Open(_database.Path));
         Services.AddSingleton(_grids);
         Services.AddSingleton(_board);
@@ -33,6 +34,7 @@ public sealed class WorkspaceAnalysisTests : BunitContext
         Services.AddSingleton(new FeederLocate.Application.Lifecycle.IncidentLifecycle(_board));
         Services.AddSingleton(new FeederLocate.Application.Times.IncidentTimesEntry(_board, TimeProvider.System));
         Services.AddSingleton(TimeProvider.System);
+        Services.AddSingleton(new FeederLocate.Application.Grids.IncidentGridMove(_board, _grids.Versions));
         var access = AddAuthorization();
         access.SetAuthorized("ana");
         access.SetRoles("operator");
