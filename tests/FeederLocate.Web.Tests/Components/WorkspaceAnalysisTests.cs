@@ -87,6 +87,7 @@ public sealed class WorkspaceAnalysisTests : BunitContext
         if (disposing)
         {
             _board.Dispose();
+            _grids.Versions.Dispose();
             _ranker.Dispose();
             _database.Dispose();
         }

@@ -173,6 +173,7 @@ public sealed class WorkspaceWriteTests : BunitContext
         if (disposing)
         {
             _board.Dispose();
+            _grids.Versions.Dispose();
             _database.Dispose();
         }
     }
