@@ -37,7 +37,7 @@ public static class CliApp
             BenchCommand.Create(console),
         };
 
-        foreach (var command in HistoryCommands.Create(console))
+        foreach (var command in HistoryCommands.Create(console).Concat(GridCommands.Create(console)))
         {
             root.Subcommands.Add(command);
         }

@@ -110,7 +110,7 @@ public sealed class IncidentAnalysis
         ArgumentNullException.ThrowIfNull(graph);
         ArgumentNullException.ThrowIfNull(state);
         var outcomes = _learning.Outcomes(graph);
-        return (new AnalysisKey(graph, state.Id, Math.Max(state.LastEvent.Value, outcomes.Through)), outcomes);
+        return (new AnalysisKey(graph, state.GridVersion, state.Id, Math.Max(state.LastEvent.Value, outcomes.Through)), outcomes);
     }
 
     private async Task<RankingAttempt> RankAsync(AnalysisKey key, NetworkGraph graph, IncidentState state, GridOutcomes outcomes) =>
@@ -125,6 +125,9 @@ public sealed class IncidentAnalysis
                 : new PlanAttempt(null, ranking.Problem);
         }).ConfigureAwait(false);
 
-    /// <summary>The grid (as loaded: a reloaded grid is a new key), the incident, and the last event among the inputs.</summary>
-    private readonly record struct AnalysisKey(NetworkGraph Graph, IncidentId Incident, long InputsThrough);
+    /// <summary>
+    /// The grid (as read: each stored version is its own graph), the version the incident is pinned to, the
+    /// incident, and the last event among the inputs (a move to another version is an event too).
+    /// </summary>
+    private readonly record struct AnalysisKey(NetworkGraph Graph, int GridVersion, IncidentId Incident, long InputsThrough);
 }

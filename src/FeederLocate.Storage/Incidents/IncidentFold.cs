@@ -11,7 +11,7 @@ namespace FeederLocate.Storage.Incidents;
 /// an indication replaces the earlier one of the same indicator where it stood in the list (new indicators go
 /// last); a measurement's given values replace those of the same device; a switch state replaces the earlier
 /// one; the latest outcome (a confirmed segment or no fault found) is in force until retracted; return-to-normal steps accumulate apart from the plan's; plan steps accumulate, a correction withdraws the latest tick of its step, a deviation
-/// sets the positions switched so far as the start of a new plan (its ticks move to the earlier steps); incidentClosed closes, and only a retraction or incidentReopened may follow it; each stage change is kept with who and when.
+/// sets the positions switched so far as the start of a new plan (its ticks move to the earlier steps); incidentClosed closes, and only a retraction or incidentReopened may follow it; each stage change is kept with who and when; a grid move re-pins the incident to another version of its grid (one that does not start from the version in force is quarantined).
 /// An event that cannot be read, or cannot apply where it stands, is quarantined:
 /// left out and named in <see cref="IncidentState.Quarantined"/>, never a reason to refuse the rest.
 /// </summary>
@@ -33,6 +33,7 @@ internal static class IncidentFold
         var start = new IncidentState(first.Incident, opened.GridName, opened.Incident, IncidentStatus.Open, [], null, first.Actor, first.Time, null, 1)
         {
             LastEvent = first.Id,
+            GridVersion = opened.GridVersion,
             Stages = [new StageChange(IncidentStage.Open, first.Actor, first.Time)],
         };
         return Continue(start, events, 1);
@@ -63,6 +64,8 @@ internal static class IncidentFold
         var entries = state.IndicationEntries.ToBuilder();
         var noFault = state.NoFaultFound;
         var returnSteps = state.ReturnSteps.ToBuilder();
+        var gridVersion = state.GridVersion;
+        var gridMoves = state.GridMoves.ToBuilder();
 
         for (var index = from; index < events.Count; index++)
         {
@@ -172,6 +175,14 @@ internal static class IncidentFold
                     var before = stages.Count >= 2 ? stages[^2].Stage : IncidentStage.Open;
                     stages.Add(new StageChange(before == IncidentStage.Closed ? IncidentStage.Open : before, stored.Actor, stored.Time, reopened.Reason));
                     break;
+                case IncidentGridMoved move when move.FromVersion != gridVersion:
+                    quarantined.Add(new QuarantinedEvent(stored.Id, stored.Incident, stored.Sequence, stored.Kind,
+                        $"moves incident {stored.Incident} from grid version {move.FromVersion}, but it stands on version {gridVersion}"));
+                    break;
+                case IncidentGridMoved move:
+                    gridVersion = move.ToVersion;
+                    gridMoves.Add(new GridMove(move.FromVersion, move.ToVersion, move.Reason, stored.Actor, stored.Time));
+                    break;
                 case IncidentStageChanged moved:
                     stages.Add(new StageChange(moved.Stage, stored.Actor, stored.Time));
                     break;
@@ -215,6 +226,8 @@ internal static class IncidentFold
             IndicationEntries = entries.ToImmutable(),
             NoFaultFound = noFault,
             ReturnSteps = returnSteps.ToImmutable(),
+            GridVersion = gridVersion,
+            GridMoves = gridMoves.ToImmutable(),
             EventCount = state.EventCount + Math.Max(0, events.Count - from),
             Quarantined = quarantined.ToImmutable(),
             LastEvent = events.Count > from ? events[^1].Id : state.LastEvent,

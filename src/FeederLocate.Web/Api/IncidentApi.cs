@@ -33,7 +33,7 @@ public static class IncidentApi
         var api = app.MapGroup("/api").WithTags("FeederLocate").WithMetadata(new RequestSizeLimitAttribute(MaximumBodyBytes))
             .RequireAuthorization(AccessPolicies.ApiRead);
         api.MapGet("/grids", (ClaimsPrincipal user, GridCatalog grids) => grids.VisibleTo(user).Select(g => new GridEntry(
-            g.Name, g.Key, g.Grid.Substations.Length, g.Grid.Segments.Length, g.Graph.Sections.All.Length, g.Grid.Indicators.Length)));
+            g.Name, g.Key, g.Grid.Substations.Length, g.Grid.Segments.Length, g.Graph.Sections.All.Length, g.Grid.Indicators.Length, g.Version)));
         api.MapGet("/incidents", (ClaimsPrincipal user, IncidentBoard board) =>
             board.List().Where(i => AccountClaims.MaySee(user, i.GridName)).Select(IncidentEntry.Of));
         api.MapPost("/incidents", OpenIncident).RequireAuthorization(AccessPolicies.ApiWrite);
@@ -44,7 +44,7 @@ public static class IncidentApi
         api.MapPost("/incidents/{id:long}/measurements", (long id, ClaimsPrincipal user, HttpRequest request, IncidentBoard board, GridCatalog grids, EvidenceIntake intake) =>
             PostEvidence(id, user, request, board, grids, "measurements", intake.AddMeasurements)).RequireAuthorization(AccessPolicies.ApiWrite);
         api.MapGet("/incidents/{id:long}/switches", (long id, ClaimsPrincipal user, IncidentBoard board, GridCatalog grids) =>
-            WithIncident(board, user, id, state => grids.Find(state.GridName) is not { } grid
+            WithIncident(board, user, id, state => grids.For(state) is not { } grid
                 ? GridNotLoaded(id, state)
                 : Results.Ok(SwitchEntry.Of(grid.Grid, IncidentSwitching.Current(grid.Grid, state)))));
         api.MapPost("/incidents/{id:long}/protection", (long id, ClaimsPrincipal user, HttpRequest request, IncidentBoard board, GridCatalog grids, TimeProvider clock) =>
@@ -52,7 +52,7 @@ public static class IncidentApi
         api.MapGet("/incidents/{id:long}/ranking", (long id, ClaimsPrincipal user, IncidentBoard board, GridCatalog grids, IncidentAnalysis analysis) =>
             WithIncidentAsync(board, user, id, async state =>
             {
-                if (grids.Find(state.GridName) is not { } grid)
+                if (grids.For(state) is not { } grid)
                 {
                     return GridNotLoaded(id, state);
                 }
@@ -65,7 +65,7 @@ public static class IncidentApi
         api.MapGet("/incidents/{id:long}/plan", (long id, string? section, ClaimsPrincipal user, IncidentBoard board, GridCatalog grids, IncidentAnalysis analysis) =>
             WithIncidentAsync(board, user, id, async state =>
             {
-                if (grids.Find(state.GridName) is not { } grid)
+                if (grids.For(state) is not { } grid)
                 {
                     return GridNotLoaded(id, state);
                 }
@@ -84,7 +84,7 @@ public static class IncidentApi
         api.MapGet("/incidents/{id:long}/plan/return", (long id, ClaimsPrincipal user, IncidentBoard board, GridCatalog grids, IncidentAnalysis analysis) =>
             WithIncidentAsync(board, user, id, async state =>
             {
-                if (grids.Find(state.GridName) is not { } grid)
+                if (grids.For(state) is not { } grid)
                 {
                     return GridNotLoaded(id, state);
                 }
@@ -110,6 +110,7 @@ public static class IncidentApi
         api.MapPost("/incidents/{id:long}/outcome/retraction", PostRetraction).RequireAuthorization(AccessPolicies.ApiEngineer);
         api.MapSwitchingApi();
         api.MapLifecycleApi();
+        api.MapGridApi();
         return app;
     }
 
@@ -152,7 +153,7 @@ public static class IncidentApi
 
         return WithIncident(board, user, id, state =>
         {
-            if (grids.Find(state.GridName) is not { } grid)
+            if (grids.For(state) is not { } grid)
             {
                 return GridNotLoaded(id, state);
             }
@@ -181,7 +182,7 @@ public static class IncidentApi
 
         return WithIncident(board, user, id, state =>
         {
-            if (grids.Find(state.GridName) is not { } grid)
+            if (grids.For(state) is not { } grid)
             {
                 return GridNotLoaded(id, state);
             }
@@ -290,7 +291,7 @@ public static class IncidentApi
         Results.NotFound(ApiError.Single("unknown incident", "incident", Text(id), "id", "does not exist"));
 
     internal static IResult GridNotLoaded(long id, IncidentState state) =>
-        Results.Conflict(ApiError.Single("grid not loaded", "incident", id.ToString(System.Globalization.CultureInfo.InvariantCulture), "grid", $"\"{state.GridName}\" is not loaded"));
+        Results.Conflict(ApiError.Single("grid not loaded", "incident", id.ToString(System.Globalization.CultureInfo.InvariantCulture), "grid", $"version {state.GridVersion} of \"{state.GridName}\" is not stored"));
 
     /// <summary>
     /// Runs <paramref name="action"/> on the incident when the account may see its grid. An incident of a grid
@@ -377,7 +378,7 @@ public static class IncidentApi
         ApiError.Single("body too large", "request", "body", string.Empty, $"must be at most {MaximumBodyBytes} bytes"),
         statusCode: StatusCodes.Status413PayloadTooLarge);
 
-    public sealed record GridEntry(string Name, string File, int Substations, int Segments, int Sections, int Indicators);
+    public sealed record GridEntry(string Name, string File, int Substations, int Segments, int Sections, int Indicators, int Version);
 
     public sealed record IncidentEntry(long Id, string Grid, DateTimeOffset ReportedAt, string Status, string FaultType, string? ConfirmedSegment, int Events, string Stage)
     {

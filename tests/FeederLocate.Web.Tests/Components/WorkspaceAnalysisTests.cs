@@ -20,10 +20,11 @@ public sealed class WorkspaceAnalysisTests : BunitContext
     private readonly TempDatabase _database = new();
     private readonly HeldRanker _ranker = new();
     private readonly IncidentBoard _board;
-    private readonly GridCatalog _grids = new(RepositoryFiles.Path("sample-grid"), SampleGrids.FileName("solid"));
+    private readonly GridCatalog _grids;
 
     public WorkspaceAnalysisTests()
     {
+        _grids = LoadedGrids.Samples(_database.Path);
         _board = new IncidentBoard(IncidentStore.Open(_database.Path));
         WorkspaceServices.Add(Services, _grids, _board, new IncidentAnalysis(new GridLearning(_board), _ranker));
         var access = AddAuthorization();
@@ -78,6 +79,7 @@ public sealed class WorkspaceAnalysisTests : BunitContext
         if (disposing)
         {
             _board.Dispose();
+            _grids.Versions.Dispose();
             _ranker.Dispose();
             _database.Dispose();
         }

@@ -23,14 +23,14 @@ public sealed class WorkspaceNamesTests : BunitContext
 {
     private readonly TempDatabase _database = new();
     private readonly IncidentBoard _board;
-    private readonly GridCatalog _grids = new(RepositoryFiles.Path("sample-grid"), SampleGrids.FileName("solid"));
+    private readonly GridCatalog _grids;
     private static readonly Actor Ana = new("ana", "operator");
 
     public WorkspaceNamesTests()
     {
+        _grids = LoadedGrids.Samples(_database.Path);
         _board = new IncidentBoard(IncidentStore.Open(_database.Path));
         WorkspaceServices.Add(Services, _grids, _board, new IncidentAnalysis(new GridLearning(_board), new CoreFaultRanker()));
-        Services.AddSingleton(new FeederLocate.Application.Evidence.EvidenceIntake(_board, TimeProvider.System));
         var access = AddAuthorization();
         access.SetAuthorized("ana");
         access.SetRoles("operator");

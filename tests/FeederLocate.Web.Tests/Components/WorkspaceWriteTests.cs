@@ -26,13 +26,14 @@ public sealed class WorkspaceWriteTests : BunitContext
     private readonly TempDatabase _database = new();
     private readonly IncidentStore _store;
     private readonly IncidentBoard _board;
-    private readonly GridCatalog _grids = new(RepositoryFiles.Path("sample-grid"), SampleGrids.FileName("solid"));
+    private readonly GridCatalog _grids;
     private readonly BunitAuthorizationContext _access;
 
     public WorkspaceWriteTests()
     {
+        _grids = LoadedGrids.Samples(_database.Path);
         _store = IncidentStore.Open(_database.Path);
-        _board = new IncidentBoard(_store, name => _grids.Find(name)?.Grid);
+        _board = new IncidentBoard(_store, (name, version) => _grids.Find(name, version)?.Grid);
         WorkspaceServices.Add(Services, _grids, _board, new IncidentAnalysis(new GridLearning(_board), new CoreFaultRanker()));
         _access = AddAuthorization();
         _access.SetAuthorized("ana");
@@ -164,6 +165,7 @@ public sealed class WorkspaceWriteTests : BunitContext
         if (disposing)
         {
             _board.Dispose();
+            _grids.Versions.Dispose();
             _database.Dispose();
         }
     }

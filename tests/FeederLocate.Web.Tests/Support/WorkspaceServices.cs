@@ -1,5 +1,6 @@
 using FeederLocate.Application.Analysis;
 using FeederLocate.Application.Evidence;
+using FeederLocate.Application.Grids;
 using FeederLocate.Application.Lifecycle;
 using FeederLocate.Application.Switching;
 using FeederLocate.Application.Times;
@@ -23,6 +24,7 @@ internal static class WorkspaceServices
         services.AddSingleton(new EvidenceIntake(board, TimeProvider.System));
         services.AddSingleton(new IncidentTimesEntry(board, TimeProvider.System));
         services.AddSingleton(TimeProvider.System);
+        services.AddSingleton(new IncidentGridMove(board, grids.Versions));
         return analysis;
     }
 }
