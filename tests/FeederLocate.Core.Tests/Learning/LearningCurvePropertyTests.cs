@@ -12,13 +12,18 @@ namespace FeederLocate.Core.Tests.Learning;
 /// on every grounding scheme: with a history where the longest overhead segment fails five times its line
 /// type's rate and a remote indicator reports falsely 80 % of the time (defects invented for the test, as the
 /// issue's scenario), the learned defects move toward their true values and section top-1 moves toward the
-/// ranking told the truth. Asserted only as "moves toward the truth", never by how much or how fast.
+/// ranking told the truth. Asserted only as "moves toward the truth" (or beyond it), never by how much or how fast.
 /// </summary>
 /// <remarks>
 /// Section top-1 is counted on 150 test incidents shared by every point of the curve; where the truth itself
 /// gains little on a grid the difference is within the noise of those incidents, so the learned ranking may
 /// end up to 3 points further from the truth than it started (about one standard error of a paired
 /// difference of a few disagreeing incidents in 150).
+/// <para>Learning may also go beyond the truth: the ranking told the truth gets the simulator's nominal error rates,
+/// which are not the best rates for the ranking's own model of the evidence. On a resonant grid (48 segments, seed
+/// 447) the learned ranking scored 61 to 63 % on each of 12 independent histories against 54.7 % told the truth,
+/// and the truth's priors with the learned indicator rates scored 61.3 %. So only falling below the lower of no
+/// history and the truth counts against the learning.</para>
 /// </remarks>
 public class LearningCurvePropertyTests
 {
@@ -54,7 +59,8 @@ public class LearningCurvePropertyTests
 
             var (start, end) = (report.Curve[0], report.Curve[^1]);
             var where = $"{grid.Name}, {scheme}, {substations} substation(s), hot {hot.Id}, noisy {noisy.Id}";
-            Assert.True(Math.Abs(report.TruthSectionTop1 - end.SectionTop1) <= Math.Abs(report.TruthSectionTop1 - start.SectionTop1) + NoiseAllowance,
+            // Toward the truth or beyond it: never below the lower of no history and the truth, beyond the noise.
+            Assert.True(end.SectionTop1 >= Math.Min(start.SectionTop1, report.TruthSectionTop1) - NoiseAllowance,
                 $"section top-1 {start.SectionTop1:P1} with no history, {end.SectionTop1:P1} after {end.Outcomes}; told the truth {report.TruthSectionTop1:P1} ({where})");
             Assert.True(Math.Abs(end.HotSegmentFaultsPer100KmYear - report.HotSegmentTrueFaultsPer100KmYear) < Math.Abs(start.HotSegmentFaultsPer100KmYear - report.HotSegmentTrueFaultsPer100KmYear),
                 $"hot segment learned {end.HotSegmentFaultsPer100KmYear:F1} after {end.Outcomes} outcomes ({end.HotSegmentOutcomes} on it), true {report.HotSegmentTrueFaultsPer100KmYear:F1} ({where})");
