@@ -14,6 +14,13 @@ namespace FeederLocate.Core.Evaluation;
 /// <param name="Skipped">Outcomes the learning had to leave out (the grid could not explain them).</param>
 public sealed record LearningPoint(int Outcomes, double SectionTop1, double HotSegmentFaultsPer100KmYear = double.NaN, double NoisyFalseReportProbability = double.NaN, int Skipped = 0)
 {
+    /// <summary>
+    /// Test incidents on which this point's ranking and the ranking told the truth put different sections first: the
+    /// only incidents where their section top-1 can differ. Where neither ranking is the better, each goes either way
+    /// with even odds, so the difference in hits has a standard deviation of √ of this count.
+    /// </summary>
+    public int DisagreementsWithTruth { get; init; }
+
     /// <summary>Outcomes logged on the hot segment by then.</summary>
     public int HotSegmentOutcomes { get; init; }
 
@@ -94,6 +101,7 @@ public static class LearningEvaluation
             i => new IndicatorErrorRates(settings.MissProbability, i.Id == noisyIndicator ? Math.Min(LearnedRankingPriors.MaximumFalseReportProbability, noisyFalseProbability) : settings.FalseProbability));
         var truth = truePriorsForSimulation with { IndicatorRates = truthRates };
 
+        var truthFirst = FirstSections(graph, tests, options, truth);
         var curve = ImmutableArray.CreateBuilder<LearningPoint>();
         var done = 0;
         var total = checkpoints.Count + 1;
@@ -102,13 +110,15 @@ public static class LearningEvaluation
             var outcomes = history.Take(k).Select(h => new Outcome(h.Incident, h.Segment)).ToList();
             var learned = LearnedRankingPriors.Learn(graph, outcomes, learning);
             var priors = LearnedRankingPriors.ToRankingPriors(learned, hasHistory: k > 0);
+            var first = FirstSections(graph, tests, options, priors);
             curve.Add(new LearningPoint(
                 k,
-                SectionTop1(graph, tests, options, priors),
+                SectionTop1(graph, tests, first),
                 learned.FaultRateOf(hotSegment).FaultsPer100KmYear,
                 learned.ReliabilityOf(noisyIndicator).FalseReportProbability,
                 learned.Skipped.Length)
             {
+                DisagreementsWithTruth = first.Where((section, i) => section != truthFirst[i]).Count(),
                 HotSegmentOutcomes = outcomes.Count(o => o.Segment == hotSegment),
                 ObservationYears = learned.FaultRates.ObservationYears,
                 HotSegmentObservedFaultsPer100KmYear = learned.FaultRates.ObservationYears > 0
@@ -118,7 +128,7 @@ public static class LearningEvaluation
             progress?.Report(++done / (double)total);
         }
 
-        var truthTop1 = SectionTop1(graph, tests, options, truth);
+        var truthTop1 = SectionTop1(graph, tests, truthFirst);
         progress?.Report(1);
         return new LearningReport(hotSegment, hotSegmentRateFactor, noisyIndicator, noisyFalseProbability, testIncidents, curve.ToImmutable(), truthTop1)
         {
@@ -126,15 +136,11 @@ public static class LearningEvaluation
         };
     }
 
-    private static double SectionTop1(NetworkGraph graph, List<SimulatedIncident> tests, RankingOptions options, RankingPriors priors)
-    {
-        var hits = 0;
-        foreach (var t in tests)
-        {
-            var ranking = FaultRanking.Rank(graph, t.Incident, options, priors);
-            hits += ranking.Sections[0].Id == graph.Sections.OfSegment(graph.Grid.SegmentIndex(t.Segment)).Id ? 1 : 0;
-        }
+    /// <summary>The section each test incident's ranking puts first.</summary>
+    private static List<SectionId> FirstSections(NetworkGraph graph, List<SimulatedIncident> tests, RankingOptions options, RankingPriors priors) =>
+        tests.Select(t => FaultRanking.Rank(graph, t.Incident, options, priors).Sections[0].Id).ToList();
 
-        return hits / (double)tests.Count;
-    }
+    /// <summary>The share of test incidents whose faulted segment lies in the section put first.</summary>
+    private static double SectionTop1(NetworkGraph graph, List<SimulatedIncident> tests, List<SectionId> first) =>
+        tests.Where((t, i) => first[i] == graph.Sections.OfSegment(graph.Grid.SegmentIndex(t.Segment)).Id).Count() / (double)tests.Count;
 }

@@ -22,6 +22,10 @@ namespace FeederLocate.Core.Learning;
 /// chosen per line type by empirical Bayes (<see cref="FaultRatePriorChoice"/>): the marginal likelihood of every
 /// segment's count decides how alike the type's segments are, and so how far each segment's own record moves
 /// its rate. μ is then learned from all the type's segments at once, without counting any fault twice.</para>
+/// <para>With <see cref="FaultRateOptions.SetApartDistinctSegments"/> as well, the segments the type's prior cannot
+/// explain are set apart before μ and S are chosen (<see cref="DistinctMembers"/>) and take the weak prior
+/// Gamma(μ·S_min, S_min), S_min = <see cref="FaultRateOptions.MinimumStrengthKmYears"/>: an outlier then neither
+/// lowers the strength every other segment of its type is held with nor pulls μ.</para>
 /// <para>T is <see cref="FaultRateOptions.ObservationYears"/> when configured, else the span from the
 /// earliest to the latest reported time in years of 365.25 days, at least
 /// <see cref="FaultRateOptions.MinimumObservationYears"/>; with no fault at all and no configured period T = 0
@@ -55,10 +59,19 @@ public static class FaultRateLearning
 
         var typeRates = grid.LineTypes.Select(t => LineTypeRate(grid, t, faultsOnSegment, years, options)).ToImmutableArray();
         var typeById = typeRates.ToDictionary(t => t.LineType);
+        var memberIndex = new int[grid.Segments.Length];
+        var members = new Dictionary<LineTypeId, int>();
+        for (var i = 0; i < grid.Segments.Length; i++)
+        {
+            memberIndex[i] = members.GetValueOrDefault(grid.Segments[i].LineType);
+            members[grid.Segments[i].LineType] = memberIndex[i] + 1;
+        }
+
         var segmentRates = grid.Segments.Select((segment, i) =>
         {
             var choice = typeById[segment.LineType].Choice!;
-            var prior = new GammaParameters(choice.MeanPerKmYear * choice.StrengthKmYears, choice.StrengthKmYears);
+            var strength = choice.StrengthOf(memberIndex[i]);
+            var prior = new GammaParameters(choice.MeanPerKmYear * strength, strength);
             var exposure = segment.LengthKm * years;
             return new FaultRatePosterior(segment.Id, segment.LineType, segment.LengthKm, prior,
                 prior.Update(faultsOnSegment[i], exposure), faultsOnSegment[i], exposure);
@@ -104,14 +117,12 @@ public static class FaultRateLearning
         var exposure = lengthKm * years;
         var posterior = prior.Update(faults, exposure);
         var stated = type.EffectiveFaultsPer100KmYear / 100;
-        var choice = options.ChooseStrengthsByData && stated > 0 && exposure > 0
-            ? FaultRatePriorChoice.Choose(
-                stated,
-                e0,
-                [.. grid.Segments.Select((s, i) => (s, i)).Where(p => p.s.LineType == type.Id).Select(p => new SegmentRecord(faultsOnSegment[p.i], p.s.LengthKm * years))],
-                options.MinimumStrengthKmYears,
-                options.MaximumStrengthKmYears)
-            : FaultRatePriorChoice.Configured(posterior.Mean, options.SegmentShrinkKmYears);
+        SegmentRecord[] records = [.. grid.Segments.Select((s, i) => (s, i)).Where(p => p.s.LineType == type.Id).Select(p => new SegmentRecord(faultsOnSegment[p.i], p.s.LengthKm * years))];
+        var choice = !(options.ChooseStrengthsByData && stated > 0 && exposure > 0)
+            ? FaultRatePriorChoice.Configured(posterior.Mean, options.SegmentShrinkKmYears)
+            : options.SetApartDistinctSegments
+                ? FaultRatePriorChoice.ChooseSettingApart(stated, e0, records, options.MinimumStrengthKmYears, options.MaximumStrengthKmYears, options.DistinctSegmentShare)
+                : FaultRatePriorChoice.Choose(stated, e0, records, options.MinimumStrengthKmYears, options.MaximumStrengthKmYears);
         return new LineTypeFaultRate(type.Id, lengthKm, prior, posterior, faults, exposure, choice);
     }
 }

@@ -57,6 +57,25 @@ public sealed record FaultRateOptions
     /// </summary>
     public bool ChooseStrengthsByData { get; init; }
 
+    /// <summary>
+    /// With <see cref="ChooseStrengthsByData"/>: set apart the segments whose records the line type's prior cannot
+    /// explain (<see cref="PriorChoice.DistinctMembers"/>), choose μ and S from the rest and give those the weak
+    /// prior at <see cref="MinimumStrengthKmYears"/>, so one segment failing far more often than its type neither
+    /// widens the type's spread nor pulls its rate. Default false; the ranking's learning turns it on.
+    /// </summary>
+    public bool SetApartDistinctSegments { get; init; }
+
+    /// <summary>
+    /// π: the prior share of a line type's segments that are distinct (default 0.05, one in twenty; from memory,
+    /// a setting rather than a measured figure). A segment is set apart where its record is more than
+    /// (1 − π)/π = 19 times as probable under the weak prior as under the type's. Between 0 and 0.5.
+    /// </summary>
+    public double DistinctSegmentShare
+    {
+        get;
+        init => field = value is > 0 and < 0.5 ? value : throw new ArgumentOutOfRangeException(nameof(DistinctSegmentShare), value, $"{nameof(DistinctSegmentShare)} must lie between 0 and 0.5");
+    } = 0.05;
+
     /// <summary>Lower bound of the chosen S in km·years (default 5): no segment's own record outweighs its type before 5 km·years.</summary>
     public double MinimumStrengthKmYears
     {

@@ -19,6 +19,9 @@ namespace FeederLocate.Core.Learning;
 /// <para>With <see cref="IndicatorReliabilityOptions.ChooseStrengthsByData"/> the kind's rate m and strength s of
 /// each error rate are chosen by empirical Bayes (<see cref="ReliabilityPriorChoice"/>) from the counts of all
 /// its indicators; each indicator's posterior is then Beta(m·s + x, (1 − m)·s + n − x).</para>
+/// <para>With <see cref="IndicatorReliabilityOptions.SetApartDistinctIndicators"/> as well, the indicators the kind's
+/// prior cannot explain are set apart before m and s are chosen (<see cref="DistinctMembers"/>) and take the weak
+/// prior at <see cref="IndicatorReliabilityOptions.MinimumStrengthTrials"/>.</para>
 /// <para>Directional indicators also learn P(wrong direction) from their direction trials, in the same two levels
 /// (default rate <see cref="IndicatorReliabilityOptions.WrongDirectionProbability"/>).</para>
 /// <para>What counts as a trial, a miss or a false report: <see cref="ReliabilityCounts"/>.</para>
@@ -52,17 +55,27 @@ public static class IndicatorReliabilityLearning
         }
 
         var kinds = IndicatorKind.All.Select(kind => KindReliability(grid, kind, counts, options)).ToImmutableArray();
+        var memberIndex = new int[grid.Indicators.Length];
+        var members = new Dictionary<IndicatorKind, int>();
+        for (var i = 0; i < grid.Indicators.Length; i++)
+        {
+            var kind = IndicatorKind.Of(grid.Indicators[i]);
+            memberIndex[i] = members.GetValueOrDefault(kind);
+            members[kind] = memberIndex[i] + 1;
+        }
+
         var indicators = grid.Indicators.Select((indicator, i) =>
         {
             var kind = kinds.Single(k => k.Kind == IndicatorKind.Of(indicator));
             var c = counts[i];
+            var member = memberIndex[i];
             return new IndicatorReliability(
                 indicator.Id,
                 kind.Kind,
-                Posterior(kind.MissChoice!, c.Misses, c.MissTrials),
-                Posterior(kind.FalseReportChoice!, c.FalseReports, c.FalseReportTrials),
+                Posterior(kind.MissChoice!, member, c.Misses, c.MissTrials),
+                Posterior(kind.FalseReportChoice!, member, c.FalseReports, c.FalseReportTrials),
                 c,
-                kind.WrongDirectionChoice is { } direction ? Posterior(direction, c.WrongDirections, c.DirectionTrials) : null);
+                kind.WrongDirectionChoice is { } direction ? Posterior(direction, member, c.WrongDirections, c.DirectionTrials) : null);
         }).ToImmutableArray();
 
         return new IndicatorReliabilityEstimate(kinds, indicators, [.. unknown]);
@@ -88,9 +101,11 @@ public static class IndicatorReliabilityLearning
         ReliabilityPriorChoice Choice(double defaultRate, BetaParameters pooledPosterior, Func<ReliabilityCounts, TrialRecord> record)
         {
             var records = members.Select(i => record(counts[i])).ToList();
-            return options.ChooseStrengthsByData && records.Any(r => r.Trials > 0)
-                ? ReliabilityPriorChoice.Choose(defaultRate, options.PriorStrength, records, options.MinimumStrengthTrials, options.MaximumStrengthTrials)
-                : ReliabilityPriorChoice.Configured(pooledPosterior.Mean, options.ShrinkStrength);
+            return !(options.ChooseStrengthsByData && records.Any(r => r.Trials > 0))
+                ? ReliabilityPriorChoice.Configured(pooledPosterior.Mean, options.ShrinkStrength)
+                : options.SetApartDistinctIndicators
+                    ? ReliabilityPriorChoice.ChooseSettingApart(defaultRate, options.PriorStrength, records, options.MinimumStrengthTrials, options.MaximumStrengthTrials, options.DistinctIndicatorShare)
+                    : ReliabilityPriorChoice.Choose(defaultRate, options.PriorStrength, records, options.MinimumStrengthTrials, options.MaximumStrengthTrials);
         }
 
         ReliabilityPriorChoice? direction = null;
@@ -109,6 +124,6 @@ public static class IndicatorReliabilityLearning
         };
     }
 
-    private static BetaParameters Posterior(ReliabilityPriorChoice choice, double errors, double trials) =>
-        BetaParameters.FromMean(choice.Mean, choice.StrengthTrials).Update(Math.Min(errors, trials), trials);
+    private static BetaParameters Posterior(ReliabilityPriorChoice choice, int member, double errors, double trials) =>
+        BetaParameters.FromMean(choice.Mean, choice.StrengthOf(member)).Update(Math.Min(errors, trials), trials);
 }

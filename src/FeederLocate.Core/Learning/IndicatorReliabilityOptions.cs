@@ -41,6 +41,24 @@ public sealed record IndicatorReliabilityOptions
     /// </summary>
     public bool ChooseStrengthsByData { get; init; }
 
+    /// <summary>
+    /// With <see cref="ChooseStrengthsByData"/>: set apart the indicators whose records the kind's prior cannot
+    /// explain (<see cref="PriorChoice.DistinctMembers"/>), choose the kind's rate and strength from the rest and
+    /// give those the weak prior at <see cref="MinimumStrengthTrials"/>, so one indicator erring far more often than
+    /// its kind neither widens the kind's spread nor pulls its rate. Default false; the ranking's learning turns it on.
+    /// </summary>
+    public bool SetApartDistinctIndicators { get; init; }
+
+    /// <summary>
+    /// π: the prior share of a kind's indicators that are distinct in one error rate (default 0.05, one in twenty;
+    /// from memory, a setting rather than a measured figure). Between 0 and 0.5.
+    /// </summary>
+    public double DistinctIndicatorShare
+    {
+        get;
+        init => field = value is > 0 and < 0.5 ? value : throw new ArgumentOutOfRangeException(nameof(DistinctIndicatorShare), value, $"{nameof(DistinctIndicatorShare)} must lie between 0 and 0.5");
+    } = 0.05;
+
     /// <summary>Lower bound of the chosen strength in trials (default 2).</summary>
     public double MinimumStrengthTrials { get; init => field = Positive(value, nameof(MinimumStrengthTrials)); } = 2;
 

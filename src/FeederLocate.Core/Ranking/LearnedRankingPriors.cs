@@ -31,17 +31,19 @@ public static class LearnedRankingPriors
 
     /// <summary>
     /// Learning as the ranking uses it: prior strengths and type-level rates chosen by empirical Bayes
-    /// within stated bounds; where there is nothing to choose from, a segment's own record outweighs its line
+    /// within stated bounds, with the segments and indicators their group's prior cannot explain set apart first
+    /// (<see cref="Learning.PriorChoice.DistinctMembers"/>); where there is nothing to choose from, a segment's own record outweighs its line
     /// type only after 100 km·years, and the error-rate priors equal the ranking's defaults (misreading is
     /// added by the ranking itself).
     /// </summary>
     public static LearningOptions Options { get; } = new(
-        FaultRateOptions.Default with { SegmentShrinkKmYears = 100, ChooseStrengthsByData = true },
+        FaultRateOptions.Default with { SegmentShrinkKmYears = 100, ChooseStrengthsByData = true, SetApartDistinctSegments = true },
         IndicatorReliabilityOptions.Default with
         {
             FieldMissProbability = RankingOptions.Default.FieldRates.MissProbability,
             FieldFalseReportProbability = RankingOptions.Default.FieldRates.FalseReportProbability,
             ChooseStrengthsByData = true,
+            SetApartDistinctIndicators = true,
         });
 
     /// <summary>

@@ -1,3 +1,5 @@
+using System.Collections.Immutable;
+
 namespace FeederLocate.Core.Learning.PriorChoice;
 
 /// <summary>One segment's record for the choice of its line type's prior: faults k over exposure L·T.</summary>
@@ -28,6 +30,15 @@ public sealed record FaultRatePriorChoice(
 {
     /// <summary>μ in faults per 100 km·year, the unit of the grid file.</summary>
     public double MeanPer100KmYear => 100 * MeanPerKmYear;
+
+    /// <summary>
+    /// The segments (indices into the records chosen from) set apart as distinct by <see cref="ChooseSettingApart"/>:
+    /// μ and S are chosen from the others, and these take the weak prior Gamma(μ·lower, lower). Empty otherwise.
+    /// </summary>
+    public ImmutableArray<int> SetApart { get; init; } = [];
+
+    /// <summary>The strength of the prior of record <paramref name="index"/>: the lower bound where it is set apart, else S.</summary>
+    public double StrengthOf(int index) => SetApart.Contains(index) ? LowerKmYears : StrengthKmYears;
 
     /// <summary>How far μ may move from the stated rate: a factor of this either way.</summary>
     public const double MeanRangeFactor = 50;
@@ -63,6 +74,24 @@ public sealed record FaultRatePriorChoice(
         var strength = BoundedMaximiser.Maximise(s => BestMean(s).Value, lowerKmYears, upperKmYears);
         var mean = BestMean(strength.Argument);
         return new FaultRatePriorChoice(mean.Argument, strength.Argument, lowerKmYears, upperKmYears, strength.AtBound, true, mean.Value);
+    }
+
+    /// <summary>
+    /// As <see cref="Choose"/>, with the segments the type's prior cannot explain set apart
+    /// (<see cref="DistinctMembers"/>, prior share of distinct segments <paramref name="distinctShare"/>): a segment
+    /// is set apart where π·NB(k | μ·lower, lower, E) &gt; (1 − π)·NB(k | μ·S, S, E), and μ and S are chosen from the rest.
+    /// </summary>
+    public static FaultRatePriorChoice ChooseSettingApart(
+        double statedPerKmYear, double priorExposureKmYears, IReadOnlyList<SegmentRecord> segments, double lowerKmYears, double upperKmYears, double distinctShare)
+    {
+        var (choice, apart) = DistinctMembers.Choose(
+            segments,
+            distinctShare,
+            records => records.Any(s => s.ExposureKmYears > 0) ? Choose(statedPerKmYear, priorExposureKmYears, records, lowerKmYears, upperKmYears) : null,
+            records => records.Any(s => s.ExposureKmYears > 0) ? Choose(statedPerKmYear, priorExposureKmYears, records, upperKmYears, upperKmYears) : null,
+            (c, s) => MarginalLikelihood.GammaPoisson(s.Faults, s.ExposureKmYears, c.MeanPerKmYear * c.StrengthKmYears, c.StrengthKmYears),
+            (c, s) => MarginalLikelihood.GammaPoisson(s.Faults, s.ExposureKmYears, c.MeanPerKmYear * lowerKmYears, lowerKmYears));
+        return choice with { SetApart = apart };
     }
 
     /// <summary>No choice by data: the configured mean and strength.</summary>

@@ -1,3 +1,5 @@
+using System.Collections.Immutable;
+
 namespace FeederLocate.Core.Learning.PriorChoice;
 
 /// <summary>One indicator's record for one error rate: x errors in n trials (weighted counts may be fractional).</summary>
@@ -23,6 +25,15 @@ public sealed record ReliabilityPriorChoice(
     bool ChosenByData,
     double LogMarginalLikelihood)
 {
+    /// <summary>
+    /// The indicators (indices into the records chosen from) set apart as distinct by <see cref="ChooseSettingApart"/>:
+    /// m and s are chosen from the others, and these take the weak prior Beta(m·lower, (1 − m)·lower). Empty otherwise.
+    /// </summary>
+    public ImmutableArray<int> SetApart { get; init; } = [];
+
+    /// <summary>The strength of the prior of record <paramref name="index"/>: the lower bound where it is set apart, else s.</summary>
+    public double StrengthOf(int index) => SetApart.Contains(index) ? LowerTrials : StrengthTrials;
+
     /// <summary>The smallest and largest kind-level rate searched.</summary>
     public const double MinimumMean = 1e-4;
 
@@ -57,6 +68,26 @@ public sealed record ReliabilityPriorChoice(
         var strength = BoundedMaximiser.Maximise(s => BestMean(s).Value, lowerTrials, upperTrials);
         var mean = BestMean(strength.Argument);
         return new ReliabilityPriorChoice(mean.Argument, strength.Argument, lowerTrials, upperTrials, strength.AtBound, true, mean.Value);
+    }
+
+    /// <summary>
+    /// As <see cref="Choose"/>, with the indicators the kind's prior cannot explain set apart
+    /// (<see cref="DistinctMembers"/>, prior share of distinct indicators <paramref name="distinctShare"/>): an
+    /// indicator is set apart where π·BB(x | n, m·lower, (1 − m)·lower) &gt; (1 − π)·BB(x | n, m·s, (1 − m)·s), and m and s
+    /// are chosen from the rest.
+    /// </summary>
+    public static ReliabilityPriorChoice ChooseSettingApart(
+        double defaultRate, double priorStrength, IReadOnlyList<TrialRecord> indicators, double lowerTrials, double upperTrials, double distinctShare)
+    {
+        static double Log(TrialRecord r, double m, double s) => MarginalLikelihood.BetaBinomial(Math.Min(r.Errors, r.Trials), r.Trials, m * s, (1 - m) * s);
+        var (choice, apart) = DistinctMembers.Choose(
+            indicators,
+            distinctShare,
+            records => records.Any(r => r.Trials > 0) ? Choose(defaultRate, priorStrength, records, lowerTrials, upperTrials) : null,
+            records => records.Any(r => r.Trials > 0) ? Choose(defaultRate, priorStrength, records, upperTrials, upperTrials) : null,
+            (c, r) => Log(r, c.Mean, c.StrengthTrials),
+            (c, r) => Log(r, c.Mean, lowerTrials));
+        return choice with { SetApart = apart };
     }
 
     /// <summary>No choice by data: the configured mean and strength.</summary>
