@@ -32,11 +32,12 @@ public static class CliApp
             SwitchesCommand.Create(console),
             SwitchingCommand.Create(console),
             LifecycleCommand.Create(console),
+            HandoverCommand.Create(console),
             GenerateCommand.Create(console),
             BenchCommand.Create(console),
         };
 
-        foreach (var command in HistoryCommands.Create(console))
+        foreach (var command in HistoryCommands.Create(console).Concat(GridCommands.Create(console)))
         {
             root.Subcommands.Add(command);
         }

@@ -78,20 +78,20 @@ public sealed class IncidentStore : IDisposable
         }
     }
 
-    /// <summary>Logs a new incident on the grid named <paramref name="gridName"/>; returns its id.</summary>
-    public IncidentId OpenIncident(string gridName, Incident incident, Actor actor) =>
-        Write(transaction => OpenIn(transaction, gridName, incident, actor));
+    /// <summary>Logs a new incident on version <paramref name="gridVersion"/> of the grid named <paramref name="gridName"/>; returns its id.</summary>
+    public IncidentId OpenIncident(string gridName, Incident incident, Actor actor, int gridVersion = 1) =>
+        Write(transaction => OpenIn(transaction, gridName, incident, actor, gridVersion));
 
     /// <summary>
-    /// Logs a new incident on <paramref name="grid"/>; switch states that give no radial network are refused
+    /// Logs a new incident on <paramref name="grid"/>, stored version <paramref name="gridVersion"/>; switch states that give no radial network are refused
     /// (<see cref="EvidenceNotRadialException"/>) and nothing is logged.
     /// </summary>
-    public IncidentId OpenIncident(Grid grid, Incident incident, Actor actor)
+    public IncidentId OpenIncident(Grid grid, Incident incident, Actor actor, int gridVersion = 1)
     {
         ArgumentNullException.ThrowIfNull(grid);
         return Write(transaction =>
         {
-            var id = OpenIn(transaction, grid.Name, incident, actor);
+            var id = OpenIn(transaction, grid.Name, incident, actor, gridVersion);
             RadialEvidence.Check(id, grid, incident);
             return id;
         });
@@ -101,13 +101,20 @@ public sealed class IncidentStore : IDisposable
     /// Logs an incident with its confirmed fault location and closes it, all in one transaction: the
     /// <c>record</c> command. The outcome's segment must be in <paramref name="grid"/>.
     /// </summary>
-    public IncidentId Append(Grid grid, Incident incident, OutcomeLogged outcome, Actor actor)
+    public IncidentId Append(Grid grid, Incident incident, OutcomeLogged outcome, Actor actor, int gridVersion = 1) =>
+        AppendPast(grid, incident, outcome, actor, gridVersion);
+
+    /// <summary>Logs an incident whose patrol found no fault, with that outcome, and closes it, in one transaction.</summary>
+    public IncidentId Append(Grid grid, Incident incident, NoFaultFoundLogged outcome, Actor actor, int gridVersion = 1) =>
+        AppendPast(grid, incident, outcome, actor, gridVersion);
+
+    private IncidentId AppendPast(Grid grid, Incident incident, IncidentEvent outcome, Actor actor, int gridVersion)
     {
         ArgumentNullException.ThrowIfNull(grid);
         ArgumentNullException.ThrowIfNull(outcome);
         return Write(transaction =>
         {
-            var id = OpenIn(transaction, grid.Name, incident, actor);
+            var id = OpenIn(transaction, grid.Name, incident, actor, gridVersion);
             RadialEvidence.Check(id, grid, incident);
             AppendIn(transaction, id, [outcome, new IncidentClosed()], actor, grid);
             return id;
@@ -137,6 +144,11 @@ public sealed class IncidentStore : IDisposable
         if (events.Any(e => e is MeasurementRecorded))
         {
             CheckMeasurementCount(incident, events);
+        }
+
+        if (events.Any(e => e is IncidentGridMoved))
+        {
+            CheckGridMoves(incident, events);
         }
 
         if (grid is not null && RadialEvidence.Concerns(events) && State(incident) is { } state
@@ -225,14 +237,15 @@ public sealed class IncidentStore : IDisposable
         return result;
     }
 
-    private IncidentId OpenIn(SqliteTransaction transaction, string gridName, Incident incident, Actor actor)
+    private IncidentId OpenIn(SqliteTransaction transaction, string gridName, Incident incident, Actor actor, int gridVersion)
     {
         ArgumentException.ThrowIfNullOrWhiteSpace(gridName);
+        ArgumentOutOfRangeException.ThrowIfLessThan(gridVersion, 1);
         ArgumentNullException.ThrowIfNull(incident);
         ArgumentNullException.ThrowIfNull(actor);
         var now = _clock.GetUtcNow();
         var id = EventTable.InsertIncident(_connection, transaction, gridName, incident.ReportedAt, now);
-        EventTable.InsertEvent(_connection, transaction, id, 1, now, actor, new IncidentOpened(gridName, incident));
+        EventTable.InsertEvent(_connection, transaction, id, 1, now, actor, new IncidentOpened(gridName, incident) { GridVersion = gridVersion });
         if (incident.Measurements.Length > EvidenceLimits.MaxMeasurementsPerIncident)
         {
             throw new EvidenceLimitException(id, "measurements",
@@ -281,17 +294,29 @@ public sealed class IncidentStore : IDisposable
     /// <summary>A retraction needs an outcome in force where it stands: the one logged, or one earlier in the batch.</summary>
     private void CheckRetractions(IncidentId incident, IReadOnlyList<IncidentEvent> events)
     {
-        var inForce = State(incident).Outcome is not null;
+        var inForce = State(incident).HasOutcome;
         foreach (var e in events)
         {
             if (e is OutcomeRetracted)
             {
                 inForce = inForce ? false : throw new OutcomeNotLoggedException(incident);
             }
-            else if (e is OutcomeLogged)
+            else if (e is OutcomeLogged or NoFaultFoundLogged)
             {
                 inForce = true;
             }
+        }
+    }
+
+    /// <summary>A grid move starts from the version the incident stands on where it is appended.</summary>
+    private void CheckGridMoves(IncidentId incident, IReadOnlyList<IncidentEvent> events)
+    {
+        var version = State(incident).GridVersion;
+        foreach (var move in events.OfType<IncidentGridMoved>())
+        {
+            version = move.FromVersion == version
+                ? move.ToVersion
+                : throw new InvalidOperationException($"incident {incident} stands on grid version {version}, not {move.FromVersion}: the move is refused");
         }
     }
 
@@ -331,6 +356,12 @@ public sealed class IncidentStore : IDisposable
             case IncidentReopened reopened:
                 ArgumentException.ThrowIfNullOrWhiteSpace(reopened.Reason, nameof(reopened.Reason));
                 break;
+            case IncidentGridMoved move:
+                ArgumentOutOfRangeException.ThrowIfLessThan(move.FromVersion, 1, nameof(move.FromVersion));
+                ArgumentOutOfRangeException.ThrowIfLessThan(move.ToVersion, 1, nameof(move.ToVersion));
+                ArgumentException.ThrowIfNullOrWhiteSpace(move.Reason, nameof(move.Reason));
+                CheckLength(incident, "reason", move.Reason, EvidenceLimits.MaxCauseChars);
+                break;
             case IncidentStageChanged moved when moved.Stage is IncidentStage.Open or IncidentStage.Closed || !Enum.IsDefined(moved.Stage):
                 throw new ArgumentException($"incidentStageChanged moves to located, isolated, restored or repaired, not {moved.Stage}", nameof(e));
             case PlanStepCorrected correction:
@@ -344,6 +375,13 @@ public sealed class IncidentStore : IDisposable
                 ArgumentException.ThrowIfNullOrWhiteSpace(outcome.ConfirmedSegment.Value, nameof(outcome.ConfirmedSegment));
                 CheckLength(incident, "cause", outcome.Cause, EvidenceLimits.MaxCauseChars);
                 CheckLength(incident, "notes", outcome.Notes, EvidenceLimits.MaxNoteChars);
+                break;
+            case NoFaultFoundLogged finding:
+                CheckLength(incident, "notes", finding.Notes, EvidenceLimits.MaxNoteChars);
+                break;
+            case ReturnStepCompleted back:
+                ArgumentOutOfRangeException.ThrowIfLessThan(back.Order, 1, nameof(back.Order));
+                ArgumentException.ThrowIfNullOrWhiteSpace(back.Action, nameof(back.Action));
                 break;
             case OutcomeRetracted retraction:
                 ArgumentException.ThrowIfNullOrWhiteSpace(retraction.Reason, nameof(retraction.Reason));

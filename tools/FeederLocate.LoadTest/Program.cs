@@ -57,6 +57,16 @@ internal static class LoadTestProgram
         view.SetAction(parse => ViewBench.Run(parse.GetValue(segments), parse.GetValue(viewSeed), parse.GetValue(rounds), Console.Out));
         root.Subcommands.Add(view);
 
+        var browserSegments = new Option<int>("--segments") { Description = "Segments of the generated grid", DefaultValueFactory = _ => 10_000 };
+        var browserRounds = new Option<int>("--rounds") { Description = "Rounds of opening, zooming and panning (after one warm-up)", DefaultValueFactory = _ => 5 };
+        var browserSeed = new Option<int>("--seed") { Description = "Seed of the grid and the incidents", DefaultValueFactory = _ => 1 };
+        var browser = new Command("browser", "Measures the one-line view in headless Chromium on a generated grid: opening an incident, zoom and pan steps")
+        {
+            browserSegments, browserRounds, browserSeed,
+        };
+        browser.SetAction((parse, _) => BrowserBench.RunAsync(parse.GetValue(browserSegments), parse.GetValue(browserSeed), parse.GetValue(browserRounds), Console.Out));
+        root.Subcommands.Add(browser);
+
         return await root.Parse(args).InvokeAsync();
     }
 }

@@ -35,6 +35,7 @@ internal static class ViewBench
         var simulator = new IncidentSimulator(loaded.Graph, new SimulationSettings());
         var random = new Random(seed);
         var opens = new List<double>();
+        var rankings = new List<double>();
         var firstViews = new List<double>();
         var steps = new List<double>();
         var zoomSteps = new List<double>();
@@ -44,6 +45,7 @@ internal static class ViewBench
             var incident = simulator.Next(random, n).Incident;
             clock.Restart();
             var ranking = FaultRanking.Rank(loaded.Graph, incident);
+            var rankedOnly = clock.Elapsed.TotalMilliseconds;
             SwitchingPlanner.TryPlan(loaded.Graph, incident, ranking, out _, out _);
             var probability = ranking.Sections.ToDictionary(s => s.Id, s => s.Probability);
             var ranked = clock.Elapsed.TotalMilliseconds;
@@ -78,6 +80,7 @@ internal static class ViewBench
             if (n > 0)
             {
                 opens.Add(ranked);
+                rankings.Add(rankedOnly);
                 firstViews.Add(firstView);
             }
         }
@@ -91,6 +94,7 @@ internal static class ViewBench
         output.WriteLine(string.Create(CultureInfo.InvariantCulture,
             $"grid: {grid.Segments.Length:#,0} segments, {grid.Switches.Length:#,0} switches, {grid.Indicators.Length:#,0} indicators; drawing {loaded.Drawing.Width:#,0} × {loaded.Drawing.Height:#,0} units, {loaded.Drawing.Labels.Length:#,0} labels (generated in {generated:0} ms)"));
         output.WriteLine(string.Create(CultureInfo.InvariantCulture, $"load the grid (graph, sections, names, layout, labels): {load:0} ms, once per grid"));
+        output.WriteLine($"open an incident, ranking alone ({rounds} simulated incidents): {Ms(rankings)}");
         output.WriteLine($"open an incident, ranking and switching order ({rounds} simulated incidents): {Ms(opens)}");
         output.WriteLine($"open an incident, first view on the suspects: {Ms(firstViews)}");
         output.WriteLine($"zoom step (button): {Ms(zoomSteps)}");

@@ -64,13 +64,36 @@ public sealed class IncidentAnalysis
             : new PlanAttempt(null, ranking.Problem);
     }
 
-    /// <summary>The return to normal after the repair, from the state the incident's plan leaves.</summary>
+    /// <summary>
+    /// The incident's return to normal: from the switch positions as carried out before the return
+    /// (<see cref="Switching.IncidentSwitching.BeforeReturn"/>), with the clearance of the present plan's earths and
+    /// locks that were ticked as put on. It does not change while its own steps are ticked, so their numbers hold.
+    /// </summary>
     public async Task<ReturnAttempt> ReturnAsync(NetworkGraph graph, IncidentState state)
     {
+        ArgumentNullException.ThrowIfNull(graph);
+        ArgumentNullException.ThrowIfNull(state);
         var plan = await PlanAsync(graph, state).ConfigureAwait(false);
-        return plan.Plan is { } found
-            ? await Task.Run(() => EvidenceAnalysis.Return(graph, state.Incident, found)).ConfigureAwait(false)
-            : new ReturnAttempt(null, plan.Problem);
+        var start = Switching.IncidentSwitching.BeforeReturn(graph.Grid, state);
+        // The clearance takes off only the earths and locks whose steps were ticked as put on.
+        var placed = plan.Plan is { } found
+            ? found with
+            {
+                Steps = [.. found.Steps.Where(s => s.Action is not (Core.Switching.StepAction.Earth or Core.Switching.StepAction.Lock)
+                    || state.CompletedSteps.Any(d => d.Step.Order == s.Order && d.Step.Action == Switching.CheckedSwitching.ActionName(s.Action)))],
+            }
+            : null;
+        return await Task.Run(() =>
+        {
+            try
+            {
+                return new ReturnAttempt(Core.Switching.SwitchingPlanner.PlanReturnFrom(graph, start, placed), null);
+            }
+            catch (Core.Switching.PlanningException e)
+            {
+                return new ReturnAttempt(null, e.Message);
+            }
+        }).ConfigureAwait(false);
     }
 
     /// <summary>The ranking and the plan of a logged incident together.</summary>
@@ -87,7 +110,7 @@ public sealed class IncidentAnalysis
         ArgumentNullException.ThrowIfNull(graph);
         ArgumentNullException.ThrowIfNull(state);
         var outcomes = _learning.Outcomes(graph);
-        return (new AnalysisKey(graph, state.Id, Math.Max(state.LastEvent.Value, outcomes.Through)), outcomes);
+        return (new AnalysisKey(graph, state.GridVersion, state.Id, Math.Max(state.LastEvent.Value, outcomes.Through)), outcomes);
     }
 
     private async Task<RankingAttempt> RankAsync(AnalysisKey key, NetworkGraph graph, IncidentState state, GridOutcomes outcomes) =>
@@ -102,6 +125,9 @@ public sealed class IncidentAnalysis
                 : new PlanAttempt(null, ranking.Problem);
         }).ConfigureAwait(false);
 
-    /// <summary>The grid (as loaded: a reloaded grid is a new key), the incident, and the last event among the inputs.</summary>
-    private readonly record struct AnalysisKey(NetworkGraph Graph, IncidentId Incident, long InputsThrough);
+    /// <summary>
+    /// The grid (as read: each stored version is its own graph), the version the incident is pinned to, the
+    /// incident, and the last event among the inputs (a move to another version is an event too).
+    /// </summary>
+    private readonly record struct AnalysisKey(NetworkGraph Graph, int GridVersion, IncidentId Incident, long InputsThrough);
 }

@@ -1,5 +1,6 @@
 using System.Text.Json;
 using FeederLocate.Application.Incidents;
+using FeederLocate.Core.Evidence;
 using FeederLocate.Core.Formats;
 using FeederLocate.Core.Model;
 using FeederLocate.Storage.Events;
@@ -51,6 +52,23 @@ public sealed class EvidenceIntake(IncidentLog log, TimeProvider? clock = null)
         var marked = state.Incident.Indications.Where(i => i.Distrusted).Select(i => i.Indicator).ToHashSet();
         return Add(incident, grid, actor, read, i =>
             new IndicationEntered(silent.Contains(i.Indicator.Value) && marked.Contains(i.Indicator) ? i with { Distrusted = true } : i));
+    }
+
+    /// <summary>
+    /// One reading entered on a page (the desk or the field page), its time as given: refused with the reason when
+    /// that time is in the future or before the fault began; else logged. Null when logged.
+    /// </summary>
+    public string? Enter(IncidentId incident, Grid grid, Indication indication, Actor actor)
+    {
+        ArgumentNullException.ThrowIfNull(indication);
+        var state = log.State(incident);
+        if (indication.ReadAt is { } at && Times.EventTimes.Problem($"the reading of {indication.Indicator} at", at, state, _clock.GetUtcNow()) is { } problem)
+        {
+            return problem;
+        }
+
+        log.Append(incident, new IndicationEntered(indication), actor, grid);
+        return null;
     }
 
     /// <summary>The indicators of the items (already read without errors) that do not mention <c>suspect</c>.</summary>

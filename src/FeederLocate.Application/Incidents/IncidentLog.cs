@@ -15,15 +15,25 @@ namespace FeederLocate.Application.Incidents;
 public class IncidentLog : IDisposable
 {
     private readonly IncidentStore _store;
-    private readonly Func<string, Grid?> _gridNamed;
+    private readonly Func<string, int, Grid?> _gridVersion;
     private readonly Lock _gate = new();
 
     /// <param name="gridNamed">The loaded grid of a name, if any: every change is checked against it (its elements, radial switch states).</param>
     public IncidentLog(IncidentStore store, Func<string, Grid?>? gridNamed = null)
+        : this(store, gridNamed is null ? (_, _) => null : (name, _) => gridNamed(name))
+    {
+    }
+
+    /// <param name="gridVersion">
+    /// The stored version of a grid (name, version), if any: every change to an incident is checked against the
+    /// version it is pinned to (its elements, radial switch states).
+    /// </param>
+    public IncidentLog(IncidentStore store, Func<string, int, Grid?> gridVersion)
     {
         ArgumentNullException.ThrowIfNull(store);
+        ArgumentNullException.ThrowIfNull(gridVersion);
         _store = store;
-        _gridNamed = gridNamed ?? (_ => null);
+        _gridVersion = gridVersion;
     }
 
     /// <summary>The database file.</summary>
@@ -85,14 +95,17 @@ public class IncidentLog : IDisposable
         }
     }
 
-    /// <summary>Opens an incident as given in the incident format; switch states that give no radial network are refused.</summary>
-    public IncidentId Open(Grid grid, Incident incident, Actor actor)
+    /// <summary>
+    /// Opens an incident as given in the incident format on stored version <paramref name="gridVersion"/> of
+    /// <paramref name="grid"/>, which it stays pinned to; switch states that give no radial network are refused.
+    /// </summary>
+    public IncidentId Open(Grid grid, Incident incident, Actor actor, int gridVersion = 1)
     {
         ArgumentNullException.ThrowIfNull(grid);
         IncidentId id;
         lock (_gate)
         {
-            id = _store.OpenIncident(grid, incident, actor);
+            id = _store.OpenIncident(grid, incident, actor, gridVersion);
         }
 
         Changed?.Invoke(id);
@@ -100,8 +113,21 @@ public class IncidentLog : IDisposable
     }
 
     /// <summary>Opens an incident from the substation's first report: the tripped device (none for a standing earth fault) and the fault type.</summary>
-    public IncidentId Open(Grid grid, SwitchId? trippedDevice, FaultType? faultType, DateTimeOffset reportedAt, Actor actor) =>
-        Open(grid, new Incident(reportedAt, null, ImmutableDictionary<SwitchId, SwitchPosition>.Empty, trippedDevice, faultType, [], []), actor);
+    public IncidentId Open(Grid grid, SwitchId? trippedDevice, FaultType? faultType, DateTimeOffset reportedAt, Actor actor, int gridVersion = 1) =>
+        Open(grid, new Incident(reportedAt, null, ImmutableDictionary<SwitchId, SwitchPosition>.Empty, trippedDevice, faultType, [], []), actor, gridVersion);
+
+    /// <summary>Logs a past incident whose patrol found no fault, with that outcome, and closes it, in one transaction.</summary>
+    public IncidentId Append(Grid grid, Incident incident, NoFaultFoundLogged outcome, Actor actor)
+    {
+        IncidentId id;
+        lock (_gate)
+        {
+            id = _store.Append(grid, incident, outcome, actor);
+        }
+
+        Changed?.Invoke(id);
+        return id;
+    }
 
     /// <summary>Logs a past incident with where its fault was confirmed, and closes it, in one transaction.</summary>
     public IncidentId Append(Grid grid, Incident incident, OutcomeLogged outcome, Actor actor)
@@ -120,14 +146,15 @@ public class IncidentLog : IDisposable
     public void Append(IncidentId id, IncidentEvent change, Actor actor, Grid? grid = null) => AppendAll(id, [change], actor, grid);
 
     /// <summary>
-    /// Appends every change in one transaction (all or none), checked against the grid given or else the loaded
-    /// grid of the incident's name: its elements, and switch states that give a radial network.
+    /// Appends every change in one transaction (all or none), checked against the grid given or else the stored
+    /// version of its grid the incident is pinned to: its elements, and switch states that give a radial network.
     /// </summary>
     public void AppendAll(IncidentId id, IReadOnlyList<IncidentEvent> changes, Actor actor, Grid? grid = null)
     {
         lock (_gate)
         {
-            _store.Append(id, changes, actor, grid ?? _gridNamed(_store.State(id).GridName));
+            var state = _store.State(id);
+            _store.Append(id, changes, actor, grid ?? _gridVersion(state.GridName, state.GridVersion));
         }
 
         Changed?.Invoke(id);

@@ -1,3 +1,4 @@
+using FeederLocate.Application.Analysis;
 using FeederLocate.Application.Incidents;
 using FeederLocate.Application.Switching;
 using FeederLocate.Core.Evidence;
@@ -10,11 +11,11 @@ namespace FeederLocate.Application.Lifecycle;
 
 /// <summary>
 /// An incident from the first report to its closing: it moves on through located, isolated, restored and
-/// repaired (never back); it closes once its outcome is logged and every switch is back in its normal
-/// position (the return to normal); a closed incident changes no more unless an engineer reopens it with a
+/// repaired (never back); the outcome leads to the return to normal, the incident's own switching order
+/// (<see cref="ReturnSwitching"/>); it closes once its outcome is logged and the return is carried out; a closed incident changes no more unless an engineer reopens it with a
 /// reason. Every move is logged with who and when; a refusal says why and logs nothing.
 /// </summary>
-public sealed class IncidentLifecycle(IncidentLog log)
+public sealed class IncidentLifecycle(IncidentLog log, IncidentAnalysis analysis)
 {
     /// <summary>Moves the incident on to <paramref name="stage"/> (located, isolated, restored or repaired).</summary>
     public StepDecision MoveTo(IncidentId id, IncidentStage stage, Actor actor)
@@ -46,42 +47,13 @@ public sealed class IncidentLifecycle(IncidentLog log)
         return [.. now.Deviations().OrderBy(d => d.Key.Value, StringComparer.Ordinal).Select(d => (d.Key, d.Value, normal.PositionOf(d.Key)))];
     }
 
-    /// <summary>The reason logged with each operation of the return to normal.</summary>
-    public const string ReturnToNormalReason = "return to normal";
-
     /// <summary>
-    /// Puts <paramref name="device"/> back in its normal position, once the incident is repaired; refused when
-    /// that would close a loop or parallel two substations (open the other device first). Logged as switching
-    /// outside the fault's order, with the reason <see cref="ReturnToNormalReason"/>.
+    /// Closes the incident: its outcome logged (a confirmed segment or no fault found), every step of the return
+    /// order ticked and every switch back in its normal position.
     /// </summary>
-    public StepDecision ReturnToNormal(NetworkGraph graph, IncidentId id, SwitchId device, Actor actor)
+    public async Task<StepDecision> CloseAsync(NetworkGraph graph, IncidentId id, string? note, Actor actor)
     {
         ArgumentNullException.ThrowIfNull(graph);
-        ArgumentNullException.ThrowIfNull(actor);
-        var state = log.State(id);
-        var off = OffNormal(graph.Grid, state).Where(d => d.Device == device).ToList();
-        var refusal = state.Status == IncidentStatus.Closed ? $"incident {id} is closed"
-            : state.Stage < IncidentStage.Repaired ? "the return to normal follows the repair: move the incident to repaired first"
-            : off.Count == 0 ? $"{device} is in its normal position"
-            : null;
-        if (refusal is null && !RadialCheck.Of(graph, IncidentSwitching.Current(graph.Grid, state).With(device, off[0].Normal)).IsRadial)
-        {
-            refusal = $"putting {device} back {Word(off[0].Normal)} would close a loop or parallel two substations: open the other device first";
-        }
-
-        if (refusal is not null)
-        {
-            return StepDecision.Refused(refusal);
-        }
-
-        log.Append(id, new SwitchingDeviationRecorded(device, off[0].Normal, ReturnToNormalReason), actor, graph.Grid);
-        return StepDecision.Logged;
-    }
-
-    /// <summary>Closes the incident: its outcome logged and every switch back in its normal position.</summary>
-    public StepDecision Close(Grid grid, IncidentId id, string? note, Actor actor)
-    {
-        ArgumentNullException.ThrowIfNull(grid);
         ArgumentNullException.ThrowIfNull(actor);
         var state = log.State(id);
         if (state.Status == IncidentStatus.Closed)
@@ -89,18 +61,24 @@ public sealed class IncidentLifecycle(IncidentLog log)
             return StepDecision.Refused($"incident {id} is already closed");
         }
 
-        if (state.Outcome is null)
+        if (!state.HasOutcome)
         {
             return StepDecision.Refused($"log the outcome of incident {id} before closing it");
         }
 
-        var off = OffNormal(grid, state);
+        if ((await analysis.ReturnAsync(graph, state).ConfigureAwait(false)).Plan is { } back
+            && ReturnSwitching.Remaining(state, back) is { Count: > 0 } left)
+        {
+            return StepDecision.Refused("carry out the return to normal first: step " + string.Join(", ", left.Select(s => s.Order)) + " not ticked");
+        }
+
+        var off = OffNormal(graph.Grid, state);
         if (off.Count > 0)
         {
             return StepDecision.Refused("return to normal first: " + string.Join("; ", off.Select(d => $"{d.Device} is {Word(d.Now)}, normally {Word(d.Normal)}")));
         }
 
-        log.Append(id, new IncidentClosed(string.IsNullOrWhiteSpace(note) ? null : note.Trim()), actor, grid);
+        log.Append(id, new IncidentClosed(string.IsNullOrWhiteSpace(note) ? null : note.Trim()), actor, graph.Grid);
         return StepDecision.Logged;
     }
 

@@ -181,6 +181,7 @@ public sealed class CheckedSwitching(IncidentLog log, IncidentAnalysis analysis,
     public static string ActionName(StepAction action) => action switch
     {
         StepAction.ProveDead => "proveDead",
+        StepAction.RemoveEarth => "removeEarth",
         _ => action.ToString().ToLowerInvariant(),
     };
 

@@ -39,7 +39,7 @@ internal static class HistoryCommands
                 JsonOutput.Write(console.Out, incidents.Select(i => new
                 {
                     id = i.Id.Value, grid = i.GridName, reportedAt = i.ReportedAt, status = i.Status.ToString(),
-                    faultType = i.FaultType?.ToString(), confirmedSegment = i.ConfirmedSegment?.Value, cause = i.Cause, events = i.EventCount,
+                    faultType = i.FaultType?.ToString(), confirmedSegment = i.ConfirmedSegment?.Value, noFaultFound = i.NoFaultFound, transient = i.Transient, cause = i.Cause, events = i.EventCount,
                 }));
                 return CliApp.Success;
             }
@@ -48,7 +48,7 @@ internal static class HistoryCommands
             foreach (var i in incidents)
             {
                 table.AddRow(i.Id.ToString(), i.GridName, i.ReportedAt.ToString("yyyy-MM-dd HH:mm", CultureInfo.InvariantCulture), i.Status.ToString(),
-                    i.FaultType?.ToString() ?? "unknown", i.ConfirmedSegment?.Value ?? "–", i.Cause ?? string.Empty, i.EventCount.ToString(CultureInfo.InvariantCulture));
+                    i.FaultType?.ToString() ?? "unknown", i.ConfirmedSegment?.Value ?? (i.NoFaultFound ? (i.Transient ? "none found (transient)" : "none found") : "–"), i.Cause ?? string.Empty, i.EventCount.ToString(CultureInfo.InvariantCulture));
             }
 
             TableOutput.Write(console.Out, table);

@@ -97,6 +97,11 @@ internal static class GridChecks
     /// </summary>
     public static void NormalTopology(Grid grid, IssueLog log)
     {
+        if (grid.Nodes.IsEmpty)
+        {
+            log.Warning("grid", grid.Name, "nodes", "is empty: there is nothing to locate a fault on, and the one-line view has nothing to draw");
+        }
+
         var graph = new NetworkGraph(grid);
         var check = RadialCheck.Of(graph, SwitchStates.Normal(grid));
         foreach (var loop in check.Loops)

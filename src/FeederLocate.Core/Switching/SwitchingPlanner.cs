@@ -212,6 +212,20 @@ public static class SwitchingPlanner
         return ReturnToNormal.Plan(graph, incident, plan, options);
     }
 
+    /// <summary>
+    /// The return to normal from the switch positions <paramref name="states"/> as carried out (not as planned):
+    /// the clearance of <paramref name="plan"/>'s earths and locks (none when null), then every device back to its
+    /// normal position. Throws <see cref="PlanningException"/> where no safe order exists.
+    /// </summary>
+    public static ReturnPlan PlanReturnFrom(NetworkGraph graph, SwitchStates states, SwitchingPlan? plan, SwitchingOptions? options = null)
+    {
+        ArgumentNullException.ThrowIfNull(graph);
+        ArgumentNullException.ThrowIfNull(states);
+        options ??= SwitchingOptions.Default;
+        options.Validate();
+        return ReturnToNormal.From(graph, states, plan, options);
+    }
+
     /// <summary>Plans for the ranking's most likely section, or says why it cannot.</summary>
     public static bool TryPlan(NetworkGraph graph, Incident incident, RankingResult ranking, [NotNullWhen(true)] out SwitchingPlan? plan, [NotNullWhen(false)] out string? problem, SwitchingOptions? options = null)
     {

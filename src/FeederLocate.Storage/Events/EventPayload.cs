@@ -30,6 +30,9 @@ internal static class EventPayload
     public const string IncidentTimesEnteredKind = "incidentTimesEntered";
     public const string IncidentStageChangedKind = "incidentStageChanged";
     public const string IncidentReopenedKind = "incidentReopened";
+    public const string NoFaultFoundLoggedKind = "noFaultFoundLogged";
+    public const string ReturnStepCompletedKind = "returnStepCompleted";
+    public const string IncidentGridMovedKind = "incidentGridMoved";
 
     // Required constructor parameters and nullable annotations are enforced, so a payload missing a
     // non-optional field fails to read instead of yielding nulls; optional fields have defaults.
@@ -59,6 +62,9 @@ internal static class EventPayload
         IncidentTimesEntered => IncidentTimesEnteredKind,
         IncidentStageChanged => IncidentStageChangedKind,
         IncidentReopened => IncidentReopenedKind,
+        NoFaultFoundLogged => NoFaultFoundLoggedKind,
+        ReturnStepCompleted => ReturnStepCompletedKind,
+        IncidentGridMoved => IncidentGridMovedKind,
         _ => throw new ArgumentException($"unknown event type {e.GetType().Name}", nameof(e)),
     };
 
@@ -67,7 +73,7 @@ internal static class EventPayload
         ArgumentNullException.ThrowIfNull(e);
         object payload = e switch
         {
-            IncidentOpened o => new OpenedPayload(o.GridName, IncidentWriter.Write(o.Incident), IsoTime.Format(o.ReportedAt)),
+            IncidentOpened o => new OpenedPayload(o.GridName, IncidentWriter.Write(o.Incident), IsoTime.Format(o.ReportedAt), o.GridVersion),
             IndicationEntered { Indication: var i } => new IndicationPayload(
                 i.Indicator.Value, IncidentFormat.Name(i.State), IncidentFormat.Name(i.Source),
                 i.ReadAt is { } readAt ? IsoTime.Format(readAt) : null, i.Distrusted),
@@ -86,6 +92,9 @@ internal static class EventPayload
             IncidentTimesEntered t => new TimesPayload(t.FaultAt, t.TrippedAt, t.ReclosedAt),
             IncidentStageChanged c => new StagePayload(Incidents.IncidentStages.Name(c.Stage)),
             IncidentReopened r => new ReopenedPayload(r.Reason),
+            NoFaultFoundLogged n => new NoFaultFoundPayload(n.Transient, n.FaultType is { } t ? IncidentFormat.Name(t) : null, n.Notes),
+            ReturnStepCompleted r => new ReturnStepPayload(r.Order, r.Action, r.Device, r.DoneAt),
+            IncidentGridMoved m => new GridMovedPayload(m.FromVersion, m.ToVersion, m.Reason),
             _ => throw new ArgumentException($"unknown event type {e.GetType().Name}", nameof(e)),
         };
         return JsonSerializer.Serialize(payload, payload.GetType(), Options);
@@ -113,6 +122,9 @@ internal static class EventPayload
                 IncidentTimesEnteredKind => Read<TimesPayload>(json).ToEvent(),
                 IncidentStageChangedKind => Read<StagePayload>(json).ToEvent(id),
                 IncidentReopenedKind => new IncidentReopened(Read<ReopenedPayload>(json).Reason),
+                NoFaultFoundLoggedKind => Read<NoFaultFoundPayload>(json).ToEvent(id),
+                ReturnStepCompletedKind => Read<ReturnStepPayload>(json).ToEvent(),
+                IncidentGridMovedKind => Read<GridMovedPayload>(json).ToEvent(id),
                 _ => throw new CorruptEventException(id, $"has unknown kind \"{kind}\""),
             };
         }
@@ -137,7 +149,9 @@ internal static class EventPayload
             throw new CorruptEventException(id, "holds an incident that does not read back: " + string.Join("; ", read.Errors));
         }
 
-        return new IncidentOpened(payload.GridName, incident);
+        return payload.GridVersion is null or >= 1
+            ? new IncidentOpened(payload.GridName, incident) { GridVersion = payload.GridVersion ?? 1 }
+            : throw new CorruptEventException(id, $"has gridVersion {payload.GridVersion}; versions are numbered from 1");
     }
 
     private static IndicationEntered Indication(EventId id, IndicationPayload payload)
@@ -186,7 +200,15 @@ internal static class EventPayload
 
     private sealed record ProtectionPayload(string Protection);
 
-    private sealed record OpenedPayload(string GridName, string Incident, string ReportedAt);
+    // Logs written before grid versions have no gridVersion: their incidents are on version 1 of their grid.
+    private sealed record OpenedPayload(string GridName, string Incident, string ReportedAt, int? GridVersion = null);
+
+    private sealed record GridMovedPayload(int FromVersion, int ToVersion, string Reason)
+    {
+        public IncidentGridMoved ToEvent(EventId id) => FromVersion >= 1 && ToVersion >= 1
+            ? new IncidentGridMoved(FromVersion, ToVersion, Reason)
+            : throw new CorruptEventException(id, $"moves from version {FromVersion} to {ToVersion}; versions are numbered from 1");
+    }
 
     // The stored field keeps the format's name `suspect` for the operator's distrust mark.
     private sealed record IndicationPayload(string Indicator, string State, string Source, string? ReadAt = null, bool Suspect = false);
@@ -216,6 +238,17 @@ internal static class EventPayload
     }
 
     private sealed record ReopenedPayload(string Reason);
+
+    private sealed record NoFaultFoundPayload(bool Transient, string? FaultType = null, string? Notes = null)
+    {
+        public NoFaultFoundLogged ToEvent(EventId id) =>
+            new(Transient, FaultType is null ? null : Choice(id, "faultType", FaultType, IncidentFormat.FaultTypes), Notes);
+    }
+
+    private sealed record ReturnStepPayload(int Order, string Action, string? Device = null, DateTimeOffset? DoneAt = null)
+    {
+        public ReturnStepCompleted ToEvent() => new(Order, Action, Device, DoneAt);
+    }
 
     private sealed record TimesPayload(DateTimeOffset? FaultAt = null, DateTimeOffset? TrippedAt = null, DateTimeOffset? ReclosedAt = null)
     {

@@ -10,8 +10,8 @@ namespace FeederLocate.Storage.Incidents;
 /// Adds up an incident's events, in sequence order, into its <see cref="IncidentState"/>:
 /// an indication replaces the earlier one of the same indicator where it stood in the list (new indicators go
 /// last); a measurement's given values replace those of the same device; a switch state replaces the earlier
-/// one; the latest outcome is in force until retracted; plan steps accumulate, a correction withdraws the latest tick of its step, a deviation
-/// sets the positions switched so far as the start of a new plan (its ticks move to the earlier steps); incidentClosed closes, and only a retraction or incidentReopened may follow it; each stage change is kept with who and when.
+/// one; the latest outcome (a confirmed segment or no fault found) is in force until retracted; return-to-normal steps accumulate apart from the plan's; plan steps accumulate, a correction withdraws the latest tick of its step, a deviation
+/// sets the positions switched so far as the start of a new plan (its ticks move to the earlier steps); incidentClosed closes, and only a retraction or incidentReopened may follow it; each stage change is kept with who and when; a grid move re-pins the incident to another version of its grid (one that does not start from the version in force is quarantined).
 /// An event that cannot be read, or cannot apply where it stands, is quarantined:
 /// left out and named in <see cref="IncidentState.Quarantined"/>, never a reason to refuse the rest.
 /// </summary>
@@ -33,6 +33,7 @@ internal static class IncidentFold
         var start = new IncidentState(first.Incident, opened.GridName, opened.Incident, IncidentStatus.Open, [], null, first.Actor, first.Time, null, 1)
         {
             LastEvent = first.Id,
+            GridVersion = opened.GridVersion,
             Stages = [new StageChange(IncidentStage.Open, first.Actor, first.Time)],
         };
         return Continue(start, events, 1);
@@ -61,6 +62,10 @@ internal static class IncidentFold
         var times = state.Times;
         var stages = state.Stages.ToBuilder();
         var entries = state.IndicationEntries.ToBuilder();
+        var noFault = state.NoFaultFound;
+        var returnSteps = state.ReturnSteps.ToBuilder();
+        var gridVersion = state.GridVersion;
+        var gridMoves = state.GridMoves.ToBuilder();
 
         for (var index = from; index < events.Count; index++)
         {
@@ -130,7 +135,7 @@ internal static class IncidentFold
 
                     break;
                 case SwitchingDeviationRecorded deviation:
-                    foreach (var done in steps)
+                    foreach (var done in steps.Concat(returnSteps))
                     {
                         if (done.Step is { Device: { } device, Action: "open" or "close" })
                         {
@@ -140,7 +145,9 @@ internal static class IncidentFold
 
                     switched[deviation.Switch] = deviation.Position;
                     earlier.AddRange(steps);
+                    earlier.AddRange(returnSteps);
                     steps.Clear();
+                    returnSteps.Clear();
                     deviations.Add(new RecordedDeviation(deviation, stored.Actor, stored.Time));
                     break;
                 case PlanStepCompleted step:
@@ -148,6 +155,14 @@ internal static class IncidentFold
                     break;
                 case OutcomeLogged logged:
                     outcome = new OutcomeInForce(logged, stored.Actor, stored.Time);
+                    noFault = null;
+                    break;
+                case NoFaultFoundLogged finding:
+                    noFault = new NoFaultFoundInForce(finding, stored.Actor, stored.Time);
+                    outcome = null;
+                    break;
+                case ReturnStepCompleted back:
+                    returnSteps.Add(new CompletedPlanStep(new PlanStepCompleted(back.Order, back.Action, back.Device, null, back.DoneAt), stored.Actor, stored.Time));
                     break;
                 case IncidentClosed closed:
                     closedAt = stored.Time;
@@ -160,6 +175,14 @@ internal static class IncidentFold
                     var before = stages.Count >= 2 ? stages[^2].Stage : IncidentStage.Open;
                     stages.Add(new StageChange(before == IncidentStage.Closed ? IncidentStage.Open : before, stored.Actor, stored.Time, reopened.Reason));
                     break;
+                case IncidentGridMoved move when move.FromVersion != gridVersion:
+                    quarantined.Add(new QuarantinedEvent(stored.Id, stored.Incident, stored.Sequence, stored.Kind,
+                        $"moves incident {stored.Incident} from grid version {move.FromVersion}, but it stands on version {gridVersion}"));
+                    break;
+                case IncidentGridMoved move:
+                    gridVersion = move.ToVersion;
+                    gridMoves.Add(new GridMove(move.FromVersion, move.ToVersion, move.Reason, stored.Actor, stored.Time));
+                    break;
                 case IncidentStageChanged moved:
                     stages.Add(new StageChange(moved.Stage, stored.Actor, stored.Time));
                     break;
@@ -171,6 +194,7 @@ internal static class IncidentFold
                     break;
                 case OutcomeRetracted:
                     outcome = null;
+                    noFault = null;
                     break;
                 case IncidentOpened:
                     quarantined.Add(new QuarantinedEvent(stored.Id, stored.Incident, stored.Sequence, stored.Kind, $"opens incident {stored.Incident} a second time"));
@@ -200,6 +224,10 @@ internal static class IncidentFold
             Times = times,
             Stages = stages.ToImmutable(),
             IndicationEntries = entries.ToImmutable(),
+            NoFaultFound = noFault,
+            ReturnSteps = returnSteps.ToImmutable(),
+            GridVersion = gridVersion,
+            GridMoves = gridMoves.ToImmutable(),
             EventCount = state.EventCount + Math.Max(0, events.Count - from),
             Quarantined = quarantined.ToImmutable(),
             LastEvent = events.Count > from ? events[^1].Id : state.LastEvent,

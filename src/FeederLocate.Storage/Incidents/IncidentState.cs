@@ -62,6 +62,23 @@ public sealed record IncidentState(
     /// <summary>Where the incident stands now.</summary>
     public IncidentStage Stage => Stages.IsEmpty ? IncidentStage.Open : Stages[^1].Stage;
 
+    /// <summary>The no-fault-found outcome in force; null when none is (then <see cref="Outcome"/> may be).</summary>
+    public NoFaultFoundInForce? NoFaultFound { get; init; }
+
+    /// <summary>True when an outcome is in force: a confirmed segment or no fault found.</summary>
+    public bool HasOutcome => Outcome is not null || NoFaultFound is not null;
+
+    /// <summary>Steps of the return to normal carried out, in the order ticked (apart from <see cref="CompletedSteps"/>).</summary>
+    public ImmutableArray<CompletedPlanStep> ReturnSteps { get; init; } = [];
+    /// <summary>
+    /// The version of its grid the incident is pinned to: the one it was opened on, or the one an engineer last
+    /// moved it to. Its ranking and plan are made on that version, whatever newer versions were loaded since.
+    /// </summary>
+    public int GridVersion { get; init; } = 1;
+
+    /// <summary>Every move to another grid version, with who, when and why, in the order logged.</summary>
+    public ImmutableArray<GridMove> GridMoves { get; init; } = [];
+
     /// <summary>The fault, trip and reclosure times as entered.</summary>
     public IncidentTimes Times { get; init; } = IncidentTimes.None;
 

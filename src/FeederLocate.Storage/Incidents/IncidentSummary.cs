@@ -25,16 +25,25 @@ public sealed record IncidentSummary(
             state.GridName,
             state.ReportedAt,
             state.Status,
-            outcome?.FaultType ?? state.Incident.FaultType,
+            outcome?.FaultType ?? state.NoFaultFound?.Finding.FaultType ?? state.Incident.FaultType,
             outcome?.ConfirmedSegment,
             outcome?.Cause,
             outcome?.Notes,
             state.EventCount)
         {
             Stage = state.Stage,
+            NoFaultFound = state.NoFaultFound is not null,
+            Transient = state.NoFaultFound?.Finding.Transient ?? false,
+            Notes = outcome?.Notes ?? state.NoFaultFound?.Finding.Notes,
         };
     }
 
     /// <summary>Where the incident stands (open when the summary was made without its stages).</summary>
     public IncidentStage Stage { get; init; }
+
+    /// <summary>True when the outcome in force is no fault found: no segment is confirmed.</summary>
+    public bool NoFaultFound { get; init; }
+
+    /// <summary>Of a no-fault-found outcome: the fault cleared by itself.</summary>
+    public bool Transient { get; init; }
 }

@@ -11,6 +11,8 @@ using FeederLocate.Storage.Errors;
 using FeederLocate.Storage.Events;
 using FeederLocate.Storage.Incidents;
 using System.Security.Claims;
+using FeederLocate.Application.Lifecycle;
+using FeederLocate.Core.Topology;
 using FeederLocate.Web.Security;
 using FeederLocate.Web.Services;
 using Microsoft.AspNetCore.Mvc;
@@ -31,7 +33,7 @@ public static class IncidentApi
         var api = app.MapGroup("/api").WithTags("FeederLocate").WithMetadata(new RequestSizeLimitAttribute(MaximumBodyBytes))
             .RequireAuthorization(AccessPolicies.ApiRead);
         api.MapGet("/grids", (ClaimsPrincipal user, GridCatalog grids) => grids.VisibleTo(user).Select(g => new GridEntry(
-            g.Name, g.Key, g.Grid.Substations.Length, g.Grid.Segments.Length, g.Graph.Sections.All.Length, g.Grid.Indicators.Length)));
+            g.Name, g.Key, g.Grid.Substations.Length, g.Grid.Segments.Length, g.Graph.Sections.All.Length, g.Grid.Indicators.Length, g.Version)));
         api.MapGet("/incidents", (ClaimsPrincipal user, IncidentBoard board) =>
             board.List().Where(i => AccountClaims.MaySee(user, i.GridName)).Select(IncidentEntry.Of));
         api.MapPost("/incidents", OpenIncident).RequireAuthorization(AccessPolicies.ApiWrite);
@@ -42,7 +44,7 @@ public static class IncidentApi
         api.MapPost("/incidents/{id:long}/measurements", (long id, ClaimsPrincipal user, HttpRequest request, IncidentBoard board, GridCatalog grids, EvidenceIntake intake) =>
             PostEvidence(id, user, request, board, grids, "measurements", intake.AddMeasurements)).RequireAuthorization(AccessPolicies.ApiWrite);
         api.MapGet("/incidents/{id:long}/switches", (long id, ClaimsPrincipal user, IncidentBoard board, GridCatalog grids) =>
-            WithIncident(board, user, id, state => grids.Find(state.GridName) is not { } grid
+            WithIncident(board, user, id, state => grids.For(state) is not { } grid
                 ? GridNotLoaded(id, state)
                 : Results.Ok(SwitchEntry.Of(grid.Grid, IncidentSwitching.Current(grid.Grid, state)))));
         api.MapPost("/incidents/{id:long}/protection", (long id, ClaimsPrincipal user, HttpRequest request, IncidentBoard board, GridCatalog grids, TimeProvider clock) =>
@@ -50,7 +52,7 @@ public static class IncidentApi
         api.MapGet("/incidents/{id:long}/ranking", (long id, ClaimsPrincipal user, IncidentBoard board, GridCatalog grids, IncidentAnalysis analysis) =>
             WithIncidentAsync(board, user, id, async state =>
             {
-                if (grids.Find(state.GridName) is not { } grid)
+                if (grids.For(state) is not { } grid)
                 {
                     return GridNotLoaded(id, state);
                 }
@@ -63,7 +65,7 @@ public static class IncidentApi
         api.MapGet("/incidents/{id:long}/plan", (long id, string? section, ClaimsPrincipal user, IncidentBoard board, GridCatalog grids, IncidentAnalysis analysis) =>
             WithIncidentAsync(board, user, id, async state =>
             {
-                if (grids.Find(state.GridName) is not { } grid)
+                if (grids.For(state) is not { } grid)
                 {
                     return GridNotLoaded(id, state);
                 }
@@ -82,7 +84,7 @@ public static class IncidentApi
         api.MapGet("/incidents/{id:long}/plan/return", (long id, ClaimsPrincipal user, IncidentBoard board, GridCatalog grids, IncidentAnalysis analysis) =>
             WithIncidentAsync(board, user, id, async state =>
             {
-                if (grids.Find(state.GridName) is not { } grid)
+                if (grids.For(state) is not { } grid)
                 {
                     return GridNotLoaded(id, state);
                 }
@@ -92,6 +94,13 @@ public static class IncidentApi
                     ? Results.Json(ReturnPlanDocument.From(found), DocumentJson.Options)
                     : Results.UnprocessableEntity(ApiError.Single("cannot plan the return", "incident", Text(id), "plan", back.Problem ?? "no plan"));
             }));
+        api.MapGet("/handover", async (ClaimsPrincipal user, GridCatalog grids, ShiftHandover handover, TimeProvider clock) =>
+        {
+            NetworkGraph? GraphOf(string name) => AccountClaims.MaySee(user, name) ? grids.Find(name)?.Graph : null;
+            bool Visible(string name) => AccountClaims.MaySee(user, name);
+            var entries = await handover.EntriesAsync(GraphOf, Visible);
+            return Results.Json(HandoverDocument.From(clock.GetUtcNow(), entries, handover.IncidentsWithoutGrid(GraphOf, Visible)), DocumentJson.Options);
+        });
         api.MapPost("/incidents/{id:long}/outcome", PostOutcome).RequireAuthorization(AccessPolicies.ApiWrite);
         api.MapGet("/learning", (string? grid, ClaimsPrincipal user, GridCatalog grids, GridLearning learning, LearningCurves curves) =>
             grids.Find(grid ?? string.Empty) is { } loaded && AccountClaims.MaySee(user, loaded.Name)
@@ -101,6 +110,7 @@ public static class IncidentApi
         api.MapPost("/incidents/{id:long}/outcome/retraction", PostRetraction).RequireAuthorization(AccessPolicies.ApiEngineer);
         api.MapSwitchingApi();
         api.MapLifecycleApi();
+        api.MapGridApi();
         return app;
     }
 
@@ -143,7 +153,7 @@ public static class IncidentApi
 
         return WithIncident(board, user, id, state =>
         {
-            if (grids.Find(state.GridName) is not { } grid)
+            if (grids.For(state) is not { } grid)
             {
                 return GridNotLoaded(id, state);
             }
@@ -172,7 +182,7 @@ public static class IncidentApi
 
         return WithIncident(board, user, id, state =>
         {
-            if (grids.Find(state.GridName) is not { } grid)
+            if (grids.For(state) is not { } grid)
             {
                 return GridNotLoaded(id, state);
             }
@@ -185,6 +195,29 @@ public static class IncidentApi
             catch (JsonException e)
             {
                 return Results.BadRequest(ApiError.Single("not an outcome", "outcome", "body", string.Empty, $"is not valid: {e.Message}"));
+            }
+
+            var noFault = body?.NoFaultFound == true || body?.Transient == true;
+            if (noFault && body?.Segment is { Length: > 0 })
+            {
+                return Results.BadRequest(ApiError.Single("segment with no fault found", "outcome", "body", "segment", "must be left out when no fault was found"));
+            }
+
+            if (body is not null && noFault)
+            {
+                FaultType? found = null;
+                if (body.FaultType is { } foundText && !IncidentFormat.FaultTypes.TryGetValue(foundText, out found))
+                {
+                    return Results.BadRequest(ApiError.Single("bad fault type", "outcome", "body", "faultType", $"must be LG, LL, LLG, LLL or unknown, got \"{foundText}\""));
+                }
+
+                if (TooLong(id, "notes", body.Notes, EvidenceLimits.MaxNoteChars) is { } tooLongNote)
+                {
+                    return tooLongNote;
+                }
+
+                board.Append(new IncidentId(id), new NoFaultFoundLogged(body.Transient == true, found, body.Notes), AccountClaims.ActorOf(user));
+                return Results.Accepted($"/api/incidents/{id}", new { accepted = 1 });
             }
 
             if (body?.Segment is not { Length: > 0 } segment || !grid.Grid.HasSegment(new SegmentId(segment)))
@@ -258,7 +291,7 @@ public static class IncidentApi
         Results.NotFound(ApiError.Single("unknown incident", "incident", Text(id), "id", "does not exist"));
 
     internal static IResult GridNotLoaded(long id, IncidentState state) =>
-        Results.Conflict(ApiError.Single("grid not loaded", "incident", id.ToString(System.Globalization.CultureInfo.InvariantCulture), "grid", $"\"{state.GridName}\" is not loaded"));
+        Results.Conflict(ApiError.Single("grid not loaded", "incident", id.ToString(System.Globalization.CultureInfo.InvariantCulture), "grid", $"version {state.GridVersion} of \"{state.GridName}\" is not stored"));
 
     /// <summary>
     /// Runs <paramref name="action"/> on the incident when the account may see its grid. An incident of a grid
@@ -345,7 +378,7 @@ public static class IncidentApi
         ApiError.Single("body too large", "request", "body", string.Empty, $"must be at most {MaximumBodyBytes} bytes"),
         statusCode: StatusCodes.Status413PayloadTooLarge);
 
-    public sealed record GridEntry(string Name, string File, int Substations, int Segments, int Sections, int Indicators);
+    public sealed record GridEntry(string Name, string File, int Substations, int Segments, int Sections, int Indicators, int Version);
 
     public sealed record IncidentEntry(long Id, string Grid, DateTimeOffset ReportedAt, string Status, string FaultType, string? ConfirmedSegment, int Events, string Stage)
     {
@@ -361,7 +394,8 @@ public static class IncidentApi
             states.Deviations().ToDictionary(d => d.Key.Value, d => IncidentFormat.Name(d.Value)));
     }
 
-    public sealed record OutcomeBody(string? Segment, string? FaultType, string? Cause, string? Notes);
+    /// <param name="NoFaultFound">True: the patrol found no fault (no segment then); <paramref name="Transient"/>: it cleared by itself.</param>
+    public sealed record OutcomeBody(string? Segment, string? FaultType, string? Cause, string? Notes, bool? NoFaultFound = null, bool? Transient = null);
 
     public sealed record RetractionBody(string? Reason);
 }

@@ -1,5 +1,6 @@
 using System.Security.Claims;
 using FeederLocate.Application.Lifecycle;
+using FeederLocate.Application.Switching;
 using FeederLocate.Application.Times;
 using FeederLocate.Core.Model;
 using FeederLocate.Storage.Incidents;
@@ -10,7 +11,7 @@ namespace FeederLocate.Web.Api;
 
 /// <summary>
 /// An incident's lifecycle and times over HTTP, with the page's rules (<see cref="IncidentLifecycle"/>,
-/// <see cref="IncidentTimesEntry"/>): move on a stage, put a switch back to normal, close, reopen (engineers),
+/// <see cref="IncidentTimesEntry"/>): move on a stage, tick a step of the return to normal, close, reopen (engineers),
 /// and the fault, trip and reclosure times. A refusal is a 422 whose message gives the reason.
 /// </summary>
 internal static class LifecycleApi
@@ -23,15 +24,15 @@ internal static class LifecycleApi
                     ? SwitchingApi.Answer(id, "incident", IncidentApi.Text(id), lifecycle.MoveTo(new IncidentId(id), stage, AccountClaims.ActorOf(user)))
                     : SwitchingApi.Bad("stage", "stage", $"must be located, isolated, restored or repaired, got \"{body.Stage}\""))))
             .RequireAuthorization(AccessPolicies.ApiWrite);
-        api.MapPost("/incidents/{id:long}/normal", (long id, ClaimsPrincipal user, HttpRequest request, IncidentBoard board, GridCatalog grids, IncidentLifecycle lifecycle) =>
-            SwitchingApi.WithBody<SwitchingApi.PositionBody>(id, user, request, board, grids, "return to normal", (grid, body) => Task.FromResult(
-                body.Switch is { Length: > 0 } device && grid.Grid.HasSwitch(new SwitchId(device))
-                    ? SwitchingApi.Answer(id, "switch", device, lifecycle.ReturnToNormal(grid.Graph, new IncidentId(id), new SwitchId(device), AccountClaims.ActorOf(user)))
-                    : SwitchingApi.Bad("return to normal", "switch", $"must name a switching device of grid {grid.Name}, got \"{body.Switch}\""))))
+        api.MapPost("/incidents/{id:long}/return/steps", (long id, ClaimsPrincipal user, HttpRequest request, IncidentBoard board, GridCatalog grids, ReturnSwitching back) =>
+            SwitchingApi.WithBody<SwitchingApi.StepBody>(id, user, request, board, grids, "return step", async (grid, body) => body.Order is not { } order
+                ? SwitchingApi.Bad("return step", "order", "must give the step's number in the return order")
+                : SwitchingApi.Answer(id, "return step", order.ToString(System.Globalization.CultureInfo.InvariantCulture),
+                    await back.TickAsync(grid.Graph, new IncidentId(id), order, AccountClaims.ActorOf(user), body.DoneAt))))
             .RequireAuthorization(AccessPolicies.ApiWrite);
         api.MapPost("/incidents/{id:long}/close", (long id, ClaimsPrincipal user, HttpRequest request, IncidentBoard board, GridCatalog grids, IncidentLifecycle lifecycle) =>
-            SwitchingApi.WithBody<NoteBody>(id, user, request, board, grids, "closing", (grid, body) => Task.FromResult(
-                SwitchingApi.Answer(id, "incident", IncidentApi.Text(id), lifecycle.Close(grid.Grid, new IncidentId(id), body.Note, AccountClaims.ActorOf(user))))))
+            SwitchingApi.WithBody<NoteBody>(id, user, request, board, grids, "closing", async (grid, body) =>
+                SwitchingApi.Answer(id, "incident", IncidentApi.Text(id), await lifecycle.CloseAsync(grid.Graph, new IncidentId(id), body.Note, AccountClaims.ActorOf(user)))))
             .RequireAuthorization(AccessPolicies.ApiWrite);
         api.MapPost("/incidents/{id:long}/reopen", (long id, ClaimsPrincipal user, HttpRequest request, IncidentBoard board, GridCatalog grids, IncidentLifecycle lifecycle) =>
             SwitchingApi.WithBody<NoteBody>(id, user, request, board, grids, "reopening", (_, body) => Task.FromResult(

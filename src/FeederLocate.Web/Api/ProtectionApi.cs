@@ -29,7 +29,7 @@ internal static class ProtectionApi
 
         return IncidentApi.InIncident(board, user, id, state =>
         {
-            if (grids.Find(state.GridName) is not { } grid)
+            if (grids.For(state) is not { } grid)
             {
                 return IncidentApi.NoGrid(id, state);
             }

@@ -66,7 +66,7 @@ internal static class SwitchingApi
 
         return await IncidentApi.WithIncidentAsync(board, user, id, async state =>
         {
-            if (grids.Find(state.GridName) is not { } grid)
+            if (grids.For(state) is not { } grid)
             {
                 return IncidentApi.GridNotLoaded(id, state);
             }

@@ -73,16 +73,43 @@ public static partial class OperatorWords
     };
 
     /// <summary>The text with every section id in it replaced by the section's name.</summary>
-    public static string WithSectionNames(string text, SectionNames? names)
+    public static string WithSectionNames(string text, SectionNames? names) => WithNames(text, names, null);
+
+    /// <summary>
+    /// The text with every section and segment id in it (a whole word: "FPI-S108" is an indicator's name and
+    /// stays) replaced by its operator's name.
+    /// </summary>
+    public static string WithNames(string text, SectionNames? sections, SegmentNames? segments)
     {
         ArgumentNullException.ThrowIfNull(text);
-        return names is null ? text : SectionIdInText().Replace(text, m =>
+        return sections is null && segments is null ? text : IdInText().Replace(text, m =>
         {
-            var id = new SectionId(m.Value);
-            return names.All.ContainsKey(id) ? names[id] : m.Value;
+            if (sections is not null && sections.All.ContainsKey(new SectionId(m.Value)))
+            {
+                return sections[new SectionId(m.Value)];
+            }
+
+            return segments is not null && segments.All.ContainsKey(new SegmentId(m.Value)) ? segments[new SegmentId(m.Value)] : m.Value;
         });
     }
 
-    [GeneratedRegex(@"SEC-[A-Za-z0-9_.\-]*[A-Za-z0-9_]")]
-    private static partial Regex SectionIdInText();
+    /// <summary>A segment by its name, or its id where no names are given.</summary>
+    public static string Segment(SegmentId id, SegmentNames? names) => names?[id] ?? id.Value;
+
+    /// <summary>A section by its name, or its id where no names are given.</summary>
+    public static string Section(SectionId id, SectionNames? names) => names?[id] ?? id.Value;
+
+    /// <summary>A fault resistance for people: "0.5 Ω", "12 Ω", "350 Ω", "1.2 kΩ".</summary>
+    public static string Resistance(double ohm) => Math.Abs(ohm) switch
+    {
+        >= 10_000 => $"{(ohm / 1000).ToString("0", Numbers)} kΩ",
+        >= 1000 => $"{(ohm / 1000).ToString("0.#", Numbers)} kΩ",
+        >= 10 => $"{ohm.ToString("0", Numbers)} Ω",
+        >= 1 => $"{ohm.ToString("0.#", Numbers)} Ω",
+        _ => $"{ohm.ToString("0.##", Numbers)} Ω",
+    };
+
+    /// <summary>A whole word that may be an id: letters, digits and _ . - inside, a letter, digit or _ at either end.</summary>
+    [GeneratedRegex(@"(?<![A-Za-z0-9_.\-])[A-Za-z0-9_](?:[A-Za-z0-9_.\-]*[A-Za-z0-9_])?(?![A-Za-z0-9_\-]|\.[A-Za-z0-9_])")]
+    private static partial Regex IdInText();
 }

@@ -1,5 +1,6 @@
 using FeederLocate.Application.Analysis;
 using FeederLocate.Application.Evidence;
+using FeederLocate.Application.Grids;
 using FeederLocate.Application.History;
 using FeederLocate.Application.Incidents;
 using FeederLocate.Application.Switching;
@@ -16,11 +17,17 @@ public static class ServiceRegistration
         var options = configuration.GetSection("FeederLocate").Get<FeederLocateOptions>() ?? new FeederLocateOptions();
         var root = contentRoot;
         services.AddSingleton(options);
-        services.AddSingleton(_ => new GridCatalog(Path.GetFullPath(options.GridFolder, root), options.DefaultGrid));
         var databasePath = Path.GetFullPath(options.DatabasePath, root);
         // Claimed before the database is opened: a second web app on the same file is refused at start.
         services.AddSingleton(_ => Storage.Maintenance.InstanceLock.Claim(databasePath));
-        services.AddSingleton(sp => new IncidentBoard(IncidentStore.Open(databasePath), name => sp.GetRequiredService<GridCatalog>().Find(name)?.Grid));
+        services.AddSingleton(sp =>
+        {
+            sp.GetRequiredService<Storage.Maintenance.InstanceLock>();
+            return new GridVersions(Storage.Grids.GridVersionStore.Open(databasePath));
+        });
+        services.AddSingleton(sp => new GridCatalog(Path.GetFullPath(options.GridFolder, root), options.DefaultGrid, sp.GetRequiredService<GridVersions>()));
+        services.AddSingleton(sp => new IncidentBoard(IncidentStore.Open(databasePath), (name, version) => sp.GetRequiredService<GridCatalog>().Find(name, version)?.Grid));
+        services.AddSingleton<IncidentGridMove>();
         services.AddSingleton<IncidentLog>(provider => provider.GetRequiredService<IncidentBoard>());
         services.AddFeederLocateSecurity(databasePath, options.SignInFreeFailuresPerClient);
         services.AddSingleton<IFaultRanker, CoreFaultRanker>();
@@ -31,6 +38,8 @@ public static class ServiceRegistration
         services.AddSingleton(_ => new LearningCurves(Path.GetFullPath(options.GridFolder, root)));
         services.AddSingleton<CheckedSwitching>();
         services.AddSingleton<FeederLocate.Application.Lifecycle.IncidentLifecycle>();
+        services.AddSingleton<ReturnSwitching>();
+        services.AddSingleton<FeederLocate.Application.Lifecycle.ShiftHandover>();
         services.AddSingleton<FeederLocate.Application.Times.IncidentTimesEntry>();
         services.AddSingleton(TimeProvider.System);
         return services;

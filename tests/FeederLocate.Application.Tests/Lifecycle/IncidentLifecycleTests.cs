@@ -1,6 +1,7 @@
 using FeederLocate.Application.Analysis;
 using FeederLocate.Application.History;
 using FeederLocate.Application.Lifecycle;
+using FeederLocate.Application.Switching;
 using FeederLocate.Application.Tests.Support;
 using FeederLocate.Core.Evidence;
 using FeederLocate.Core.Model;
@@ -21,25 +22,55 @@ public sealed class IncidentLifecycleTests : IDisposable
     private IncidentId OpenTrip() =>
         _test.Log.Open(_graph.Grid, new SwitchId("CB-A1"), FaultType.LG, TestClock.Start.AddMinutes(-30), Samples.Operator);
 
+    private IncidentAnalysis Analysis() => new(new GridLearning(_test.Log), new CoreFaultRanker());
+
+    /// <summary>Ticks every step of the incident's return order, in order; each must be logged.</summary>
+    private async Task TickReturnThrough(IncidentId id, ReturnSwitching back, IncidentAnalysis analysis)
+    {
+        var plan = (await analysis.ReturnAsync(_graph, _test.Log.State(id))).Plan!;
+        foreach (var step in plan.Steps)
+        {
+            Assert.Null((await back.TickAsync(_graph, id, step.Order, Samples.Operator)).Refusal);
+        }
+    }
+
     [Fact]
-    public void An_incident_moves_on_stage_by_stage_closes_after_outcome_and_return_to_normal_and_an_engineer_reopens_it()
+    public async Task An_incident_moves_on_stage_by_stage_the_outcome_leads_to_the_return_order_then_closing_and_an_engineer_reopens_it()
     {
         var id = OpenTrip();
-        var lifecycle = new IncidentLifecycle(_test.Log);
+        var analysis = Analysis();
+        var lifecycle = new IncidentLifecycle(_test.Log, analysis);
+        var back = new ReturnSwitching(_test.Log, analysis);
 
         Assert.True(lifecycle.MoveTo(id, IncidentStage.Located, Samples.Operator).IsLogged);
-        Assert.Equal("the return to normal follows the repair: move the incident to repaired first",
-            lifecycle.ReturnToNormal(_graph, id, new SwitchId("CB-A1"), Samples.Operator).Refusal);
+        Assert.Equal("the return to normal follows the outcome: log where the fault was found, or that none was found",
+            (await back.TickAsync(_graph, id, 1, Samples.Operator)).Refusal);
         Assert.Equal("incident 1 is already located: stages only move on", lifecycle.MoveTo(id, IncidentStage.Located, Samples.Operator).Refusal);
-        Assert.True(lifecycle.MoveTo(id, IncidentStage.Repaired, Samples.Operator).IsLogged);
-        Assert.Equal("log the outcome of incident 1 before closing it", lifecycle.Close(_graph.Grid, id, null, Samples.Operator).Refusal);
+        Assert.Equal("log the outcome of incident 1 before closing it", (await lifecycle.CloseAsync(_graph, id, null, Samples.Operator)).Refusal);
         _test.Log.Append(id, new OutcomeLogged(new SegmentId("S109"), FaultType.LG), Samples.Operator);
-        // The tripped breaker is still open: the return to normal closes it before the incident closes.
+        Assert.Equal("the return to normal follows the repair: move the incident to repaired first",
+            (await back.TickAsync(_graph, id, 1, Samples.Operator)).Refusal);
+        Assert.True(lifecycle.MoveTo(id, IncidentStage.Repaired, Samples.Operator).IsLogged);
+
+        // The tripped breaker is still open: the return order closes it, in its own steps, before the incident closes.
         Assert.Equal([(new SwitchId("CB-A1"), SwitchPosition.Open, SwitchPosition.Closed)], IncidentLifecycle.OffNormal(_graph.Grid, _test.Log.State(id)));
-        Assert.Equal("return to normal first: CB-A1 is open, normally closed", lifecycle.Close(_graph.Grid, id, null, Samples.Operator).Refusal);
-        Assert.Equal("LB-A1-3 is in its normal position", lifecycle.ReturnToNormal(_graph, id, new SwitchId("LB-A1-3"), Samples.Operator).Refusal);
-        Assert.True(lifecycle.ReturnToNormal(_graph, id, new SwitchId("CB-A1"), Samples.Operator).IsLogged);
-        Assert.True(lifecycle.Close(_graph.Grid, id, "back to normal", Samples.Operator).IsLogged);
+        var order = (await analysis.ReturnAsync(_graph, _test.Log.State(id))).Plan!;
+        Assert.Contains(order.Steps, s => s.Action == Core.Switching.StepAction.Close && s.Device == new SwitchId("CB-A1"));
+        Assert.StartsWith("carry out the return to normal first: step 1", (await lifecycle.CloseAsync(_graph, id, null, Samples.Operator)).Refusal, StringComparison.Ordinal);
+        if (order.Steps.Length > 1)
+        {
+            Assert.StartsWith("return step 1 (", (await back.TickAsync(_graph, id, order.Steps[^1].Order, Samples.Operator)).Refusal, StringComparison.Ordinal);
+        }
+
+        await TickReturnThrough(id, back, analysis);
+        var returned = _test.Log.State(id);
+        Assert.Equal(order.Steps.Length, returned.ReturnSteps.Length);
+        // Its own events: not deviations, not ticks of the fault's order.
+        Assert.Empty(returned.Deviations);
+        Assert.Empty(returned.CompletedSteps);
+        Assert.Empty(IncidentLifecycle.OffNormal(_graph.Grid, returned));
+        Assert.Equal($"return step 1 is already ticked", (await back.TickAsync(_graph, id, 1, Samples.Operator)).Refusal);
+        Assert.True((await lifecycle.CloseAsync(_graph, id, "back to normal", Samples.Operator)).IsLogged);
 
         Assert.Equal("incident 1 is closed: an engineer reopens it with a reason", lifecycle.MoveTo(id, IncidentStage.Repaired, Samples.Operator).Refusal);
         Assert.Equal("only an engineer reopens an incident", lifecycle.Reopen(id, "fault again", Samples.Operator).Refusal);
@@ -52,6 +83,23 @@ public sealed class IncidentLifecycleTests : IDisposable
             [IncidentStage.Open, IncidentStage.Located, IncidentStage.Repaired, IncidentStage.Closed, IncidentStage.Repaired],
             state.Stages.Select(s => s.Stage));
         Assert.Equal((Engineer, "fault again on S109"), (state.Stages[^1].Actor, state.Stages[^1].Reason));
+    }
+
+    [Fact]
+    public async Task A_no_fault_found_outcome_needs_no_repair_before_the_return_and_lets_the_incident_close()
+    {
+        var id = OpenTrip();
+        var analysis = Analysis();
+        var lifecycle = new IncidentLifecycle(_test.Log, analysis);
+        var back = new ReturnSwitching(_test.Log, analysis);
+        _test.Log.Append(id, new NoFaultFoundLogged(Transient: true, FaultType.LG, "patrolled, nothing found"), Samples.Operator);
+
+        var state = _test.Log.State(id);
+        Assert.True(state.HasOutcome);
+        Assert.Null(state.Outcome);
+        Assert.Null(ReturnSwitching.NotYet(state));
+        await TickReturnThrough(id, back, analysis);
+        Assert.True((await lifecycle.CloseAsync(_graph, id, null, Samples.Operator)).IsLogged);
     }
 
     [Fact]
@@ -75,24 +123,27 @@ public sealed class IncidentLifecycleTests : IDisposable
     }
 
     [Fact]
-    public void The_return_to_normal_refuses_to_parallel_two_substations()
+    public async Task The_return_order_opens_the_tie_before_closing_the_breaker_and_the_device_rules_refuse_the_parallel()
     {
         // A tie closed during the restoration, the faulted feeder's breaker still open: closing the breaker
         // before opening the tie would feed the tail from both substations.
         var id = OpenTrip();
-        var lifecycle = new IncidentLifecycle(_test.Log);
+        var analysis = Analysis();
+        var back = new ReturnSwitching(_test.Log, analysis);
         _test.Log.Append(id, new SwitchingDeviationRecorded(new SwitchId("NO-A1-B1"), SwitchPosition.Closed, "tail fed from B1"), Engineer);
-        lifecycle.MoveTo(id, IncidentStage.Repaired, Samples.Operator);
+        _test.Log.Append(id, new OutcomeLogged(new SegmentId("S109"), FaultType.LG), Samples.Operator);
+        new IncidentLifecycle(_test.Log, analysis).MoveTo(id, IncidentStage.Repaired, Samples.Operator);
         var now = FeederLocate.Application.Switching.IncidentSwitching.Current(_graph.Grid, _test.Log.State(id));
         Assert.False(RadialCheck.Of(_graph, now.With(new SwitchId("CB-A1"), SwitchPosition.Closed)).IsRadial);
+        Assert.Equal("closing CB-A1 would close a loop or parallel two substations",
+            Core.Switching.StepCheck.CheckAfterRepair(_graph, now, new SwitchId("CB-A1"), SwitchPosition.Closed));
 
-        var early = lifecycle.ReturnToNormal(_graph, id, new SwitchId("CB-A1"), Samples.Operator);
-        var tieFirst = lifecycle.ReturnToNormal(_graph, id, new SwitchId("NO-A1-B1"), Samples.Operator);
-        var breaker = lifecycle.ReturnToNormal(_graph, id, new SwitchId("CB-A1"), Samples.Operator);
+        var order = (await analysis.ReturnAsync(_graph, _test.Log.State(id))).Plan!;
+        var openTie = order.Steps.Single(s => s.Device == new SwitchId("NO-A1-B1") && s.Action == Core.Switching.StepAction.Open);
+        var closeBreaker = order.Steps.Single(s => s.Device == new SwitchId("CB-A1") && s.Action == Core.Switching.StepAction.Close);
+        Assert.True(openTie.Order < closeBreaker.Order);
 
-        Assert.Equal("putting CB-A1 back closed would close a loop or parallel two substations: open the other device first", early.Refusal);
-        Assert.True(tieFirst.IsLogged);
-        Assert.True(breaker.IsLogged);
+        await TickReturnThrough(id, back, analysis);
         Assert.Empty(IncidentLifecycle.OffNormal(_graph.Grid, _test.Log.State(id)));
     }
 }

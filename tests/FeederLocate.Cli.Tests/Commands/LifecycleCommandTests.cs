@@ -45,7 +45,18 @@ public sealed class LifecycleCommandTests : IDisposable
         }
 
         var repaired = Incident("stage", id, "--to", "repaired");
-        var normal = Incident("normal", id, "--switch", "CB-A1");
+        var outOfOrder = Incident("return", id, "--step", "2");
+        var returned = new List<CliRun>();
+        for (var step = 1; step <= 10; step++)
+        {
+            var run = Incident("return", id, "--step", step.ToString(CultureInfo.InvariantCulture));
+            returned.Add(run);
+            if (run.ExitCode != 0)
+            {
+                break;
+            }
+        }
+
         var closed = Incident("close", id, "--note", "back to normal");
         var reopenedByNobody = Incident("reopen", id, "--reason", "fault again");
         var reopened = TokenEnvironment.Run(eliToken, () => Incident("reopen", id, "--reason", "fault again", "--by", "eli"));
@@ -56,8 +67,58 @@ public sealed class LifecycleCommandTests : IDisposable
         Assert.Contains("reclosedAt 2999-01-01T00:00:00Z is in the future", future.Error, StringComparison.Ordinal);
         Assert.Contains("--to must be located, isolated, restored or repaired, got \"fixed\"", badStage.Error, StringComparison.Ordinal);
         Assert.Contains($"log the outcome of incident {id} before closing it", closeEarly.Error, StringComparison.Ordinal);
-        Assert.Equal((0, 0, 0, 2, 0), (repaired.ExitCode, normal.ExitCode, closed.ExitCode, reopenedByNobody.ExitCode, reopened.ExitCode));
+        Assert.Equal(2, outOfOrder.ExitCode);
+        Assert.Contains("return step 1 (", outOfOrder.Error, StringComparison.Ordinal);
+        // Every step of the return order ticks, then the next number is refused as outside it.
+        Assert.True(returned.Count >= 2);
+        Assert.All(returned.SkipLast(1), r => Assert.Equal(0, r.ExitCode));
+        Assert.Contains($"is not a step of the return order (steps 1 to {returned.Count - 1})", returned[^1].Error, StringComparison.Ordinal);
+        Assert.Equal((0, 0, 2, 0), (repaired.ExitCode, closed.ExitCode, reopenedByNobody.ExitCode, reopened.ExitCode));
         Assert.Equal("Open", history.GetProperty("status").GetString());
+    }
+
+    [Fact]
+    public void Record_logs_a_no_fault_found_or_transient_outcome_and_refuses_a_segment_with_it()
+    {
+        var grid = SampleGrids.Path("solid");
+        var incident = SampleGrids.IncidentPath("solid-lg-trip-a1");
+        var none = CliRun.Of("record", grid, incident, "--no-fault-found", "--db", Db, "--json");
+        var transient = CliRun.Of("record", grid, incident, "--transient", "--cause", "bird contact, cleared", "--db", Db);
+        var both = CliRun.Of("record", grid, incident, "--transient", "--segment", "S109", "--db", Db);
+        var neither = CliRun.Of("record", grid, incident, "--db", Db);
+        var history = CliRun.Of("history", "--db", Db, "--json").Json().EnumerateArray().ToList();
+
+        Assert.Equal((0, 0, 2, 2), (none.ExitCode, transient.ExitCode, both.ExitCode, neither.ExitCode));
+        Assert.True(none.Json().GetProperty("noFaultFound").GetBoolean());
+        Assert.Contains("no fault found (transient)", transient.Out, StringComparison.Ordinal);
+        Assert.Contains("give one of them", both.Error, StringComparison.Ordinal);
+        Assert.Contains("--no-fault-found or --transient", neither.Error, StringComparison.Ordinal);
+        Assert.Equal(2, history.Count);
+        Assert.All(history, h => Assert.True(h.GetProperty("noFaultFound").GetBoolean()));
+        Assert.Equal([false, true], history.Select(h => h.GetProperty("transient").GetBoolean()));
+        // Counted as a fault on no segment: the learning has no outcome to learn from.
+        var stats = CliRun.Of("stats", grid, "--db", Db);
+        Assert.Equal(0, stats.ExitCode);
+    }
+
+    [Fact]
+    public void Handover_lists_each_open_incident_with_what_is_off_and_the_next_step()
+    {
+        var id = OpenTrip();
+        var text = CliRun.Of("handover", SampleGrids.Path("solid"), "--db", Db);
+        var json = CliRun.Of("handover", SampleGrids.Path("solid"), "--db", Db, "--json").Json();
+
+        Assert.Equal(0, text.ExitCode);
+        Assert.Contains($"Incident {id} on ", text.Out, StringComparison.Ordinal);
+        Assert.Contains("next step: 1. ", text.Out, StringComparison.Ordinal);
+        Assert.Contains("Advice only", text.Out, StringComparison.Ordinal);
+        var entry = json.GetProperty("incidents").EnumerateArray().Single();
+        Assert.Equal(long.Parse(id, CultureInfo.InvariantCulture), entry.GetProperty("id").GetInt64());
+        Assert.Equal("open", entry.GetProperty("stage").GetString());
+        Assert.True(entry.GetProperty("customersOff").GetInt32() > 0);
+        Assert.Equal(entry.GetProperty("customersOff").GetInt32(), entry.GetProperty("sectionsOff").EnumerateArray().Sum(s => s.GetProperty("customers").GetInt32()));
+        Assert.StartsWith("A1", entry.GetProperty("sectionsOff")[0].GetProperty("name").GetString(), StringComparison.Ordinal);
+        Assert.NotEmpty(entry.GetProperty("unreadIndicators").EnumerateArray());
     }
 
     public void Dispose() => _database.Dispose();

@@ -107,7 +107,7 @@ public class PlanCommandTests
 
         Assert.Equal(0, run.ExitCode);
         Assert.Contains("CAUTION: Advice only", run.Out, StringComparison.Ordinal);
-        Assert.Contains("prove dead, earth on both sides, and issue a permit", run.Out, StringComparison.Ordinal);
+        Assert.Contains("lock and tag every isolation point open, prove dead, earth on both sides, and issue a permit", run.Out, StringComparison.Ordinal);
         Assert.Contains("Local switching rules and licensed practice govern", run.Out, StringComparison.Ordinal);
         Assert.Contains("CB-A1", run.Out, StringComparison.Ordinal);
         Assert.Contains("proveDead", run.Out, StringComparison.Ordinal);

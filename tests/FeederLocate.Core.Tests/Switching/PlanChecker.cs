@@ -180,7 +180,8 @@ public sealed class PlanChecker
             }
         }
 
-        if (!plan.Cautions.Any(c => c.Contains("prove dead", StringComparison.OrdinalIgnoreCase)) || !plan.Cautions.Any(c => c.Contains("Advice only", StringComparison.Ordinal)))
+        string[] cautions = ["Advice only", "verify", "lock and tag", "prove dead", "earth", "permit", "switching rules"];
+        if (cautions.Any(word => !plan.Cautions.Any(c => c.Contains(word, StringComparison.OrdinalIgnoreCase))))
         {
             problems.Add("the cautions are missing");
         }

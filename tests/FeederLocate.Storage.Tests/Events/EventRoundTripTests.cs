@@ -32,6 +32,10 @@ public class EventRoundTripTests
         new IncidentTimesEntered(new DateTimeOffset(2026, 3, 14, 5, 31, 40, TimeSpan.Zero), new DateTimeOffset(2026, 3, 14, 5, 31, 40, 120, TimeSpan.Zero)),
         new IncidentTimesEntered(null, null, new DateTimeOffset(2026, 3, 14, 5, 31, 45, TimeSpan.Zero)),
         new IncidentStageChanged(Storage.Incidents.IncidentStage.Isolated),
+        new NoFaultFoundLogged(Transient: true, FaultType.LG, "reclosure held; line patrolled"),
+        new NoFaultFoundLogged(Transient: false),
+        new ReturnStepCompleted(2, "close", "CB1", new DateTimeOffset(2026, 3, 14, 9, 12, 0, TimeSpan.Zero)),
+        new ReturnStepCompleted(1, "removeEarth"),
     };
 
     [Theory]

@@ -14,8 +14,8 @@ public class SchemaMigrationTests
     [Fact]
     public void The_project_has_numbered_steps_up_to_the_latest_version()
     {
-        Assert.Equal([1, 2, 3], Migration.All.Select(m => m.Version));
-        Assert.Equal(3, IncidentStore.LatestSchemaVersion);
+        Assert.Equal([1, 2, 3, 4], Migration.All.Select(m => m.Version));
+        Assert.Equal(4, IncidentStore.LatestSchemaVersion);
     }
 
     [Fact]
@@ -31,8 +31,8 @@ public class SchemaMigrationTests
 
         Assert.True(File.Exists(db.Path));
         using var raw = RawDatabase.Open(db.Path);
-        Assert.Equal(3, RawDatabase.Long(raw, "SELECT COUNT(*) FROM schema_version"));
-        Assert.Equal(3, RawDatabase.Long(raw, "SELECT MAX(version) FROM schema_version"));
+        Assert.Equal(4, RawDatabase.Long(raw, "SELECT COUNT(*) FROM schema_version"));
+        Assert.Equal(4, RawDatabase.Long(raw, "SELECT MAX(version) FROM schema_version"));
     }
 
     [Fact]
@@ -56,7 +56,7 @@ public class SchemaMigrationTests
         using var store = IncidentStore.Open(db.Path);
 
         using var raw = RawDatabase.Open(db.Path);
-        Assert.Equal([1, 2, 3], Versions(raw));
+        Assert.Equal([1, 2, 3, 4], Versions(raw));
     }
 
     [Fact]
@@ -87,7 +87,7 @@ public class SchemaMigrationTests
         Assert.Equal(new Actor("operator-1"), state.OpenedBy);
         Assert.Single(store.Outcomes(TestGrids.BrackenfoldName));
         using var raw = RawDatabase.Open(db.Path);
-        Assert.Equal([1, 2, 3], Versions(raw));
+        Assert.Equal([1, 2, 3, 4], Versions(raw));
     }
 
     [Fact]

@@ -59,12 +59,21 @@ public sealed class IncidentApiTests(ApiFixture app) : IClassFixture<ApiFixture>
             """));
 
         var plan = await app.Client.GetFromJsonAsync<JsonElement>($"/api/incidents/{id}/plan");
+        var before = await app.Client.GetFromJsonAsync<JsonElement>($"/api/incidents/{id}/plan/return");
+        // The clearance takes off what was put on: the plan carried out, its locks and earths ticked.
+        foreach (var step in plan.GetProperty("steps").EnumerateArray().Select(s => s.GetProperty("order").GetInt32()))
+        {
+            var ticked = await app.Client.PostAsync($"/api/incidents/{id}/steps", Json($$"""{ "order": {{step}} }"""));
+            Assert.Equal(System.Net.HttpStatusCode.Accepted, ticked.StatusCode);
+        }
+
         var back = await app.Client.GetFromJsonAsync<JsonElement>($"/api/incidents/{id}/plan/return");
 
         Assert.Contains(plan.GetProperty("steps").EnumerateArray(), s => s.GetProperty("action").GetString() == "lock");
         Assert.Contains("from the curve", plan.GetProperty("coldLoadBasis").GetString(), StringComparison.Ordinal);
         var actions = back.GetProperty("steps").EnumerateArray().Select(s => s.GetProperty("action").GetString()).ToList();
         Assert.Contains("removeEarth", actions);
+        Assert.DoesNotContain(before.GetProperty("steps").EnumerateArray(), s => s.GetProperty("action").GetString() is "removeEarth" or "unlock");
         Assert.True(actions.LastIndexOf("unlock") < actions.IndexOf("close"));
         Assert.Contains(back.GetProperty("cautions").EnumerateArray(), c => c.GetString()!.Contains("Advice only", StringComparison.Ordinal));
     }

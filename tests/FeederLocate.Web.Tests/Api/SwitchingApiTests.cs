@@ -101,9 +101,18 @@ public sealed class SwitchingApiTests(ApiFixture app) : IClassFixture<ApiFixture
         var located = await app.Client.PostAsync($"/api/incidents/{id}/stage", Json("""{ "stage": "located" }"""));
         var back = await app.Client.PostAsync($"/api/incidents/{id}/stage", Json("""{ "stage": "open" }"""));
         var closeEarly = await app.Client.PostAsync($"/api/incidents/{id}/close", Json("""{ }"""));
-        await app.Client.PostAsync($"/api/incidents/{id}/outcome", Json("""{ "segment": "S109", "faultType": "LG" }"""));
-        await app.Client.PostAsync($"/api/incidents/{id}/stage", Json("""{ "stage": "repaired" }"""));
-        var normal = await app.Client.PostAsync($"/api/incidents/{id}/normal", Json("""{ "switch": "CB-A1" }"""));
+        var both = await app.Client.PostAsync($"/api/incidents/{id}/outcome", Json("""{ "segment": "S109", "noFaultFound": true }"""));
+        var none = await app.Client.PostAsync($"/api/incidents/{id}/outcome", Json("""{ "noFaultFound": true, "transient": true, "faultType": "LG" }"""));
+        var order = await app.Client.GetFromJsonAsync<JsonElement>($"/api/incidents/{id}/plan/return");
+        var steps = order.GetProperty("steps").EnumerateArray().Select(s => s.GetProperty("order").GetInt32()).ToList();
+        var outOfOrder = await app.Client.PostAsync($"/api/incidents/{id}/return/steps", Json($$"""{ "order": {{steps[^1]}} }"""));
+        var ticks = new List<HttpResponseMessage>();
+        foreach (var step in steps)
+        {
+            ticks.Add(await app.Client.PostAsync($"/api/incidents/{id}/return/steps", Json($$"""{ "order": {{step}} }""")));
+        }
+
+        var normal = ticks[^1];
         var closed = await app.Client.PostAsync($"/api/incidents/{id}/close", Json("""{ "note": "back to normal" }"""));
         var reopenByOperator = await app.Client.PostAsync($"/api/incidents/{id}/reopen", Json("""{ "reason": "again" }"""));
         var entry = await app.Client.GetFromJsonAsync<JsonElement>($"/api/incidents/{id}");
@@ -114,9 +123,34 @@ public sealed class SwitchingApiTests(ApiFixture app) : IClassFixture<ApiFixture
         Assert.Equal(HttpStatusCode.Accepted, located.StatusCode);
         Assert.Equal(HttpStatusCode.UnprocessableEntity, back.StatusCode);
         Assert.Equal($"log the outcome of incident {id} before closing it", await Message(closeEarly));
+        Assert.Equal(HttpStatusCode.BadRequest, both.StatusCode);
+        Assert.Equal(HttpStatusCode.Accepted, none.StatusCode);
+        Assert.True(steps.Count >= 2);
+        Assert.Equal(HttpStatusCode.UnprocessableEntity, outOfOrder.StatusCode);
+        Assert.StartsWith("return step 1 (", await Message(outOfOrder), StringComparison.Ordinal);
+        Assert.All(ticks, t => Assert.Equal(HttpStatusCode.Accepted, t.StatusCode));
         Assert.Equal((HttpStatusCode.Accepted, HttpStatusCode.Accepted), (normal.StatusCode, closed.StatusCode));
         Assert.Equal("only an engineer reopens an incident", await Message(reopenByOperator));
         Assert.Equal(("Closed", "closed"), (entry.GetProperty("status").GetString(), entry.GetProperty("stage").GetString()));
+    }
+
+    [Fact]
+    public async Task The_handover_lists_an_open_incident_with_what_is_off_and_its_next_step()
+    {
+        var opened = await app.Client.PostAsync($"/api/incidents?grid={Uri.EscapeDataString(ApiFixture.SolidGrid)}",
+            Json("""{ "format": "feederlocate-incident/1", "reportedAt": "2026-11-30T06:12:00Z", "trippedDevice": "CB-A1", "faultType": "LG", "indications": [] }"""));
+        var id = (await opened.Content.ReadFromJsonAsync<JsonElement>()).GetProperty("id").GetInt64();
+        await app.Client.PostAsync($"/api/incidents/{id}/indications", Json("""{ "indicator": "FPI-A1-04", "state": "fault", "source": "remote", "suspect": true }"""));
+
+        var handover = await app.Client.GetFromJsonAsync<JsonElement>("/api/handover");
+        var entry = handover.GetProperty("incidents").EnumerateArray().Single(i => i.GetProperty("id").GetInt64() == id);
+
+        Assert.Equal("open", entry.GetProperty("stage").GetString());
+        Assert.True(entry.GetProperty("customersOff").GetInt32() > 0);
+        Assert.StartsWith("1. ", entry.GetProperty("nextStep").GetString(), StringComparison.Ordinal);
+        Assert.Equal(["FPI-A1-04"], entry.GetProperty("distrustedIndicators").EnumerateArray().Select(i => i.GetString()));
+        Assert.DoesNotContain("FPI-A1-04", entry.GetProperty("unreadIndicators").EnumerateArray().Select(i => i.GetString()));
+        Assert.Contains("at the plan's estimate", entry.GetProperty("customerMinutesBasis").GetString(), StringComparison.Ordinal);
     }
 
     [Fact]

@@ -10,16 +10,24 @@ public class IndicatorQuickEntryTests : ComponentTest
 {
     private readonly Web.Services.LoadedGrid _grid = LoadedGrids.Sample("solid");
 
-    private (Indicator Indicator, IndicatorState State, bool Suspect)? Type(string name, string state)
+    private (Indicator Indicator, IndicatorState State, bool Suspect, TimeOnly? ReadAt)? Type(string name, string state) => Type(name, state, null, null);
+
+    private (Indicator Indicator, IndicatorState State, bool Suspect, TimeOnly? ReadAt)? Type(string name, string state, string? readAt, Func<TimeOnly, string?>? problem)
     {
-        (Indicator, IndicatorState, bool)? set = null;
+        (Indicator, IndicatorState, bool, TimeOnly?)? set = null;
         var cut = Render<IndicatorEntry>(p => p
             .Add(c => c.Indicators, _grid.Grid.Indicators)
             .Add(c => c.Current, new Dictionary<IndicatorId, Indication>())
-            .Add(c => c.OnSet, e => set = e));
+            .Add(c => c.OnSet, e => set = e)
+            .Add(c => c.ReadAtProblem, problem));
 
         cut.Find("[data-testid=quick-indicator]").Change(name);
         cut.Find("[data-testid=quick-state]").Change(state);
+        if (readAt is not null)
+        {
+            cut.Find("[data-testid=quick-read-at]").Change(readAt);
+        }
+
         cut.Find("[data-testid=indicator-quick-entry]").Submit();
         return set;
     }
@@ -32,6 +40,14 @@ public class IndicatorQuickEntryTests : ComponentTest
         Assert.NotNull(set);
         Assert.Equal(new IndicatorId("FPI-A1-04"), set.Value.Indicator.Id);
         Assert.Equal(IndicatorState.Fault, set.Value.State);
+    }
+
+    [Fact]
+    public void A_reading_time_typed_with_the_entry_goes_with_it_and_one_the_rule_refuses_is_not_entered()
+    {
+        Assert.Null(Type("a1-04", "f")?.ReadAt);
+        Assert.Equal(new TimeOnly(7, 42), Type("a1-04", "f", "07:42", _ => null)?.ReadAt);
+        Assert.Null(Type("a1-04", "f", "06:10", t => t < new TimeOnly(7, 0) ? "before the fault began" : null));
     }
 
     [Fact]

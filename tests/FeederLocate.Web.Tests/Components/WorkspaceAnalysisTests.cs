@@ -20,19 +20,13 @@ public sealed class WorkspaceAnalysisTests : BunitContext
     private readonly TempDatabase _database = new();
     private readonly HeldRanker _ranker = new();
     private readonly IncidentBoard _board;
-    private readonly GridCatalog _grids = new(RepositoryFiles.Path("sample-grid"), SampleGrids.FileName("solid"));
+    private readonly GridCatalog _grids;
 
     public WorkspaceAnalysisTests()
     {
+        _grids = LoadedGrids.Samples(_database.Path);
         _board = new IncidentBoard(IncidentStore.Open(_database.Path));
-        Services.AddSingleton(_grids);
-        Services.AddSingleton(_board);
-        var analysis = new IncidentAnalysis(new GridLearning(_board), _ranker);
-        Services.AddSingleton(analysis);
-        Services.AddSingleton(new FeederLocate.Application.Switching.CheckedSwitching(_board, analysis));
-        Services.AddSingleton(new FeederLocate.Application.Lifecycle.IncidentLifecycle(_board));
-        Services.AddSingleton(new FeederLocate.Application.Times.IncidentTimesEntry(_board, TimeProvider.System));
-        Services.AddSingleton(TimeProvider.System);
+        WorkspaceServices.Add(Services, _grids, _board, new IncidentAnalysis(new GridLearning(_board), _ranker));
         var access = AddAuthorization();
         access.SetAuthorized("ana");
         access.SetRoles("operator");
@@ -85,6 +79,7 @@ public sealed class WorkspaceAnalysisTests : BunitContext
         if (disposing)
         {
             _board.Dispose();
+            _grids.Versions.Dispose();
             _ranker.Dispose();
             _database.Dispose();
         }

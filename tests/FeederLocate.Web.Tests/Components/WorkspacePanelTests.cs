@@ -17,7 +17,7 @@ public class WorkspacePanelTests : ComponentTest
     [Fact]
     public void Indicator_entry_offers_only_the_states_of_each_kind_and_raises_the_choice()
     {
-        (Indicator Indicator, IndicatorState State, bool Distrusted)? set = null;
+        (Indicator Indicator, IndicatorState State, bool Distrusted, TimeOnly? ReadAt)? set = null;
         var cut = Render<IndicatorEntry>(p => p
             .Add(c => c.Indicators, _grid.Grid.Indicators)
             .Add(c => c.Current, new Dictionary<IndicatorId, Indication>())
@@ -67,11 +67,16 @@ public class WorkspacePanelTests : ComponentTest
             CrossCountryProbability = 0.9,
         };
 
-        var cut = Render<RankedList>(p => p.Add(c => c.Ranking, ranking));
+        var cut = Render<RankedList>(p => p.Add(c => c.Ranking, ranking).Add(c => c.SegmentNames, _grid.SegmentNames));
 
         var warning = cut.Find("[data-testid='cross-country']");
         Assert.Contains("no single fault explains the evidence", warning.TextContent, StringComparison.Ordinal);
-        cut.Find("li[data-pair='S105+S206']").MarkupMatches("<li data-pair=\"S105+S206\">S105 (SEC-S105) + S206 (SEC-S206): 70 %</li>");
+        var first = _grid.SegmentNames[new SegmentId("S105")];
+        var second = _grid.SegmentNames[new SegmentId("S206")];
+        Assert.StartsWith("A1: ", first, StringComparison.Ordinal);
+        Assert.StartsWith("A2: ", second, StringComparison.Ordinal);
+        cut.Find("li[data-pair='S105+S206']").MarkupMatches(
+            $"<li data-pair=\"S105+S206\" title=\"S105 (SEC-S105) + S206 (SEC-S206)\">{first} + {second}: 70 %</li>");
         Assert.Empty(cut.FindAll("[data-testid='inconsistent']"));
     }
 
@@ -179,21 +184,55 @@ public class RecordAndPlanPanelTests : ComponentTest
     }
 
     [Fact]
-    public void Return_steps_offer_a_button_then_show_the_return_order_with_its_cautions()
+    public void Return_steps_wait_for_the_outcome_then_are_ticked_in_their_own_list_with_who_and_when()
     {
         var ranking = FaultRanking.Rank(_grid.Graph, Incidents.Trip());
         var plan = FeederLocate.Core.Switching.SwitchingPlanner.Plan(_grid.Graph, Incidents.Trip(), ranking);
         var back = FeederLocate.Core.Switching.SwitchingPlanner.PlanReturn(_grid.Graph, Incidents.Trip(), plan);
-        var asked = false;
+        FeederLocate.Core.Switching.SwitchingStep? ticked = null;
 
-        var before = Render<ReturnSteps>(p => p.Add(c => c.OnAsk, () => asked = true));
-        before.Find("[data-testid='show-return']").Click();
-        Assert.True(asked);
+        var before = Render<ReturnSteps>();
+        Assert.Contains("follows the outcome", before.Find("[data-testid='return-waiting']").TextContent, StringComparison.Ordinal);
 
-        var after = Render<ReturnSteps>(p => p.Add(c => c.Attempt, new FeederLocate.Application.Analysis.ReturnAttempt(back, null)));
+        var first = back.Steps[0];
+        var done = new FeederLocate.Storage.Incidents.CompletedPlanStep(
+            new PlanStepCompleted(first.Order, FeederLocate.Application.Switching.CheckedSwitching.ActionName(first.Action), first.Device?.Value),
+            new Actor("ana", "operator"), new DateTimeOffset(2026, 3, 1, 9, 40, 0, TimeSpan.Zero));
+        var after = Render<ReturnSteps>(p => p.Add(c => c.Attempt, new FeederLocate.Application.Analysis.ReturnAttempt(back, null))
+            .Add(c => c.Done, [done]).Add(c => c.OnTick, s => ticked = s));
         Assert.Equal(back.Steps.Length, after.FindAll("ol.steps > li").Count);
         Assert.Contains("removeEarth", after.Markup, StringComparison.Ordinal);
         Assert.Contains("Advice only", after.Find("[data-testid='return-steps']").TextContent, StringComparison.Ordinal);
+        Assert.Contains("done by ana (operator) at 09:40 UTC", after.Find($"[data-testid='return-done-{first.Order}']").TextContent, StringComparison.Ordinal);
+        Assert.True(after.Find($"[data-testid='return-tick-{first.Order}']").HasAttribute("disabled"));
+        after.Find($"[data-testid='return-tick-{back.Steps[1].Order}']").Change(true);
+        Assert.Equal(back.Steps[1], ticked);
+
+        var early = Render<ReturnSteps>(p => p.Add(c => c.Attempt, new FeederLocate.Application.Analysis.ReturnAttempt(back, null))
+            .Add(c => c.NotYet, "the return to normal follows the repair: move the incident to repaired first"));
+        Assert.All(early.FindAll("input[type=checkbox]"), box => Assert.True(box.HasAttribute("disabled")));
+        Assert.Contains("follows the repair", early.Find("[data-testid='return-not-yet']").TextContent, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void The_outcome_form_offers_no_fault_found_and_transient_with_the_incidents_fault_type()
+    {
+        OutcomeLogged? logged = null;
+        NoFaultFoundLogged? none = null;
+        var cut = Render<OutcomeForm>(p => p.Add(c => c.Segments, [new SegmentId("S109")]).Add(c => c.FaultType, FaultType.LL)
+            .Add(c => c.OnLog, o => logged = o).Add(c => c.OnNoFault, n => none = n));
+
+        Assert.Equal("LL", cut.Find("[data-testid=outcome-type]").GetAttribute("value"));
+        Assert.True(cut.Find("[data-testid=log-outcome]").HasAttribute("disabled"));
+        cut.Find("[data-testid=outcome-finding]").Change("transient");
+        Assert.True(cut.Find("[data-testid=outcome-segment]").HasAttribute("disabled"));
+        cut.Find("[data-testid=log-outcome]").Click();
+
+        Assert.Null(logged);
+        Assert.Equal(new NoFaultFoundLogged(true, FaultType.LL), none);
+
+        var shown = Render<OutcomeForm>(p => p.Add(c => c.Segments, [new SegmentId("S109")]).Add(c => c.NoFaultFound, new NoFaultFoundLogged(false, FaultType.LG, "patrolled twice")));
+        Assert.Contains("no fault found (LG), patrolled twice", shown.Find("[data-testid=logged-outcome]").TextContent, StringComparison.Ordinal);
     }
 
     [Fact]

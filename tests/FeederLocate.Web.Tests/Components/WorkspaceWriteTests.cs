@@ -11,6 +11,7 @@ using FeederLocate.Storage.Events;
 using FeederLocate.Web.Components.Pages.Workspace;
 using FeederLocate.Web.Security;
 using FeederLocate.Web.Services;
+using FeederLocate.Web.Tests.Support;
 using Microsoft.Extensions.DependencyInjection;
 
 namespace FeederLocate.Web.Tests.Components;
@@ -25,21 +26,15 @@ public sealed class WorkspaceWriteTests : BunitContext
     private readonly TempDatabase _database = new();
     private readonly IncidentStore _store;
     private readonly IncidentBoard _board;
-    private readonly GridCatalog _grids = new(RepositoryFiles.Path("sample-grid"), SampleGrids.FileName("solid"));
+    private readonly GridCatalog _grids;
     private readonly BunitAuthorizationContext _access;
 
     public WorkspaceWriteTests()
     {
+        _grids = LoadedGrids.Samples(_database.Path);
         _store = IncidentStore.Open(_database.Path);
-        _board = new IncidentBoard(_store, name => _grids.Find(name)?.Grid);
-        Services.AddSingleton(_grids);
-        Services.AddSingleton(_board);
-        var analysis = new IncidentAnalysis(new GridLearning(_board), new CoreFaultRanker());
-        Services.AddSingleton(analysis);
-        Services.AddSingleton(new FeederLocate.Application.Switching.CheckedSwitching(_board, analysis));
-        Services.AddSingleton(new FeederLocate.Application.Lifecycle.IncidentLifecycle(_board));
-        Services.AddSingleton(new FeederLocate.Application.Times.IncidentTimesEntry(_board, TimeProvider.System));
-        Services.AddSingleton(TimeProvider.System);
+        _board = new IncidentBoard(_store, (name, version) => _grids.Find(name, version)?.Grid);
+        WorkspaceServices.Add(Services, _grids, _board, new IncidentAnalysis(new GridLearning(_board), new CoreFaultRanker()));
         _access = AddAuthorization();
         _access.SetAuthorized("ana");
         _access.SetRoles("operator");
@@ -170,6 +165,7 @@ public sealed class WorkspaceWriteTests : BunitContext
         if (disposing)
         {
             _board.Dispose();
+            _grids.Versions.Dispose();
             _database.Dispose();
         }
     }

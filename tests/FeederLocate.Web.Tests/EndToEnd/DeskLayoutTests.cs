@@ -82,7 +82,7 @@ public sealed class DeskLayoutTests(WebAppFixture app) : IClassFixture<WebAppFix
         var grid = SyntheticGrid.Generate(new SyntheticGridOptions(10_000, Seed: 11));
         if (grids.Find(grid.Name) is null)
         {
-            Assert.DoesNotContain(grids.Add("generated-10000.grid.json", FeederLocate.Core.Formats.GridWriter.Write(grid)).Issues, i => i.Severity == FeederLocate.Core.Formats.Severity.Error);
+            Assert.DoesNotContain(grids.Load("generated-10000.grid.json", FeederLocate.Core.Formats.GridWriter.Write(grid), new FeederLocate.Storage.Events.Actor("layout-test", "engineer")).Issues, i => i.Severity == FeederLocate.Core.Formats.Severity.Error);
         }
 
         var loaded = grids.Find(grid.Name)!;

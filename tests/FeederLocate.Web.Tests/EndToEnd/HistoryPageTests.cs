@@ -25,7 +25,7 @@ public sealed class HistoryPageTests(WebAppFixture app) : IClassFixture<WebAppFi
         await page.GetByRole(AriaRole.Button, new() { Name = "Enter record" }).ClickAsync();
         await page.SelectOptionAsync("[data-testid=outcome-segment]", "S109");
         await page.ClickAsync("[data-testid=log-outcome]");
-        await Assertions.Expect(page.Locator("[data-testid=logged-outcome]")).ToContainTextAsync("S109");
+        await Assertions.Expect(page.Locator("[data-testid=logged-outcome] [title=S109]")).ToContainTextAsync(" → "); // named by its section; the id is the tooltip
 
         await page.GotoAsync(app.BaseAddress + "/history");
         await WaitForCircuit(page);

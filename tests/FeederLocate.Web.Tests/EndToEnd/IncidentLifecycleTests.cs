@@ -52,15 +52,17 @@ public sealed class IncidentLifecycleTests(WebAppFixture app) : IClassFixture<We
         await page.ClickAsync("[data-testid=switch-confirm]");
         await Assertions.Expect(sectionaliser).ToHaveClassAsync(new Regex(@"\bclosed\b"));
 
-        // From open to closed: located, the outcome, repaired, the return to normal, closing.
+        // From open to closed: located, the outcome, repaired, the return order ticked step by step, closing.
         await page.ClickAsync("[data-testid=stage-located]");
         await Assertions.Expect(page.Locator("[data-testid=stage]")).ToHaveTextAsync("located");
+        await Assertions.Expect(page.Locator("[data-testid=return-waiting]")).ToBeVisibleAsync();
         await page.SelectOptionAsync("[data-testid=outcome-segment]", "S109");
         await page.ClickAsync("[data-testid=log-outcome]");
-        await Assertions.Expect(page.Locator("[data-testid=logged-outcome]")).ToContainTextAsync("S109");
+        await Assertions.Expect(page.Locator("[data-testid=logged-outcome] [title=S109]")).ToContainTextAsync(" → "); // named by its section; the id is the tooltip
+        await Assertions.Expect(page.Locator("[data-testid=return-not-yet]")).ToContainTextAsync("follows the repair");
         await page.ClickAsync("[data-testid=stage-repaired]");
         await Assertions.Expect(page.Locator("[data-testid=off-normal]")).ToContainTextAsync("CB-A1 is open, normally closed");
-        await page.ClickAsync("[data-testid='normal-CB-A1']");
+        await TickReturnOrder(page);
         await Assertions.Expect(page.Locator("[data-testid=all-normal]")).ToBeVisibleAsync();
         await page.ClickAsync("[data-testid=close-incident]");
         await Assertions.Expect(page.Locator("[data-testid=stage]")).ToHaveTextAsync("closed");
@@ -72,6 +74,71 @@ public sealed class IncidentLifecycleTests(WebAppFixture app) : IClassFixture<We
         await WaitForCircuit(page);
         await Assertions.Expect(page.Locator("[data-testid=incident-list]")).ToContainTextAsync("closed");
         await page.CloseAsync();
+    }
+
+    [Fact]
+    public async Task A_transient_no_fault_found_leads_to_the_return_order_and_closing_and_the_handover_lists_the_open_incident()
+    {
+        var page = await app.SignedInPage("ana", "ana-password-1", "/", new BrowserNewPageOptions { ViewportSize = new ViewportSize { Width = 1600, Height = 1100 } });
+        await WaitForCircuit(page);
+        await page.SelectOptionAsync("[data-testid=new-grid]", SolidGrid);
+        await page.SelectOptionAsync("[data-testid=new-tripped]", "CB-A1");
+        await page.SelectOptionAsync("[data-testid=new-type]", "LL");
+        await page.ClickAsync("[data-testid=open-incident]");
+        await app.WaitForPath(page, "/incidents/");
+        await WaitForCircuit(page);
+        var id = page.Url[(page.Url.LastIndexOf('/') + 1)..];
+
+        // A reading with its own time, typed on the desk.
+        var readAt = DateTimeOffset.UtcNow.AddMinutes(-1).ToString("HH:mm", System.Globalization.CultureInfo.InvariantCulture);
+        await page.FillAsync("[data-testid=quick-indicator]", "FPI-A1-04");
+        await page.FillAsync("[data-testid=quick-state]", "fault");
+        await page.FillAsync("[data-testid=quick-read-at]", readAt);
+        await page.ClickAsync("[data-testid=quick-enter]");
+        await Assertions.Expect(page.Locator("[data-testid=quick-message]")).ToContainTextAsync($"read at {readAt} UTC");
+        await Assertions.Expect(page.Locator("tr[data-indicator-row='FPI-A1-04']")).ToContainTextAsync($"{readAt}:00");
+
+        // The handover lists the open incident with its stage and next step.
+        await page.ClickAsync("[data-testid=nav-handover]");
+        await app.WaitForPath(page, "/handover");
+        await Assertions.Expect(page.Locator($"[data-testid=handover-{id}]")).ToBeVisibleAsync(new LocatorAssertionsToBeVisibleOptions { Timeout = 30_000 });
+        await Assertions.Expect(page.Locator($"[data-testid=handover-stage-{id}]")).ToContainTextAsync("open");
+        await Assertions.Expect(page.Locator($"[data-testid=handover-next-{id}]")).ToContainTextAsync("1. ");
+        await Assertions.Expect(page.Locator($"[data-testid=handover-questions-{id}]")).ToContainTextAsync("Unread indicators:");
+        await page.ScreenshotAsync(new PageScreenshotOptions { Path = Path.Combine(Path.GetTempPath(), "feederlocate-handover.png") });
+        await page.EmulateMediaAsync(new PageEmulateMediaOptions { Media = Media.Print });
+        await Assertions.Expect(page.Locator("header.top")).ToBeHiddenAsync();
+        await page.EmulateMediaAsync(new PageEmulateMediaOptions { Media = Media.Screen });
+
+        // No fault found, transient: the form offers the incident's fault type; no repair is needed before the return.
+        await page.GotoAsync(app.BaseAddress + "/incidents/" + id);
+        await WaitForCircuit(page);
+        await Assertions.Expect(page.Locator("[data-testid=outcome-type]")).ToHaveValueAsync("LL");
+        await page.SelectOptionAsync("[data-testid=outcome-finding]", "transient");
+        await page.ClickAsync("[data-testid=log-outcome]");
+        await Assertions.Expect(page.Locator("[data-testid=logged-outcome]")).ToContainTextAsync("no fault found (transient");
+        await TickReturnOrder(page);
+        await page.ClickAsync("[data-testid=close-incident]");
+        await Assertions.Expect(page.Locator("[data-testid=stage]")).ToHaveTextAsync("closed");
+
+        await page.GotoAsync(app.BaseAddress + "/");
+        await WaitForCircuit(page);
+        await Assertions.Expect(page.Locator($"tr[data-incident='{id}']")).ToContainTextAsync("none found (transient)");
+        await page.CloseAsync();
+    }
+
+    /// <summary>Ticks every step of the return order in order, waiting for each to show who did it.</summary>
+    private static async Task TickReturnOrder(IPage page)
+    {
+        var boxes = page.Locator("[data-testid=return-steps] li[data-return-step]");
+        await Assertions.Expect(boxes.First).ToBeVisibleAsync(new LocatorAssertionsToBeVisibleOptions { Timeout = 30_000 });
+        var orders = await boxes.EvaluateAllAsync<int[]>("items => items.map(i => Number(i.dataset.returnStep))");
+        Assert.NotEmpty(orders);
+        foreach (var order in orders)
+        {
+            await page.ClickAsync($"[data-testid=return-tick-{order}]");
+            await Assertions.Expect(page.Locator($"[data-testid=return-done-{order}]")).ToContainTextAsync("done by ana (operator)");
+        }
     }
 
     private static Task WaitForCircuit(IPage page) =>

@@ -49,11 +49,11 @@ public sealed class IncidentWorkflowTests(WebAppFixture app) : IClassFixture<Web
 
         await page.SelectOptionAsync("[data-testid=outcome-segment]", "S109");
         await page.ClickAsync("[data-testid=log-outcome]");
-        await Assertions.Expect(page.Locator("[data-testid=logged-outcome]")).ToContainTextAsync("S109");
+        await Assertions.Expect(page.Locator("[data-testid=logged-outcome] [title=S109]")).ToContainTextAsync(" → "); // named by its section; the id is the tooltip
 
         await page.ReloadAsync();
         await WaitForCircuit(page);
-        await Assertions.Expect(page.Locator("[data-testid=logged-outcome]")).ToContainTextAsync("S109");
+        await Assertions.Expect(page.Locator("[data-testid=logged-outcome] [title=S109]")).ToContainTextAsync(" → "); // named by its section; the id is the tooltip
         await Assertions.Expect(page.Locator("g[data-indicator='FPI-A1-11']")).ToHaveAttributeAsync("data-state", "forward");
         await Assertions.Expect(page.Locator("[data-testid=done-1]")).ToContainTextAsync("done by ana (operator)");
         await page.CloseAsync();
@@ -86,6 +86,7 @@ public sealed class IncidentWorkflowTests(WebAppFixture app) : IClassFixture<Web
 
         await Assertions.Expect(page.Locator("[data-testid=sign-in-form]")).ToBeVisibleAsync();
         Assert.Contains("returnUrl=%2Fincidents%2F1", page.Url, StringComparison.Ordinal);
+        await Assertions.Expect(page.Locator("[data-testid=cautions]")).ToContainTextAsync("lock and tag");
         await Assertions.Expect(page.Locator("[data-testid=cautions]")).ToContainTextAsync("prove dead");
         await page.CloseAsync();
     }

@@ -5,8 +5,8 @@ using FeederLocate.Web.Services;
 namespace FeederLocate.Web.Tests.Hardening;
 
 /// <summary>
-/// Mutated grid files handed to the grid upload (the Grids page's <see cref="GridCatalog.Add"/>): never an
-/// exception; a grid is loaded whole (its graph and drawing built) or refused with errors and nothing is added.
+/// Mutated grid files handed to the grid upload (the Grids page's <see cref="GridCatalog.Load"/>, replacement
+/// confirmed): never an exception; a grid is stored whole (its graph and drawing built) or refused with errors and nothing is added.
 /// </summary>
 public sealed class GridUploadFuzzTests
 {
@@ -16,19 +16,22 @@ public sealed class GridUploadFuzzTests
     public void A_mutated_grid_upload_is_loaded_whole_or_refused_with_named_errors_and_nothing_added()
     {
         var bases = SampleGrids.Schemes.Select(s => File.ReadAllText(SampleGrids.TinyFenPath(s))).ToList();
-        var catalog = new GridCatalog(Path.Combine(Path.GetTempPath(), "feederlocate-no-grids-" + Guid.NewGuid().ToString("N")), "none");
+        using var database = new TempDatabase();
+        var catalog = Support.LoadedGrids.Catalog(Path.Combine(Path.GetTempPath(), "feederlocate-no-grids-" + Guid.NewGuid().ToString("N")), "none", database.Path);
+        var engineer = new FeederLocate.Storage.Events.Actor("fuzz-engineer", "engineer");
         var (loaded, refused) = (0, 0);
 
         Mutations.MutantGen(bases.Count).Sample(
             mutant =>
             {
                 var before = catalog.All.Count;
-                var result = catalog.Add("upload.grid.json", mutant.Apply(bases));
-                if (result.Value is { } grid)
+                var text = mutant.Apply(bases);
+                var result = catalog.Load("upload.grid.json", text, engineer, replace: true, reason: "mutant");
+                if (result.Outcome is Application.Grids.GridLoadOutcome.Stored or Application.Grids.GridLoadOutcome.Unchanged)
                 {
-                    var added = catalog.Find(grid.Name);
+                    var added = catalog.Find(result.GridName!);
                     Assert.NotNull(added);
-                    Assert.Equal(grid.Segments.Length, added.Graph.Grid.Segments.Length);
+                    Assert.Equal(GridReader.Parse(text).Value!.Segments.Length, added.Graph.Grid.Segments.Length);
                     loaded++;
                 }
                 else

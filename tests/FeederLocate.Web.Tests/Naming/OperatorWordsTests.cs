@@ -2,6 +2,7 @@ using System.Text.RegularExpressions;
 using FeederLocate.Core.Evidence;
 using FeederLocate.Core.Switching;
 using FeederLocate.Web.Naming;
+using FeederLocate.Web.Tests.Support;
 
 namespace FeederLocate.Web.Tests.Naming;
 
@@ -58,4 +59,25 @@ public partial class OperatorWordsTests
     [InlineData(56.73, "56.7")]
     [InlineData(3.456, "3.46")]
     public void A_measured_value_has_sensible_digits(double value, string shown) => Assert.Equal(shown, OperatorWords.Measured(value));
+
+    [Theory]
+    [InlineData(0.25, "0.25 Ω")]
+    [InlineData(4.55, "4.6 Ω")]
+    [InlineData(349.6, "350 Ω")]
+    [InlineData(1200, "1.2 kΩ")]
+    [InlineData(2960, "3 kΩ")]
+    [InlineData(12_400, "12 kΩ")]
+    public void A_fault_resistance_is_given_in_ohms_or_kilohms(double ohm, string shown) => Assert.Equal(shown, OperatorWords.Resistance(ohm));
+
+    [Fact]
+    public void Section_and_segment_ids_in_a_text_become_names_but_an_id_inside_a_device_name_stays()
+    {
+        var grid = LoadedGrids.Sample("solid");
+        var section = grid.SectionNames[new FeederLocate.Core.Model.SectionId("SEC-S101")];
+        var segment = grid.SegmentNames[new FeederLocate.Core.Model.SegmentId("S102")];
+
+        var shown = OperatorWords.WithNames("patrol SEC-S101 and S102. Read FPI-S102 (S102).", grid.SectionNames, grid.SegmentNames);
+
+        Assert.Equal($"patrol {section} and {segment}. Read FPI-S102 ({segment}).", shown);
+    }
 }

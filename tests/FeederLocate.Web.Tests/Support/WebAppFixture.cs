@@ -45,6 +45,41 @@ public sealed class WebAppFixture : IAsyncLifetime
 
         // A 2-core machine that also computes rankings and plans on every change: give the page time.
         Assertions.SetDefaultExpectTimeout(30_000);
+        StartApp();
+        Accounts = _factory.Services.GetRequiredService<AccountDirectory>();
+        Accounts.CreateWithPassword("ana", "Ana Field", AccountRole.Operator, "ana-password-1", null, Setup);
+        Accounts.CreateWithPassword("ben", "Ben Line", AccountRole.Operator, "ben-password-1", null, Setup);
+        Accounts.CreateWithPassword("vera", "<img src=x onerror=alert(1)>Vera", AccountRole.Viewer, "vera-password-1", null, Setup);
+
+        _playwright = await Playwright.CreateAsync();
+        Browser = await _playwright.Chromium.LaunchAsync(new BrowserTypeLaunchOptions
+        {
+            ExecutablePath = ChromiumPath,
+            Headless = true,
+            Args = ["--headless", "--no-sandbox", "--disable-gpu", "--disable-quic", "--no-first-run",
+                "--disable-background-networking", "--disable-component-update", "--disable-sync"],
+        });
+    }
+
+    /// <summary>
+    /// Stops the app and starts it again on the same database file and grid folder, as a restart of the server
+    /// does; the accounts, incidents and grid versions are what the file holds. Open pages lose their circuit.
+    /// </summary>
+    public async Task RestartAsync()
+    {
+        if (_factory is not null)
+        {
+            await _factory.DisposeAsync();
+        }
+
+        Microsoft.Data.Sqlite.SqliteConnection.ClearAllPools();
+        StartApp();
+        Accounts = _factory.Services.GetRequiredService<AccountDirectory>();
+    }
+
+    [System.Diagnostics.CodeAnalysis.MemberNotNull(nameof(_factory))]
+    private void StartApp()
+    {
         _factory = new WebApplicationFactory<Program>().WithWebHostBuilder(b =>
         {
             b.UseSetting("FeederLocate:DatabasePath", Path.Combine(_folder, "incidents.db"));
@@ -59,19 +94,6 @@ public sealed class WebAppFixture : IAsyncLifetime
         _factory.StartServer();
         var addresses = _factory.Services.GetRequiredService<IServer>().Features.Get<IServerAddressesFeature>()!.Addresses;
         BaseAddress = addresses.First(a => a.StartsWith("http://127.0.0.1", StringComparison.Ordinal));
-        Accounts = _factory.Services.GetRequiredService<AccountDirectory>();
-        Accounts.CreateWithPassword("ana", "Ana Field", AccountRole.Operator, "ana-password-1", null, Setup);
-        Accounts.CreateWithPassword("ben", "Ben Line", AccountRole.Operator, "ben-password-1", null, Setup);
-        Accounts.CreateWithPassword("vera", "<img src=x onerror=alert(1)>Vera", AccountRole.Viewer, "vera-password-1", null, Setup);
-
-        _playwright = await Playwright.CreateAsync();
-        Browser = await _playwright.Chromium.LaunchAsync(new BrowserTypeLaunchOptions
-        {
-            ExecutablePath = ChromiumPath,
-            Headless = true,
-            Args = ["--headless", "--no-sandbox", "--disable-gpu", "--disable-quic", "--no-first-run",
-                "--disable-background-networking", "--disable-component-update", "--disable-sync"],
-        });
     }
 
     /// <summary>A new page (its own cookies) signed in through the sign-in form, left on <paramref name="path"/>.</summary>

@@ -9,7 +9,7 @@ public static class Cautions
     [
         "Advice only: this plan is computed from a model that can be wrong.",
         "Verify every device, position and step on site before it is carried out.",
-        "Before any work: prove dead, earth on both sides, and issue a permit.",
+        "Before any work: lock and tag every isolation point open, prove dead, earth on both sides, and issue a permit.",
         "Local switching rules and licensed practice govern.",
     ];
 }

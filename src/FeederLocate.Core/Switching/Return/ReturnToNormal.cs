@@ -34,10 +34,29 @@ internal static class ReturnToNormal
             throw new PlanningException($"the plan's final state gives no radial network: {problem}");
         }
 
+        return From(graph, states, plan, options);
+    }
+
+    /// <summary>
+    /// The return from the switch positions <paramref name="states"/> as they stand (the switching as carried out),
+    /// with the clearance of <paramref name="plan"/>'s earths and locks (none when null).
+    /// </summary>
+    public static ReturnPlan From(NetworkGraph graph, SwitchStates states, SwitchingPlan? plan, SwitchingOptions options)
+    {
+        var grid = graph.Grid;
+        if (!graph.TryEnergise(states, out _, out var problem))
+        {
+            throw new PlanningException($"the present switch positions give no radial network: {problem}");
+        }
+
         var normal = SwitchStates.Normal(grid);
         var served = graph.TryEnergise(normal, out var normalNetwork, out _) ? normalNetwork! : null;
         var steps = new List<SwitchingStep>();
-        Clearance(grid, plan, steps);
+        if (plan is not null)
+        {
+            Clearance(grid, plan, steps);
+        }
+
         var moves = Enumerable.Range(0, grid.Switches.Length).Where(i => states.IsClosed(i) != normal.IsClosed(i)).ToList();
         var notes = new List<string>();
         var order = moves.Count <= ExactLimit ? Exact(graph, states, moves, served, options) : null;

@@ -45,6 +45,40 @@ public static class StepCheck
     }
 
     /// <summary>
+    /// The device rules for an operation of the return to normal, after the repair: no section is suspect any more,
+    /// so only load current flows; refused when it opens a disconnector or fuse live, closes one onto a live node,
+    /// or closes a loop or parallels two substations. Null when allowed; else the reason in words.
+    /// </summary>
+    public static string? CheckAfterRepair(NetworkGraph graph, SwitchStates now, SwitchId device, SwitchPosition position)
+    {
+        ArgumentNullException.ThrowIfNull(graph);
+        ArgumentNullException.ThrowIfNull(now);
+        if (!graph.Grid.HasSwitch(device))
+        {
+            return $"{device} is not a switching device of grid '{graph.Grid.Name}'";
+        }
+
+        if (!graph.TryEnergise(now, out var network, out _) || network is null)
+        {
+            return "the present switch positions give no radial network: record the positions found on site first";
+        }
+
+        var d = graph.Grid.Switch(device);
+        var closed = now.IsClosed(device);
+        var open = position == SwitchPosition.Open;
+        var fromLive = network.IsEnergised(d.From);
+        var toLive = network.IsEnergised(d.To);
+        if (!open && !graph.TryEnergise(now.With(device, SwitchPosition.Closed), out _, out _))
+        {
+            return $"closing {device} would close a loop or parallel two substations";
+        }
+
+        return open
+            ? DeviceRules.Open(d, closed, fromLive, toLive, ThroughCurrent.Load)
+            : DeviceRules.Close(d, closed, fromLive, toLive, energisesSuspect: false);
+    }
+
+    /// <summary>
     /// The rule an open or close of switch <paramref name="index"/> breaks from <paramref name="states"/>
     /// (null when none), with the positions and the energised network after it (null when not radial).
     /// </summary>
