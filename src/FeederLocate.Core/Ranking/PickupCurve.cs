@@ -34,7 +34,19 @@ internal static class PickupCurve
         return z <= -BandSigma ? 0 : z >= BandSigma ? 1 : Math.Clamp((Logistic(z) - Low) / Span, 0, 1);
     }
 
-    private static double Logistic(double z) => 1 / (1 + Math.Exp(-1.702 * z));
+    private static double Logistic(double z) => 1 / (1 + Math.Exp(-Slope * z));
+
+    private const double Slope = 1.702;
+
+    /// <summary>
+    /// e^(−1.702 z) for the current-to-pickup ratio's inverse <paramref name="pickupToCurrent"/> = I_pickup / I:
+    /// z = ln(I / I_pickup) / σ, so e^(−1.702 z) = (I_pickup / I)^(1.702 / σ). Ratios of such values are
+    /// again such values, which lets a sum over sorted pickups step from one to the next by a multiplication.
+    /// </summary>
+    public static double ExponentialFactor(double pickupToCurrent, double sigma) => Math.Pow(pickupToCurrent, Slope / sigma);
+
+    /// <summary>P(pickup) from e^(−1.702 z) (see <see cref="ExponentialFactor"/>): the same truncated, stretched logistic as <see cref="Probability"/>.</summary>
+    public static double FromExponential(double exponential) => Math.Clamp(((1 / (1 + exponential)) - Low) / Span, 0, 1);
 
     /// <summary>The factor e^(band) by which the current may differ from the pickup and the answer still be uncertain.</summary>
     public static double BandFactor(double sigma) => Math.Exp(BandSigma * Math.Max(0, sigma));

@@ -26,6 +26,8 @@ internal sealed class RankingComputation
     private readonly MeasuringPoint? _trip;
     private readonly List<IndicatorId> _leftOut = [];
     private readonly ImmutableArray<FaultTypePlan>[] _plans;
+    private readonly Quadrature[][] _coarse;
+    private readonly Quadrature[][] _refined;
     private readonly bool[] _beyond;
     private readonly bool[] _measuredBeyond;
     private readonly IndicationSums _sums;
@@ -53,6 +55,8 @@ internal sealed class RankingComputation
         _measured = EvidencePoints.Measurements(_grid, incident, _model);
         _trip = incident.TrippedDevice is { } tripped ? _model.SwitchPoint(_grid.SwitchIndex(tripped)) : null;
         _plans = [.. _grid.Substations.Select(s => HypothesisPlan.For(s.Grounding.Scheme, incident, options))];
+        _coarse = [.. _plans.Select(plans => plans.Select(Quadrature.Coarse).ToArray())];
+        _refined = [.. _plans.Select(plans => plans.Select(Quadrature.Refined).ToArray())];
         _beyond = new bool[_observed.Count];
         _measuredBeyond = new bool[_measured.Count];
         _sums = new IndicationSums(_model, _observed, options.PickupTolerance);
@@ -291,15 +295,19 @@ internal sealed class RankingComputation
         var tripLog = TripLogFactor(segment);
         var marginal = double.NegativeInfinity;
         var best = new BestHypothesis(FaultType.LG, 0, 0.5, double.NegativeInfinity);
-        var byType = new Dictionary<FaultType, double>();
-        foreach (var plan in _plans[sub])
+        var plans = _plans[sub];
+        var byType = new Dictionary<FaultType, double>(plans.Length);
+        var quadratures = refined ? _refined[sub] : _coarse[sub];
+        for (var t = 0; t < plans.Length; t++)
         {
+            var plan = plans[t];
+            var quadrature = quadratures[t];
             var protection = _protection.TypeLog(segment, plan.Type, sub);
             var typeMarginal = double.NegativeInfinity;
-            var quadrature = refined ? RefinedQuadrature(plan) : plan.ResistancesOhm.Select((r, k) => (r, plan.ResistanceLogWeights[k])).ToList();
-            foreach (var (rf, resistanceLogWeight) in quadrature)
+            for (var q = 0; q < quadrature.ResistancesOhm.Length; q++)
             {
-                var logWeight = plan.LogWeight + resistanceLogWeight;
+                var rf = quadrature.ResistancesOhm[q];
+                var logWeight = quadrature.LogWeights[q];
                 var mid = _model.Solve(segment, 0.5, plan.Type, rf);
                 var (evidence, position) = AlongSegment(segment, plan.Type, rf, mid, refined);
                 var likelihood = evidence + protection
@@ -320,28 +328,37 @@ internal sealed class RankingComputation
     }
 
     /// <summary>
-    /// Each grid resistance's prior weight spread evenly over four points of its cell (from halfway to the
-    /// previous point to halfway to the next, halfway taken on a log scale except next to 0 Ω).
+    /// The fault resistances of one plan with their log weights, the type's prior weight included: the
+    /// plan's own grid, or (refined) each grid resistance's prior weight spread evenly over four points of
+    /// its cell (from halfway to the previous point to halfway to the next, halfway taken on a log scale
+    /// except next to 0 Ω). Built once per ranking, not once per segment.
     /// </summary>
-    private static List<(double ResistanceOhm, double LogWeight)> RefinedQuadrature(FaultTypePlan plan)
+    private sealed record Quadrature(double[] ResistancesOhm, double[] LogWeights)
     {
-        var r = plan.ResistancesOhm;
-        var points = new List<(double, double)>();
-        double Boundary(int k) => r[k] <= 0 ? r[k + 1] / 2 : Math.Sqrt(r[k] * r[k + 1]);
-        for (var k = 0; k < r.Length; k++)
-        {
-            var lo = k == 0 ? r[0] : Boundary(k - 1);
-            var hi = k == r.Length - 1 ? r[k] : Boundary(k);
-            var logWeight = plan.ResistanceLogWeights[k] - Math.Log(4);
-            for (var j = 0; j < 4; j++)
-            {
-                var f = (j + 0.5) / 4;
-                var value = lo <= 0 ? (j == 0 ? 0 : hi * j / 3.0) : lo * Math.Pow(hi / lo, f);
-                points.Add((value, logWeight));
-            }
-        }
+        public static Quadrature Coarse(FaultTypePlan plan) =>
+            new([.. plan.ResistancesOhm], [.. plan.ResistanceLogWeights.Select(w => plan.LogWeight + w)]);
 
-        return points;
+        public static Quadrature Refined(FaultTypePlan plan)
+        {
+            var r = plan.ResistancesOhm;
+            var values = new List<double>();
+            var weights = new List<double>();
+            double Boundary(int k) => r[k] <= 0 ? r[k + 1] / 2 : Math.Sqrt(r[k] * r[k + 1]);
+            for (var k = 0; k < r.Length; k++)
+            {
+                var lo = k == 0 ? r[0] : Boundary(k - 1);
+                var hi = k == r.Length - 1 ? r[k] : Boundary(k);
+                var logWeight = plan.ResistanceLogWeights[k] - Math.Log(4);
+                for (var j = 0; j < 4; j++)
+                {
+                    var f = (j + 0.5) / 4;
+                    values.Add(lo <= 0 ? (j == 0 ? 0 : hi * j / 3.0) : lo * Math.Pow(hi / lo, f));
+                    weights.Add(plan.LogWeight + logWeight);
+                }
+            }
+
+            return new([.. values], [.. weights]);
+        }
     }
 
     /// <summary>
