@@ -293,6 +293,11 @@ internal sealed class RankingComputation
         }
 
         var tripLog = TripLogFactor(segment);
+        if (refined)
+        {
+            return ScoreRefined(segment, sub, tripLog);
+        }
+
         var marginal = double.NegativeInfinity;
         var best = new BestHypothesis(FaultType.LG, 0, 0.5, double.NegativeInfinity);
         var plans = _plans[sub];
@@ -326,6 +331,68 @@ internal sealed class RankingComputation
         var logPrior = Math.Log(Math.Max(1e-12, _priors.FaultsPerYear(_grid, _grid.Segments[segment])));
         return new SegmentScore(segment, logPrior, tripLog + marginal, best, byType);
     }
+
+    /// <summary>
+    /// A contender's score on the finer quadrature: every fault type and resistance first at evenly spaced
+    /// positions, then, for those within <see cref="PositionCells.PeakWindowNats"/> of the segment's best,
+    /// more positions where the likelihood still changes sharply along the segment (see <see cref="PositionCells"/>).
+    /// </summary>
+    private SegmentScore ScoreRefined(int segment, int sub, double tripLog)
+    {
+        var plans = _plans[sub];
+        var quadratures = _refined[sub];
+        var series = new List<(int Plan, double ResistanceOhm, double LogWeight, double Other, PositionCells Cells, bool Along)>();
+        for (var t = 0; t < plans.Length; t++)
+        {
+            var plan = plans[t];
+            var protection = _protection.TypeLog(segment, plan.Type, sub);
+            for (var q = 0; q < quadratures[t].ResistancesOhm.Length; q++)
+            {
+                var rf = quadratures[t].ResistancesOhm[q];
+                var mid = _model.Solve(segment, 0.5, plan.Type, rf);
+                var other = protection + (_protection.HasResistanceTerms ? _protection.FaultLog(segment, mid, rf) : 0);
+                var positions = PositionsFor(segment, plan.Type, mid, refined: true);
+                var cells = PositionCells.At(positions, EvidenceAt(segment, plan.Type, rf, mid));
+                series.Add((t, rf, quadratures[t].LogWeights[q], other, cells, positions.Length > 1));
+            }
+        }
+
+        var bestLog = series.Max(x => x.Cells.MaximumLog + x.Other);
+        foreach (var x in series.Where(x => x.Along && x.Cells.MaximumLog + x.Other >= bestLog - PositionCells.PeakWindowNats))
+        {
+            x.Cells.Refine(EvidenceAt(segment, plans[x.Plan].Type, x.ResistanceOhm, _model.Solve(segment, 0.5, plans[x.Plan].Type, x.ResistanceOhm)), bestLog - PositionCells.PeakWindowNats - x.Other);
+        }
+
+        var marginal = double.NegativeInfinity;
+        var best = new BestHypothesis(FaultType.LG, 0, 0.5, double.NegativeInfinity);
+        var byType = new Dictionary<FaultType, double>(plans.Length);
+        for (var t = 0; t < plans.Length; t++)
+        {
+            var typeMarginal = double.NegativeInfinity;
+            foreach (var x in series.Where(x => x.Plan == t))
+            {
+                var likelihood = x.Cells.LogMean + x.Other;
+                typeMarginal = LogMath.Add(typeMarginal, x.LogWeight + likelihood);
+                if (likelihood + tripLog > best.LogLikelihood)
+                {
+                    best = new BestHypothesis(plans[t].Type, x.ResistanceOhm, x.Along ? x.Cells.BestPosition : 0.5, likelihood + tripLog);
+                }
+            }
+
+            byType[plans[t].Type] = tripLog + typeMarginal;
+            marginal = LogMath.Add(marginal, typeMarginal);
+        }
+
+        var logPrior = Math.Log(Math.Max(1e-12, _priors.FaultsPerYear(_grid, _grid.Segments[segment])));
+        return new SegmentScore(segment, logPrior, tripLog + marginal, best, byType);
+    }
+
+    /// <summary>The indications' and records' joint log-likelihood of a fault at a position of the segment (the midpoint's solution reused).</summary>
+    private Func<double, double> EvidenceAt(int segment, FaultType type, double rf, FaultSolution mid) => position =>
+    {
+        var fault = position == 0.5 ? mid : _model.Solve(segment, position, type, rf);
+        return _sums.LogLikelihood(segment, fault) + RecordsAt(fault);
+    };
 
     /// <summary>
     /// The fault resistances of one plan with their log weights, the type's prior weight included: the
@@ -398,7 +465,7 @@ internal sealed class RankingComputation
     /// Positions at which to compare the evidence: the midpoint where the drop of the fault current along the
     /// whole segment is under <see cref="FlatDropShare"/> of the phase voltage; else the option's positions,
     /// and in the refined pass evenly spaced ones, one per <see cref="FlatDropShare"/>·2 of drop, up to
-    /// <see cref="MaximumPositions"/>.
+    /// <see cref="MaximumPositions"/> (cut finer near a sharp peak by <see cref="PositionCells"/>).
     /// </summary>
     private ImmutableArray<double> PositionsFor(int segment, FaultType type, in FaultSolution mid, bool refined)
     {
