@@ -1,3 +1,4 @@
+using System.Runtime.CompilerServices;
 using FeederLocate.Core.Electrical;
 using FeederLocate.Core.Evidence;
 using FeederLocate.Core.Topology;
@@ -125,6 +126,7 @@ internal sealed class IndicationSums
     }
 
     /// <summary>Σ log P(record | expected) over every observed indication, for a fault on the segment.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public double LogLikelihood(int segment, in FaultSolution fault)
     {
         var sub = fault.Substation;
@@ -173,6 +175,7 @@ internal sealed class IndicationSums
     /// <see cref="PickupCurve.ExponentialFactor"/> of the two; each term is w·ln(1 + P(pickup)·(P(record |
     /// picked) / P(record | none) − 1)), and the terms of full weight are multiplied before one logarithm.
     /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private double Band(int sub, int first, double u0)
     {
         var thresholds = _thresholdsV[sub];
@@ -216,6 +219,7 @@ internal sealed class IndicationSums
     private readonly record struct BandTerm(double RatioLessOne, double Weight, double ExponentialStep);
 
     /// <summary>Replaces the not-beyond term counted in the sums by the beyond term.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private double Correction(int i, in FaultSolution fault)
     {
         var o = _observed[i];

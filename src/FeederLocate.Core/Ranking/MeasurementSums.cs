@@ -1,3 +1,4 @@
+using System.Runtime.CompilerServices;
 using FeederLocate.Core.Electrical;
 using FeederLocate.Core.Model;
 
@@ -46,6 +47,7 @@ internal sealed class MeasurementSums
     }
 
     /// <summary>Σ log-likelihood of every record for the fault; <paramref name="beyond"/> lists the records whose device has it beyond.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public double LogLikelihood(in FaultSolution fault, IReadOnlyList<int> beyond)
     {
         var sub = fault.Substation;

@@ -1,3 +1,4 @@
+using System.Runtime.CompilerServices;
 using System.Collections.Immutable;
 using FeederLocate.Core.Electrical;
 using FeederLocate.Core.Evidence;
@@ -91,7 +92,12 @@ internal sealed class RankingComputation
 
     internal NetworkGraph Graph => _graph;
 
-    /// <summary>Scores every energised segment.</summary>
+    /// <summary>
+    /// Scores every energised segment. This and the loops it calls are compiled fully optimised at once
+    /// (AggressiveOptimization): each runs once per ranking, too few calls for tiered compilation to
+    /// optimise them before the first few dozen rankings after a start.
+    /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public List<SegmentScore> ScoreSegments()
     {
         var scores = new List<SegmentScore>();
@@ -278,6 +284,7 @@ internal sealed class RankingComputation
     /// <summary>How far below the best coarse posterior a segment is still refined, in nats (e^-20 ≈ 2e-9).</summary>
     private const double RefinedWithinNats = 20;
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private SegmentScore Score(int segment, bool refined = false)
     {
         var sub = Network.SubstationIndexOf(Network.SuppliedEndOf(segment));
@@ -435,6 +442,7 @@ internal sealed class RankingComputation
     /// the evidence shows changes along it and the midpoint stands for it; otherwise more positions the
     /// larger the drop (the finer check of the best explanation still uses its own positions).
     /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private (double LogLikelihood, double BestPosition) AlongSegment(int segment, FaultType type, double rf, in FaultSolution mid, bool refined)
     {
         var positions = PositionsFor(segment, type, mid, refined);
@@ -459,6 +467,7 @@ internal sealed class RankingComputation
         return (total - Math.Log(positions.Length), best.Position);
     }
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private double RecordsAt(in FaultSolution fault) => _measured.Count == 0 ? 0 : _records.LogLikelihood(fault, _recordsBeyond);
 
     /// <summary>
