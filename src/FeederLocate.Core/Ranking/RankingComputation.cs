@@ -35,8 +35,8 @@ internal sealed class RankingComputation
     private readonly MeasurementSums _records;
     private readonly List<int> _recordsBeyond = [];
     private readonly ProtectionEvidence _protection;
-    private readonly System.Numerics.Complex[] _segmentZ1Ohm;
-    private readonly System.Numerics.Complex[] _segmentZ0Ohm;
+    private readonly double[] _segmentZ1MagnitudeOhm;
+    private readonly double[] _segmentEarthLoopOhm;
 
     public RankingComputation(NetworkGraph graph, Incident incident, RankingOptions options, RankingPriors priors)
     {
@@ -63,8 +63,11 @@ internal sealed class RankingComputation
         _sums = new IndicationSums(_model, _observed, options.PickupTolerance);
         _records = new MeasurementSums(this, _measured, _model);
         _protection = new ProtectionEvidence(_model, incident, options);
-        _segmentZ1Ohm = [.. _grid.Segments.Select(x => new System.Numerics.Complex(_grid.LineTypeOf(x).R1OhmPerKm, _grid.LineTypeOf(x).X1OhmPerKm) * x.LengthKm)];
-        _segmentZ0Ohm = [.. _grid.Segments.Select(x => new System.Numerics.Complex(_grid.LineTypeOf(x).R0OhmPerKm, _grid.LineTypeOf(x).X0OhmPerKm) * x.LengthKm)];
+        // |Z1| and the earth-fault loop |(2·Z1 + Z0) / 3| of each segment, for the drop along it.
+        var z1 = _grid.Segments.Select(x => new System.Numerics.Complex(_grid.LineTypeOf(x).R1OhmPerKm, _grid.LineTypeOf(x).X1OhmPerKm) * x.LengthKm).ToArray();
+        var z0 = _grid.Segments.Select(x => new System.Numerics.Complex(_grid.LineTypeOf(x).R0OhmPerKm, _grid.LineTypeOf(x).X0OhmPerKm) * x.LengthKm).ToArray();
+        _segmentZ1MagnitudeOhm = [.. z1.Select(z => z.Magnitude)];
+        _segmentEarthLoopOhm = [.. z1.Select((z, s) => (((2 * z) + z0[s]) / 3).Magnitude)];
     }
 
     public EnergisedNetwork Network { get; }
@@ -478,9 +481,8 @@ internal sealed class RankingComputation
     /// </summary>
     private ImmutableArray<double> PositionsFor(int segment, FaultType type, in FaultSolution mid, bool refined)
     {
-        var z1 = _segmentZ1Ohm[segment];
-        var loop = type is FaultType.LG or FaultType.LLG ? ((2 * z1) + _segmentZ0Ohm[segment]) / 3 : z1;
-        var dropShare = mid.FaultedPhaseCurrentA * loop.Magnitude / mid.PhaseVoltageV;
+        var loopOhm = type is FaultType.LG or FaultType.LLG ? _segmentEarthLoopOhm[segment] : _segmentZ1MagnitudeOhm[segment];
+        var dropShare = mid.FaultedPhaseCurrentA * loopOhm / mid.PhaseVoltageV;
         if (dropShare < FlatDropShare)
         {
             return MidpointOnly;
