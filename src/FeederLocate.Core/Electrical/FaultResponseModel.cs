@@ -1,3 +1,4 @@
+using System.Runtime.CompilerServices;
 using System.Collections.Immutable;
 using FeederLocate.Core.Evidence;
 using FeederLocate.Core.Model;
@@ -59,6 +60,7 @@ public sealed class FaultResponseModel
     public Grid Grid => Network.Grid;
 
     /// <summary>Solves a fault on segment index <paramref name="segment"/> at <paramref name="position"/> (fraction from its from node).</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public FaultSolution Solve(int segment, double position, FaultType type, double faultResistanceOhm)
     {
         if (!(position is >= 0 and <= 1))

@@ -1,3 +1,4 @@
+using System.Runtime.CompilerServices;
 using FeederLocate.Core.Electrical;
 using FeederLocate.Core.Model;
 
@@ -6,8 +7,9 @@ namespace FeederLocate.Core.Ranking;
 /// <summary>
 /// The substation measurements' log-likelihood for a fault, in O(k): a record whose device does not have
 /// the fault beyond it predicts no phase current, a residual of |U0|·3|Y0B| and the bus |U0|, so all
-/// of them together are one smooth function of |U0| per substation, tabulated once and interpolated.
-/// Only the k records with the fault beyond their device are evaluated one by one.
+/// of them together are one smooth function of |U0| per substation, tabulated and interpolated (each
+/// table entry computed when first needed: most rankings visit a small range of |U0|). Only the k records
+/// with the fault beyond their device are evaluated one by one.
 /// </summary>
 internal sealed class MeasurementSums
 {
@@ -17,6 +19,7 @@ internal sealed class MeasurementSums
     private readonly double[] _otherNetworks;
     private readonly double[][] _table;
     private readonly double[] _stepV;
+    private readonly List<MeasurementPoint>[] _same;
 
     public MeasurementSums(RankingComputation computation, IReadOnlyList<MeasurementPoint> records, FaultResponseModel model)
     {
@@ -26,6 +29,7 @@ internal sealed class MeasurementSums
         _otherNetworks = new double[substations.Length];
         _table = new double[substations.Length][];
         _stepV = new double[substations.Length];
+        _same = new List<MeasurementPoint>[substations.Length];
         for (var sub = 0; sub < substations.Length; sub++)
         {
             foreach (var r in records.Where(r => r.Point.Substation != sub))
@@ -36,16 +40,14 @@ internal sealed class MeasurementSums
             // |U0| of an earth fault stays below about 1.5·E even near resonance; above, values are computed directly.
             var maximumV = Units.PhaseVoltageV(substations[sub].NominalVoltageKv, 1.5 * model.VoltageFactor);
             _stepV[sub] = maximumV / TableSteps;
-            var same = records.Where(r => r.Point.Substation == sub).ToList();
+            _same[sub] = [.. records.Where(r => r.Point.Substation == sub)];
             _table[sub] = new double[TableSteps + 1];
-            for (var k = 0; k <= TableSteps; k++)
-            {
-                _table[sub][k] = NotBeyond(same, k * _stepV[sub]);
-            }
+            Array.Fill(_table[sub], double.NaN);
         }
     }
 
     /// <summary>Σ log-likelihood of every record for the fault; <paramref name="beyond"/> lists the records whose device has it beyond.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public double LogLikelihood(in FaultSolution fault, IReadOnlyList<int> beyond)
     {
         var sub = fault.Substation;
@@ -69,14 +71,32 @@ internal sealed class MeasurementSums
         var k = (int)x;
         if (k >= TableSteps)
         {
-            var same = _records.Where(r => r.Point.Substation == sub).ToList();
-            return NotBeyond(same, u0);
+            return NotBeyond(_same[sub], u0);
         }
 
         var t = x - k;
-        return (_table[sub][k] * (1 - t)) + (_table[sub][k + 1] * t);
+        return (Entry(sub, k) * (1 - t)) + (Entry(sub, k + 1) * t);
     }
 
-    private double NotBeyond(List<MeasurementPoint> same, double u0) =>
-        same.Sum(r => _computation.MeasurementLogLikelihood(r.Measurement, (0, u0 * r.Point.NotBeyondGainS, u0)));
+    private double Entry(int sub, int k)
+    {
+        var table = _table[sub];
+        if (double.IsNaN(table[k]))
+        {
+            table[k] = NotBeyond(_same[sub], k * _stepV[sub]);
+        }
+
+        return table[k];
+    }
+
+    private double NotBeyond(List<MeasurementPoint> same, double u0)
+    {
+        var sum = 0.0;
+        foreach (var r in same)
+        {
+            sum += _computation.MeasurementLogLikelihood(r.Measurement, (0, u0 * r.Point.NotBeyondGainS, u0));
+        }
+
+        return sum;
+    }
 }

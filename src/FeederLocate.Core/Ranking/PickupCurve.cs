@@ -15,7 +15,7 @@ internal static class PickupCurve
     public const double BandSigma = 3;
 
     private static readonly double Low = Logistic(-BandSigma);
-    private static readonly double Span = Logistic(BandSigma) - Low;
+    private static readonly double InverseSpan = 1 / (Logistic(BandSigma) - Low);
 
     /// <summary>P(pickup) for <paramref name="currentA"/> at a setting <paramref name="pickupA"/>; 0 where the element is absent (NaN) or sees nothing.</summary>
     public static double Probability(double currentA, double pickupA, double sigma)
@@ -30,11 +30,52 @@ internal static class PickupCurve
             return currentA >= pickupA ? 1 : 0;
         }
 
+        // Outside the band the answer is a step: decided by the ratio alone, without a logarithm.
+        var band = BandOf(sigma);
+        if (currentA <= pickupA / band.Factor)
+        {
+            return 0;
+        }
+
+        if (currentA >= pickupA * band.Factor)
+        {
+            return 1;
+        }
+
         var z = Math.Log(currentA / pickupA) / sigma;
-        return z <= -BandSigma ? 0 : z >= BandSigma ? 1 : Math.Clamp((Logistic(z) - Low) / Span, 0, 1);
+        return z <= -BandSigma ? 0 : z >= BandSigma ? 1 : Math.Clamp((Logistic(z) - Low) * InverseSpan, 0, 1);
     }
 
-    private static double Logistic(double z) => 1 / (1 + Math.Exp(-1.702 * z));
+    /// <summary>The band factor of the last σ asked for (one ranking uses one σ): e^(3σ) computed once, not per indicator.</summary>
+    private static Band _last = new(0, 1);
+
+    private static Band BandOf(double sigma)
+    {
+        var last = _last;
+        if (last.Sigma != sigma)
+        {
+            last = new Band(sigma, BandFactor(sigma));
+            _last = last;
+        }
+
+        return last;
+    }
+
+    private sealed record Band(double Sigma, double Factor);
+
+    private static double Logistic(double z) => 1 / (1 + Math.Exp(-Slope * z));
+
+    private const double Slope = 1.702;
+
+    /// <summary>
+    /// e^(−1.702 z) for the current-to-pickup ratio's inverse <paramref name="pickupToCurrent"/> = I_pickup / I:
+    /// z = ln(I / I_pickup) / σ, so e^(−1.702 z) = (I_pickup / I)^(1.702 / σ). Ratios of such values are
+    /// again such values, which lets a sum over sorted pickups step from one to the next by a multiplication.
+    /// </summary>
+    public static double ExponentialFactor(double pickupToCurrent, double sigma) => Math.Pow(pickupToCurrent, Slope / sigma);
+
+    /// <summary>P(pickup) from e^(−1.702 z) (see <see cref="ExponentialFactor"/>): the same truncated, stretched logistic as <see cref="Probability"/>.</summary>
+    public static double FromExponential(double exponential) => Math.Clamp(((1 / (1 + exponential)) - Low) * InverseSpan, 0, 1);
 
     /// <summary>The factor e^(band) by which the current may differ from the pickup and the answer still be uncertain.</summary>
     public static double BandFactor(double sigma) => Math.Exp(BandSigma * Math.Max(0, sigma));

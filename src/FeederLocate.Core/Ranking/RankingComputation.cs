@@ -1,3 +1,4 @@
+using System.Runtime.CompilerServices;
 using System.Collections.Immutable;
 using FeederLocate.Core.Electrical;
 using FeederLocate.Core.Evidence;
@@ -26,14 +27,16 @@ internal sealed class RankingComputation
     private readonly MeasuringPoint? _trip;
     private readonly List<IndicatorId> _leftOut = [];
     private readonly ImmutableArray<FaultTypePlan>[] _plans;
+    private readonly Quadrature[][] _coarse;
+    private readonly Quadrature[][] _refined;
     private readonly bool[] _beyond;
     private readonly bool[] _measuredBeyond;
     private readonly IndicationSums _sums;
     private readonly MeasurementSums _records;
     private readonly List<int> _recordsBeyond = [];
     private readonly ProtectionEvidence _protection;
-    private readonly System.Numerics.Complex[] _segmentZ1Ohm;
-    private readonly System.Numerics.Complex[] _segmentZ0Ohm;
+    private readonly double[] _segmentZ1MagnitudeOhm;
+    private readonly double[] _segmentEarthLoopOhm;
 
     public RankingComputation(NetworkGraph graph, Incident incident, RankingOptions options, RankingPriors priors)
     {
@@ -53,13 +56,18 @@ internal sealed class RankingComputation
         _measured = EvidencePoints.Measurements(_grid, incident, _model);
         _trip = incident.TrippedDevice is { } tripped ? _model.SwitchPoint(_grid.SwitchIndex(tripped)) : null;
         _plans = [.. _grid.Substations.Select(s => HypothesisPlan.For(s.Grounding.Scheme, incident, options))];
+        _coarse = [.. _plans.Select(plans => plans.Select(Quadrature.Coarse).ToArray())];
+        _refined = [.. _plans.Select(plans => plans.Select(Quadrature.Refined).ToArray())];
         _beyond = new bool[_observed.Count];
         _measuredBeyond = new bool[_measured.Count];
         _sums = new IndicationSums(_model, _observed, options.PickupTolerance);
         _records = new MeasurementSums(this, _measured, _model);
         _protection = new ProtectionEvidence(_model, incident, options);
-        _segmentZ1Ohm = [.. _grid.Segments.Select(x => new System.Numerics.Complex(_grid.LineTypeOf(x).R1OhmPerKm, _grid.LineTypeOf(x).X1OhmPerKm) * x.LengthKm)];
-        _segmentZ0Ohm = [.. _grid.Segments.Select(x => new System.Numerics.Complex(_grid.LineTypeOf(x).R0OhmPerKm, _grid.LineTypeOf(x).X0OhmPerKm) * x.LengthKm)];
+        // |Z1| and the earth-fault loop |(2·Z1 + Z0) / 3| of each segment, for the drop along it.
+        var z1 = _grid.Segments.Select(x => new System.Numerics.Complex(_grid.LineTypeOf(x).R1OhmPerKm, _grid.LineTypeOf(x).X1OhmPerKm) * x.LengthKm).ToArray();
+        var z0 = _grid.Segments.Select(x => new System.Numerics.Complex(_grid.LineTypeOf(x).R0OhmPerKm, _grid.LineTypeOf(x).X0OhmPerKm) * x.LengthKm).ToArray();
+        _segmentZ1MagnitudeOhm = [.. z1.Select(z => z.Magnitude)];
+        _segmentEarthLoopOhm = [.. z1.Select((z, s) => (((2 * z) + z0[s]) / 3).Magnitude)];
     }
 
     public EnergisedNetwork Network { get; }
@@ -87,7 +95,12 @@ internal sealed class RankingComputation
 
     internal NetworkGraph Graph => _graph;
 
-    /// <summary>Scores every energised segment.</summary>
+    /// <summary>
+    /// Scores every energised segment. This and the loops it calls are compiled fully optimised at once
+    /// (AggressiveOptimization): each runs once per ranking, too few calls for tiered compilation to
+    /// optimise them before the first few dozen rankings after a start.
+    /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public List<SegmentScore> ScoreSegments()
     {
         var scores = new List<SegmentScore>();
@@ -274,6 +287,7 @@ internal sealed class RankingComputation
     /// <summary>How far below the best coarse posterior a segment is still refined, in nats (e^-20 ≈ 2e-9).</summary>
     private const double RefinedWithinNats = 20;
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private SegmentScore Score(int segment, bool refined = false)
     {
         var sub = Network.SubstationIndexOf(Network.SuppliedEndOf(segment));
@@ -289,17 +303,26 @@ internal sealed class RankingComputation
         }
 
         var tripLog = TripLogFactor(segment);
+        if (refined)
+        {
+            return ScoreRefined(segment, sub, tripLog);
+        }
+
         var marginal = double.NegativeInfinity;
         var best = new BestHypothesis(FaultType.LG, 0, 0.5, double.NegativeInfinity);
-        var byType = new Dictionary<FaultType, double>();
-        foreach (var plan in _plans[sub])
+        var plans = _plans[sub];
+        var byType = new Dictionary<FaultType, double>(plans.Length);
+        var quadratures = refined ? _refined[sub] : _coarse[sub];
+        for (var t = 0; t < plans.Length; t++)
         {
+            var plan = plans[t];
+            var quadrature = quadratures[t];
             var protection = _protection.TypeLog(segment, plan.Type, sub);
             var typeMarginal = double.NegativeInfinity;
-            var quadrature = refined ? RefinedQuadrature(plan) : plan.ResistancesOhm.Select((r, k) => (r, plan.ResistanceLogWeights[k])).ToList();
-            foreach (var (rf, resistanceLogWeight) in quadrature)
+            for (var q = 0; q < quadrature.ResistancesOhm.Length; q++)
             {
-                var logWeight = plan.LogWeight + resistanceLogWeight;
+                var rf = quadrature.ResistancesOhm[q];
+                var logWeight = quadrature.LogWeights[q];
                 var mid = _model.Solve(segment, 0.5, plan.Type, rf);
                 var (evidence, position) = AlongSegment(segment, plan.Type, rf, mid, refined);
                 var likelihood = evidence + protection
@@ -320,28 +343,99 @@ internal sealed class RankingComputation
     }
 
     /// <summary>
-    /// Each grid resistance's prior weight spread evenly over four points of its cell (from halfway to the
-    /// previous point to halfway to the next, halfway taken on a log scale except next to 0 Ω).
+    /// A contender's score on the finer quadrature: every fault type and resistance first at evenly spaced
+    /// positions, then, for those within <see cref="PositionCells.PeakWindowNats"/> of the segment's best,
+    /// more positions where the likelihood still changes sharply along the segment (see <see cref="PositionCells"/>).
     /// </summary>
-    private static List<(double ResistanceOhm, double LogWeight)> RefinedQuadrature(FaultTypePlan plan)
+    private SegmentScore ScoreRefined(int segment, int sub, double tripLog)
     {
-        var r = plan.ResistancesOhm;
-        var points = new List<(double, double)>();
-        double Boundary(int k) => r[k] <= 0 ? r[k + 1] / 2 : Math.Sqrt(r[k] * r[k + 1]);
-        for (var k = 0; k < r.Length; k++)
+        var plans = _plans[sub];
+        var quadratures = _refined[sub];
+        var series = new List<(int Plan, double ResistanceOhm, double LogWeight, double Other, PositionCells Cells, bool Along)>();
+        for (var t = 0; t < plans.Length; t++)
         {
-            var lo = k == 0 ? r[0] : Boundary(k - 1);
-            var hi = k == r.Length - 1 ? r[k] : Boundary(k);
-            var logWeight = plan.ResistanceLogWeights[k] - Math.Log(4);
-            for (var j = 0; j < 4; j++)
+            var plan = plans[t];
+            var protection = _protection.TypeLog(segment, plan.Type, sub);
+            for (var q = 0; q < quadratures[t].ResistancesOhm.Length; q++)
             {
-                var f = (j + 0.5) / 4;
-                var value = lo <= 0 ? (j == 0 ? 0 : hi * j / 3.0) : lo * Math.Pow(hi / lo, f);
-                points.Add((value, logWeight));
+                var rf = quadratures[t].ResistancesOhm[q];
+                var mid = _model.Solve(segment, 0.5, plan.Type, rf);
+                var other = protection + (_protection.HasResistanceTerms ? _protection.FaultLog(segment, mid, rf) : 0);
+                var positions = PositionsFor(segment, plan.Type, mid, refined: true);
+                var cells = PositionCells.At(positions, EvidenceAt(segment, plan.Type, rf, mid));
+                series.Add((t, rf, quadratures[t].LogWeights[q], other, cells, positions.Length > 1));
             }
         }
 
-        return points;
+        var bestLog = series.Max(x => x.Cells.MaximumLog + x.Other);
+        foreach (var x in series.Where(x => x.Along && x.Cells.MaximumLog + x.Other >= bestLog - PositionCells.PeakWindowNats))
+        {
+            x.Cells.Refine(EvidenceAt(segment, plans[x.Plan].Type, x.ResistanceOhm, _model.Solve(segment, 0.5, plans[x.Plan].Type, x.ResistanceOhm)), bestLog - PositionCells.PeakWindowNats - x.Other);
+        }
+
+        var marginal = double.NegativeInfinity;
+        var best = new BestHypothesis(FaultType.LG, 0, 0.5, double.NegativeInfinity);
+        var byType = new Dictionary<FaultType, double>(plans.Length);
+        for (var t = 0; t < plans.Length; t++)
+        {
+            var typeMarginal = double.NegativeInfinity;
+            foreach (var x in series.Where(x => x.Plan == t))
+            {
+                var likelihood = x.Cells.LogMean + x.Other;
+                typeMarginal = LogMath.Add(typeMarginal, x.LogWeight + likelihood);
+                if (likelihood + tripLog > best.LogLikelihood)
+                {
+                    best = new BestHypothesis(plans[t].Type, x.ResistanceOhm, x.Along ? x.Cells.BestPosition : 0.5, likelihood + tripLog);
+                }
+            }
+
+            byType[plans[t].Type] = tripLog + typeMarginal;
+            marginal = LogMath.Add(marginal, typeMarginal);
+        }
+
+        var logPrior = Math.Log(Math.Max(1e-12, _priors.FaultsPerYear(_grid, _grid.Segments[segment])));
+        return new SegmentScore(segment, logPrior, tripLog + marginal, best, byType);
+    }
+
+    /// <summary>The indications' and records' joint log-likelihood of a fault at a position of the segment (the midpoint's solution reused).</summary>
+    private Func<double, double> EvidenceAt(int segment, FaultType type, double rf, FaultSolution mid) => position =>
+    {
+        var fault = position == 0.5 ? mid : _model.Solve(segment, position, type, rf);
+        return _sums.LogLikelihood(segment, fault) + RecordsAt(fault);
+    };
+
+    /// <summary>
+    /// The fault resistances of one plan with their log weights, the type's prior weight included: the
+    /// plan's own grid, or (refined) each grid resistance's prior weight spread evenly over four points of
+    /// its cell (from halfway to the previous point to halfway to the next, halfway taken on a log scale
+    /// except next to 0 Ω). Built once per ranking, not once per segment.
+    /// </summary>
+    private sealed record Quadrature(double[] ResistancesOhm, double[] LogWeights)
+    {
+        public static Quadrature Coarse(FaultTypePlan plan) =>
+            new([.. plan.ResistancesOhm], [.. plan.ResistanceLogWeights.Select(w => plan.LogWeight + w)]);
+
+        public static Quadrature Refined(FaultTypePlan plan)
+        {
+            var r = plan.ResistancesOhm;
+            var values = new List<double>();
+            var weights = new List<double>();
+            double Boundary(int k) => r[k] <= 0 ? r[k + 1] / 2 : Math.Sqrt(r[k] * r[k + 1]);
+            for (var k = 0; k < r.Length; k++)
+            {
+                var lo = k == 0 ? r[0] : Boundary(k - 1);
+                var hi = k == r.Length - 1 ? r[k] : Boundary(k);
+                var logWeight = plan.ResistanceLogWeights[k] - Math.Log(4);
+                for (var j = 0; j < 4; j++)
+                {
+                    var f = (j + 0.5) / 4;
+                    values.Add(lo <= 0 ? (j == 0 ? 0 : hi * j / 3.0) : lo * Math.Pow(hi / lo, f));
+                    weights.Add(plan.LogWeight + logWeight);
+                }
+            }
+
+            return new([.. values], [.. weights]);
+        }
     }
 
     /// <summary>
@@ -351,6 +445,7 @@ internal sealed class RankingComputation
     /// the evidence shows changes along it and the midpoint stands for it; otherwise more positions the
     /// larger the drop (the finer check of the best explanation still uses its own positions).
     /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private (double LogLikelihood, double BestPosition) AlongSegment(int segment, FaultType type, double rf, in FaultSolution mid, bool refined)
     {
         var positions = PositionsFor(segment, type, mid, refined);
@@ -375,19 +470,19 @@ internal sealed class RankingComputation
         return (total - Math.Log(positions.Length), best.Position);
     }
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private double RecordsAt(in FaultSolution fault) => _measured.Count == 0 ? 0 : _records.LogLikelihood(fault, _recordsBeyond);
 
     /// <summary>
     /// Positions at which to compare the evidence: the midpoint where the drop of the fault current along the
     /// whole segment is under <see cref="FlatDropShare"/> of the phase voltage; else the option's positions,
     /// and in the refined pass evenly spaced ones, one per <see cref="FlatDropShare"/>·2 of drop, up to
-    /// <see cref="MaximumPositions"/>.
+    /// <see cref="MaximumPositions"/> (cut finer near a sharp peak by <see cref="PositionCells"/>).
     /// </summary>
     private ImmutableArray<double> PositionsFor(int segment, FaultType type, in FaultSolution mid, bool refined)
     {
-        var z1 = _segmentZ1Ohm[segment];
-        var loop = type is FaultType.LG or FaultType.LLG ? ((2 * z1) + _segmentZ0Ohm[segment]) / 3 : z1;
-        var dropShare = mid.FaultedPhaseCurrentA * loop.Magnitude / mid.PhaseVoltageV;
+        var loopOhm = type is FaultType.LG or FaultType.LLG ? _segmentEarthLoopOhm[segment] : _segmentZ1MagnitudeOhm[segment];
+        var dropShare = mid.FaultedPhaseCurrentA * loopOhm / mid.PhaseVoltageV;
         if (dropShare < FlatDropShare)
         {
             return MidpointOnly;
