@@ -104,7 +104,7 @@ public static class FaultRanking
         // 1 %-prior hypothesis the operator has not confirmed. The suspects are reported beside them, each
         // with where the fault most probably lies if it is so; confirming the real position ranks again.
         // The evidence counts as unexplained when the other positions together are the more probable.
-        var switchSuspects = SwitchSuspicion.Find(computation, scores, consistent ? [] : [.. bestChecks.Where(c => !c.Agrees)]);
+        var switchSuspects = SwitchSuspicion.Find(computation, scores, best.Segment, consistent ? [] : [.. bestChecks.Where(c => !c.Agrees)]);
         var explainedByRecorded = switchSuspects.Sum(s => s.Probability) < 0.5;
 
         var singleLogs = scores.Select(s => s.LogPosterior).ToList();

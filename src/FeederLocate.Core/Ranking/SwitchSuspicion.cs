@@ -21,7 +21,8 @@ public sealed record SwitchSuspect(SwitchId Device, SwitchPosition State, double
 /// <item>closings of open switches (ties first) whose far side is dead in the recorded positions yet holds
 /// an indicator that picked up: a dead indicator cannot see fault current, a back-fed one can;</item>
 /// <item>where the best explanation is inconsistent, openings of the switch nearest each disagreeing
-/// indicator on its path from the source.</item>
+/// indicator on its path from the source, where that indicator was expected to pick up and showed nothing
+/// and the opening leaves the best explanation's segment fed.</item>
 /// </list>
 /// A toggle that gives no radial network (it would parallel two sources or close a loop) is not tried.
 /// Each hypothesis is scored by its marginal evidence: the ranking's likelihood summed over every fault
@@ -35,7 +36,7 @@ internal static class SwitchSuspicion
     /// <summary>A switch's other position is reported from this posterior probability on (FORMATS.md: 5 %).</summary>
     public const double ReportedFrom = 0.05;
 
-    public static ImmutableArray<SwitchSuspect> Find(RankingComputation recorded, List<SegmentScore> scores, IReadOnlyList<IndicationCheck> disagreeing)
+    public static ImmutableArray<SwitchSuspect> Find(RankingComputation recorded, List<SegmentScore> scores, int bestSegment, IReadOnlyList<IndicationCheck> disagreeing)
     {
         var options = recorded.Options;
         if (options.WrongSwitchPositionPrior <= 0 || options.SwitchSuspectCandidates == 0)
@@ -43,7 +44,7 @@ internal static class SwitchSuspicion
             return [];
         }
 
-        var candidates = Candidates(recorded, disagreeing).Take(options.SwitchSuspectCandidates).ToList();
+        var candidates = Candidates(recorded, bestSegment, disagreeing).Take(options.SwitchSuspectCandidates).ToList();
         if (candidates.Count == 0)
         {
             return [];
@@ -112,7 +113,7 @@ internal static class SwitchSuspicion
     }
 
     /// <summary>The switches to try in their other position, most promising first.</summary>
-    private static IEnumerable<(int Switch, SwitchPosition State)> Candidates(RankingComputation recorded, IReadOnlyList<IndicationCheck> disagreeing)
+    private static IEnumerable<(int Switch, SwitchPosition State)> Candidates(RankingComputation recorded, int bestSegment, IReadOnlyList<IndicationCheck> disagreeing)
     {
         var graph = recorded.Graph;
         var grid = graph.Grid;
@@ -152,10 +153,13 @@ internal static class SwitchSuspicion
             yield return (c.Switch, SwitchPosition.Closed);
         }
 
-        // Openings: the switch nearest each disagreeing (energised) indicator toward its source.
+        // Openings: the switch nearest each disagreeing indicator toward its source, where the indicator was
+        // expected to pick up and showed nothing (a dead indicator shows nothing), and the opening leaves the
+        // best explanation's segment fed (an indicator on the fault's path that missed is a miss, not a cut).
         var tripped = recorded.Incident.TrippedDevice is { } t ? grid.SwitchIndex(t) : -1;
         var openings = new Dictionary<int, int>();
-        foreach (var check in disagreeing)
+        var bestFed = network.SuppliedEndOf(bestSegment);
+        foreach (var check in disagreeing.Where(c => c.Observed == IndicatorState.None && c.Expected != IndicatorState.None))
         {
             var indicator = grid.Indicators[grid.IndicatorIndex(check.Indicator)];
             var path = network.PathFromSource(indicator.Node);
@@ -164,7 +168,9 @@ internal static class SwitchSuspicion
                 if (path[e].Kind == EdgeKind.Switch)
                 {
                     var d = path[e].Index;
-                    if (d != tripped && grid.Switches[d].Kind != SwitchKind.Fuse)
+                    var (from, to) = graph.EndsOf(path[e]);
+                    var far = network.FeedingEdgeOf(to) == path[e] ? to : from;
+                    if (d != tripped && grid.Switches[d].Kind != SwitchKind.Fuse && !network.IsAtOrBeyond(far, bestFed))
                     {
                         openings[d] = openings.GetValueOrDefault(d) + 1;
                     }
