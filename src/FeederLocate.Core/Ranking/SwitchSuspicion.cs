@@ -16,14 +16,11 @@ public sealed record SwitchSuspect(SwitchId Device, SwitchPosition State, double
 
 /// <summary>
 /// Hypotheses "switch X is in the other position than recorded", one switch at a time, tried only for the
-/// switches that could explain the evidence:
-/// <list type="bullet">
-/// <item>closings of open switches (ties first) whose far side is dead in the recorded positions yet holds
-/// an indicator that picked up: a dead indicator cannot see fault current, a back-fed one can;</item>
-/// <item>where the best explanation is inconsistent, openings of the switch nearest each disagreeing
-/// indicator on its path from the source, where two or more indicators behind it were expected to pick up
-/// and showed nothing and the opening leaves the best explanation's segment fed.</item>
-/// </list>
+/// switches that could explain the evidence: closings of open switches (ties first) whose far side is dead
+/// in the recorded positions yet holds an indicator that picked up. A dead indicator cannot see fault
+/// current; a back-fed one can. An unrecorded opening is not tried: the part beyond it carries no fault
+/// current either way, so what its indicators show barely tells the two apart (on generated grids of every
+/// scheme an earth fault before an unrecorded open switch gave evidence the recorded positions explained).
 /// A toggle that gives no radial network (it would parallel two sources or close a loop) is not tried.
 /// Each hypothesis is scored by its marginal evidence: the ranking's likelihood summed over every fault
 /// hypothesis, with the segments' fault-rate prior normalised over what is energised in that topology.
@@ -36,7 +33,7 @@ internal static class SwitchSuspicion
     /// <summary>A switch's other position is reported from this posterior probability on (FORMATS.md: 5 %).</summary>
     public const double ReportedFrom = 0.05;
 
-    public static ImmutableArray<SwitchSuspect> Find(RankingComputation recorded, List<SegmentScore> scores, int bestSegment, IReadOnlyList<IndicationCheck> disagreeing)
+    public static ImmutableArray<SwitchSuspect> Find(RankingComputation recorded, List<SegmentScore> scores)
     {
         var options = recorded.Options;
         if (options.WrongSwitchPositionPrior <= 0 || options.SwitchSuspectCandidates == 0)
@@ -44,7 +41,7 @@ internal static class SwitchSuspicion
             return [];
         }
 
-        var candidates = Candidates(recorded, bestSegment, disagreeing).Take(options.SwitchSuspectCandidates).ToList();
+        var candidates = Candidates(recorded).Take(options.SwitchSuspectCandidates).ToList();
         if (candidates.Count == 0)
         {
             return [];
@@ -113,7 +110,7 @@ internal static class SwitchSuspicion
     }
 
     /// <summary>The switches to try in their other position, most promising first.</summary>
-    private static IEnumerable<(int Switch, SwitchPosition State)> Candidates(RankingComputation recorded, int bestSegment, IReadOnlyList<IndicationCheck> disagreeing)
+    private static IEnumerable<(int Switch, SwitchPosition State)> Candidates(RankingComputation recorded)
     {
         var graph = recorded.Graph;
         var grid = graph.Grid;
@@ -130,6 +127,11 @@ internal static class SwitchSuspicion
             {
                 pickedUp[k] = pickedUp.GetValueOrDefault(k) + 1;
             }
+        }
+
+        if (pickedUp.Count == 0)
+        {
+            yield break;
         }
 
         var closings = new List<(int Switch, int Count, bool Tie)>();
@@ -151,40 +153,6 @@ internal static class SwitchSuspicion
         foreach (var c in closings.OrderByDescending(c => c.Count).ThenByDescending(c => c.Tie).ThenBy(c => c.Switch))
         {
             yield return (c.Switch, SwitchPosition.Closed);
-        }
-
-        // Openings: the switch nearest each disagreeing indicator toward its source, where the indicator was
-        // expected to pick up and showed nothing (a dead indicator shows nothing), and the opening leaves the
-        // best explanation's segment fed (an indicator on the fault's path that missed is a miss, not a cut).
-        var tripped = recorded.Incident.TrippedDevice is { } t ? grid.SwitchIndex(t) : -1;
-        var openings = new Dictionary<int, int>();
-        var bestFed = network.SuppliedEndOf(bestSegment);
-        foreach (var check in disagreeing.Where(c => c.Observed == IndicatorState.None && c.Expected != IndicatorState.None))
-        {
-            var indicator = grid.Indicators[grid.IndicatorIndex(check.Indicator)];
-            var path = network.PathFromSource(indicator.Node);
-            for (var e = path.Count - 1; e >= 0; e--)
-            {
-                if (path[e].Kind == EdgeKind.Switch)
-                {
-                    var d = path[e].Index;
-                    var (from, to) = graph.EndsOf(path[e]);
-                    var far = network.FeedingEdgeOf(to) == path[e] ? to : from;
-                    if (d != tripped && grid.Switches[d].Kind != SwitchKind.Fuse && !network.IsAtOrBeyond(far, bestFed))
-                    {
-                        openings[d] = openings.GetValueOrDefault(d) + 1;
-                    }
-
-                    break;
-                }
-            }
-        }
-
-        // Two such indicators behind one switch at least: a single silent indicator is explained as well by
-        // its miss rate (5 %, 20 : 1 at most against a 1 : 99 prior), and trying it costs a whole ranking.
-        foreach (var o in openings.Where(o => o.Value >= 2).OrderByDescending(o => o.Value).ThenBy(o => o.Key))
-        {
-            yield return (o.Key, SwitchPosition.Open);
         }
     }
 
