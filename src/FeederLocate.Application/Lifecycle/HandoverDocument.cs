@@ -1,3 +1,4 @@
+using FeederLocate.Core.Formats;
 using FeederLocate.Storage.Incidents;
 
 namespace FeederLocate.Application.Lifecycle;
@@ -29,6 +30,9 @@ public sealed record HandoverIncident(
     IReadOnlyList<string> ExpiredIndicators,
     string? AnalysisProblem)
 {
+    /// <summary>Switches probably in the other position than recorded, most probable first.</summary>
+    public IReadOnlyList<HandoverSwitchSuspect> SwitchSuspects { get; init; } = [];
+
     public static HandoverIncident From(HandoverEntry entry)
     {
         ArgumentNullException.ThrowIfNull(entry);
@@ -46,9 +50,15 @@ public sealed record HandoverIncident(
             [.. entry.Unread.Select(i => i.Value)],
             [.. entry.Distrusted.Select(i => i.Value)],
             [.. entry.Expired.Select(i => i.Value)],
-            entry.AnalysisProblem);
+            entry.AnalysisProblem)
+        {
+            SwitchSuspects = [.. entry.SwitchSuspects.Select(s => new HandoverSwitchSuspect(s.Device.Value, IncidentFormat.Name(s.State), s.Probability))],
+        };
     }
 }
+
+/// <summary>A switch probably in <paramref name="State"/> ("open" or "closed") rather than as recorded, with its probability.</summary>
+public sealed record HandoverSwitchSuspect(string Device, string State, double Probability);
 
 /// <summary>A section without supply: its id, the name operators use, its customers.</summary>
 public sealed record HandoverSection(string Id, string Name, int Customers);

@@ -4,6 +4,7 @@ using FeederLocate.Application.Incidents;
 using FeederLocate.Application.Switching;
 using FeederLocate.Core.Evidence;
 using FeederLocate.Core.Model;
+using FeederLocate.Core.Ranking;
 using FeederLocate.Core.Topology;
 using FeederLocate.Storage.Incidents;
 
@@ -15,8 +16,9 @@ public sealed record SectionOff(SectionId Id, string Name, int Customers);
 /// <summary>
 /// One open incident as the outgoing shift hands it over: its line on the board (stage, age, customers off, next
 /// step, customer minutes), the sections still off by name, and the open questions: indicators not read yet
-/// (no reading, or only unknown), readings marked distrusted, indicators whose reading had expired, and whether
-/// the evidence fits no single explanation.
+/// (no reading, or only unknown), readings marked distrusted, indicators whose reading had expired, switches
+/// whose recorded position the evidence doubts (<see cref="SwitchSuspects"/>), and whether the evidence fits no
+/// single explanation.
 /// </summary>
 public sealed record HandoverEntry(
     IncidentLine Line,
@@ -29,6 +31,9 @@ public sealed record HandoverEntry(
     public IncidentId Id => Line.State.Id;
 
     public string GridName => Line.State.GridName;
+
+    /// <summary>Switches probably in the other position than recorded (the ranking's switch suspects), most probable first.</summary>
+    public IReadOnlyList<SwitchSuspect> SwitchSuspects { get; init; } = [];
 }
 
 /// <summary>
@@ -84,7 +89,10 @@ public sealed class ShiftHandover(IncidentLog log, IncidentAnalysis analysis, Ti
             .ToList();
         var distrusted = state.Incident.Indications.Where(i => i.Distrusted).Select(i => i.Indicator).OrderBy(i => i.Value, StringComparer.Ordinal).ToList();
         var expired = ranking.Result is { } result ? result.Expired.OrderBy(i => i.Value, StringComparer.Ordinal).ToList() : [];
-        return new HandoverEntry(line, SectionsOff(graph, state), unread, distrusted, expired, ranking.Problem);
+        return new HandoverEntry(line, SectionsOff(graph, state), unread, distrusted, expired, ranking.Problem)
+        {
+            SwitchSuspects = ranking.Result is { } r ? r.SwitchSuspects : [],
+        };
     }
 
     /// <summary>The sections with no supply at the incident's switch positions of now (among those the normal network supplies), by name.</summary>

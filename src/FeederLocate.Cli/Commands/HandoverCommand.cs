@@ -54,6 +54,11 @@ internal static class HandoverCommand
                 output.WriteLine($"  readings reset before they were read: {List(i.ExpiredIndicators)}");
             }
 
+            foreach (var s in i.SwitchSuspects)
+            {
+                output.WriteLine($"  switch position in doubt: {s.Device} probably {s.State} ({(s.Probability * 100).ToString("0", CultureInfo.InvariantCulture)} %), not as recorded");
+            }
+
             if (i.AnalysisProblem is { } problem)
             {
                 output.WriteLine($"  no ranking: {problem}");

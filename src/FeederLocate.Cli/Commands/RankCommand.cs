@@ -54,6 +54,11 @@ internal static class RankCommand
             output.WriteLine("TRANSIENT: a reclosure held. The ranking shows where the fault probably was, for the patrol; nothing needs isolating.");
         }
 
+        foreach (var s in d.SwitchSuspects)
+        {
+            output.WriteLine($"SWITCH POSITION: {s.Device} is probably {s.State} ({Percent(s.Probability)}), not as recorded; were it so, the fault most probably lies in {s.Section} ({Percent(s.SectionProbability)}). The ranking below assumes the recorded positions: confirm {s.Device}'s real position to rank again.");
+        }
+
         if (d.CrossCountry is { } cross)
         {
             output.WriteLine($"CROSS-COUNTRY: no single fault explains the evidence; two earth faults on different phases do ({Percent(cross.Probability)} in all). Most probable pairs:");

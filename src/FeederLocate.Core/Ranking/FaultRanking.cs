@@ -98,6 +98,15 @@ public static class FaultRanking
             (bestChecks, consistent) = Judge(computation, best, distances, refined: true);
         }
 
+        // Wrongly recorded switch positions. The probabilities reported below stay those of the recorded
+        // positions, on purpose: the explanations, the distance windows and the switching plan all rest on
+        // one topology, and a mixture would put weight on sections the plan's network holds dead or on a
+        // 1 %-prior hypothesis the operator has not confirmed. The suspects are reported beside them, each
+        // with where the fault most probably lies if it is so; confirming the real position ranks again.
+        // The evidence counts as unexplained when the other positions together are the more probable.
+        var switchSuspects = SwitchSuspicion.Find(computation, scores);
+        var explainedByRecorded = switchSuspects.Sum(s => s.Probability) < 0.5;
+
         var singleLogs = scores.Select(s => s.LogPosterior).ToList();
         var crossCountry = ImmutableArray<CrossCountrySuspect>.Empty;
         var segmentProbability = new Dictionary<int, double>();
@@ -145,11 +154,11 @@ public static class FaultRanking
             .ToImmutableArray();
 
         return new RankingResult(
-            consistent,
+            consistent && explainedByRecorded,
             rankedSegments,
             rankedSections,
             explanations,
-            consistent ? [] : [.. bestChecks.Where(c => !c.Agrees)],
+            consistent && explainedByRecorded ? [] : [.. bestChecks.Where(c => !c.Agrees)],
             crossCountry,
             [.. computation.LeftOut],
             FaultTypeProbabilities(scores),
@@ -158,6 +167,7 @@ public static class FaultRanking
             Transient = computation.Incident.Reclosing is { Transient: true },
             Expired = [.. computation.Expired],
             CrossCountryProbability = crossCountryProbability,
+            SwitchSuspects = switchSuspects,
         };
     }
 
@@ -194,6 +204,7 @@ public static class FaultRanking
             "load current is ignored in the fault currents (reference model); Z2 = Z1",
             $"predictions at voltage factor c = {o.VoltageFactor.ToString(CultureInfo.InvariantCulture)} (recorded values are compared with the current at nominal voltage, within the tolerances; IEC 60909-0's cmax = 1.1 is for ratings)",
         };
+        list.Add($"switch positions as recorded; a switch whose other position could explain the evidence (the closing of an open switch onto a dead part whose indicators picked up, ties first; at most {o.SwitchSuspectCandidates}) is tried in it with a prior of {Pct(o.WrongSwitchPositionPrior)} and reported from {Pct(SwitchSuspicion.ReportedFrom)}; the probabilities above are those of the recorded positions");
         if (computation.Incident.TrippedDevice is { } tripped)
         {
             list.Add($"the fault lies where {tripped} would have seen it; elsewhere a factor {o.OutsideTrippedZoneFactor.ToString(CultureInfo.InvariantCulture)} (maloperation or a wrong switch state)");

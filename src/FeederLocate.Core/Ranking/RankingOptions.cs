@@ -113,6 +113,15 @@ public sealed record RankingOptions
     /// <summary>How many top suspects get an explanation.</summary>
     public int ExplainedSuspects { get; init; } = 3;
 
+    /// <summary>
+    /// Prior probability of one switch being in the other position than recorded at fault time: 1 %
+    /// (common practice). Used for the switches whose other position could explain the evidence.
+    /// </summary>
+    public double WrongSwitchPositionPrior { get; init; } = 0.01;
+
+    /// <summary>How many switches at most are tried in their other position (keeps the ranking fast on large grids).</summary>
+    public int SwitchSuspectCandidates { get; init; } = 6;
+
     public static RankingOptions Default { get; } = new();
 
     public void Validate()
@@ -132,6 +141,12 @@ public sealed record RankingOptions
             }
         }
 
+        if (!(WrongSwitchPositionPrior is >= 0 and < 0.5))
+        {
+            throw new ArgumentOutOfRangeException(nameof(WrongSwitchPositionPrior), WrongSwitchPositionPrior, "prior of a wrongly recorded switch position must be within 0 to 0.5");
+        }
+
+        ArgumentOutOfRangeException.ThrowIfNegative(SwitchSuspectCandidates);
         if (!(PickupTolerance is >= 0 and <= 1))
         {
             throw new ArgumentOutOfRangeException(nameof(PickupTolerance), PickupTolerance, "pickup tolerance (σ of ln I/I_pickup) must be within 0 to 1");

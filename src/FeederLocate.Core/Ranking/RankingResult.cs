@@ -84,6 +84,13 @@ public sealed record RankingResult(
     /// <see cref="Consistent"/> stays false: no single fault explains it.
     /// </summary>
     public double CrossCountryProbability { get; init; }
+
+    /// <summary>
+    /// Switches whose other position than recorded has a posterior probability of 5 % or more, most
+    /// probable first; empty when the recorded positions fit. Where together they reach 50 %,
+    /// <see cref="Consistent"/> is false: the recorded positions do not explain the evidence.
+    /// </summary>
+    public ImmutableArray<SwitchSuspect> SwitchSuspects { get; init; } = [];
 }
 
 /// <summary>Thrown where an incident cannot be ranked (its switch states give no radial network, nothing is energised).</summary>

@@ -45,4 +45,26 @@ public sealed class ShiftHandoverTests : IDisposable
         Assert.Equal(_graph.Grid.Indicators.Length - 1, entry.Unread.Count);
         Assert.Equal([open], unloaded.Select(s => s.Id));
     }
+
+    [Fact]
+    public async Task A_switch_whose_recorded_position_the_evidence_doubts_is_an_open_question_until_its_position_is_recorded()
+    {
+        // The back-fed sample incident (sample-grid/README.md) with the tie's closing not recorded: A1's tail
+        // is dead in the record, yet FPI-A1-16 there reported forward.
+        var open = _test.Log.Open(_graph.Grid, new SwitchId("RC-B1-1"), FaultType.LL, TestClock.Start.AddMinutes(-20), Samples.Operator);
+        _test.Log.Append(open, new SwitchStateChanged(new SwitchId("LB-A1-4"), SwitchPosition.Open), Samples.Operator);
+        foreach (var (id, state) in new[] { ("FPI-B1-01", IndicatorState.Forward), ("FPI-B1-04", IndicatorState.Fault), ("FPI-A1-16", IndicatorState.Forward), ("FPI-A1-14", IndicatorState.None), ("FPI-B1-11", IndicatorState.Forward), ("FPI-B1-14", IndicatorState.None) })
+        {
+            _test.Log.Append(open, new IndicationEntered(new Indication(new IndicatorId(id), state, IndicationSource.Remote)), Samples.Operator);
+        }
+
+        var entry = Assert.Single(await Handover().EntriesAsync(_ => _graph));
+        var suspect = Assert.Single(entry.SwitchSuspects);
+        Assert.Equal((new SwitchId("NO-A1-B1"), SwitchPosition.Closed), (suspect.Device, suspect.State));
+        Assert.Equal("closed", HandoverIncident.From(entry).SwitchSuspects.Single().State);
+
+        _test.Log.Append(open, new SwitchStateChanged(new SwitchId("NO-A1-B1"), SwitchPosition.Closed), Samples.Operator);
+
+        Assert.Empty(Assert.Single(await Handover().EntriesAsync(_ => _graph)).SwitchSuspects);
+    }
 }

@@ -121,5 +121,29 @@ public sealed class LifecycleCommandTests : IDisposable
         Assert.NotEmpty(entry.GetProperty("unreadIndicators").EnumerateArray());
     }
 
+    [Fact]
+    public void Handover_names_a_switch_whose_recorded_position_the_evidence_doubts()
+    {
+        // The back-fed sample incident (sample-grid/README.md) without the tie's closing in the record.
+        var grid = SampleGrids.Grid("solid");
+        var ana = new Actor("ana", "operator");
+        using (var log = new Application.Incidents.IncidentLog(Storage.IncidentStore.Open(Db)))
+        {
+            var id = log.Open(grid, new SwitchId("RC-B1-1"), FaultType.LL, new DateTimeOffset(2026, 11, 30, 6, 12, 0, TimeSpan.Zero), ana);
+            log.Append(id, new SwitchStateChanged(new SwitchId("LB-A1-4"), SwitchPosition.Open), ana);
+            foreach (var (indicator, state) in new[] { ("FPI-B1-01", IndicatorState.Forward), ("FPI-B1-04", IndicatorState.Fault), ("FPI-A1-16", IndicatorState.Forward), ("FPI-A1-14", IndicatorState.None), ("FPI-B1-11", IndicatorState.Forward), ("FPI-B1-14", IndicatorState.None) })
+            {
+                log.Append(id, new IndicationEntered(new Indication(new IndicatorId(indicator), state, IndicationSource.Remote)), ana);
+            }
+        }
+
+        var text = CliRun.Of("handover", SampleGrids.Path("solid"), "--db", Db);
+        var json = CliRun.Of("handover", SampleGrids.Path("solid"), "--db", Db, "--json").Json();
+
+        Assert.Contains("switch position in doubt: NO-A1-B1 probably closed (", text.Out, StringComparison.Ordinal);
+        var suspect = json.GetProperty("incidents").EnumerateArray().Single().GetProperty("switchSuspects").EnumerateArray().Single();
+        Assert.Equal(("NO-A1-B1", "closed"), (suspect.GetProperty("device").GetString(), suspect.GetProperty("state").GetString()));
+    }
+
     public void Dispose() => _database.Dispose();
 }

@@ -124,6 +124,42 @@ public class RankCommandTests
         }
     }
 
+    [Fact]
+    public void Rank_names_a_switch_whose_recorded_position_does_not_fit_in_text_and_json()
+    {
+        // The back-fed sample incident with the tie's closing left out of the record (sample-grid/README.md).
+        var document = System.Text.Json.Nodes.JsonNode.Parse(File.ReadAllText(Incident("solid-ll-a1-tail-fed-from-b1")))!.AsObject();
+        document["switchStates"]!.AsObject().Remove("NO-A1-B1");
+        document.Remove("grid");
+        var path = Path.Combine(Path.GetTempPath(), $"untold-tie-{Guid.NewGuid():N}.incident.json");
+        File.WriteAllText(path, document.ToJsonString());
+        try
+        {
+            var json = CliRun.Of("rank", SampleGrids.Path("solid"), path, "--json").Json();
+            var suspect = Assert.Single(json.GetProperty("switchSuspects").EnumerateArray().ToList());
+            Assert.Equal("NO-A1-B1", suspect.GetProperty("device").GetString());
+            Assert.Equal("closed", suspect.GetProperty("state").GetString());
+            Assert.InRange(suspect.GetProperty("probability").GetDouble(), 0.5, 1);
+            Assert.False(json.GetProperty("consistent").GetBoolean());
+
+            var table = CliRun.Of("rank", SampleGrids.Path("solid"), path);
+            Assert.Equal(0, table.ExitCode);
+            Assert.Contains("SWITCH POSITION: NO-A1-B1 is probably closed (", table.Out, StringComparison.Ordinal);
+        }
+        finally
+        {
+            File.Delete(path);
+        }
+    }
+
+    [Fact]
+    public void Rank_json_lists_no_switch_suspect_where_the_recorded_positions_fit()
+    {
+        var json = Rank("solid-ll-a1-tail-fed-from-b1").Json();
+
+        Assert.Equal(0, json.GetProperty("switchSuspects").GetArrayLength());
+    }
+
     private static CliRun Rank(string name)
     {
         var scheme = name.Split('-')[0];

@@ -49,6 +49,40 @@ public sealed class IncidentApiTests(ApiFixture app) : IClassFixture<ApiFixture>
     }
 
     [Fact]
+    public async Task A_switch_whose_recorded_position_the_evidence_doubts_is_in_the_ranking_and_the_handover_until_recorded()
+    {
+        // The back-fed sample incident (sample-grid/README.md) without the tie's closing in the record.
+        var body = """
+            { "format": "feederlocate-incident/1", "reportedAt": "2026-11-30T06:12:00Z", "switchStates": { "LB-A1-4": "open" },
+              "trippedDevice": "RC-B1-1", "faultType": "LL", "measurements": [ { "device": "CB-B1", "phaseCurrentA": 1346 } ],
+              "indications": [ { "indicator": "FPI-B1-01", "state": "forward", "source": "remote" },
+                               { "indicator": "FPI-B1-04", "state": "fault", "source": "remote" },
+                               { "indicator": "FPI-A1-16", "state": "forward", "source": "remote" },
+                               { "indicator": "FPI-A1-14", "state": "none", "source": "remote" },
+                               { "indicator": "FPI-B1-11", "state": "forward", "source": "remote" },
+                               { "indicator": "FPI-B1-14", "state": "none", "source": "remote" } ] }
+            """;
+        var opened = await app.Client.PostAsync($"/api/incidents?grid={Uri.EscapeDataString(SolidGrid)}", Json(body));
+        var id = (await opened.Content.ReadFromJsonAsync<JsonElement>()).GetProperty("id").GetInt64();
+
+        var ranking = await app.Client.GetFromJsonAsync<JsonElement>($"/api/incidents/{id}/ranking");
+        var handover = await app.Client.GetFromJsonAsync<JsonElement>("/api/handover");
+
+        var suspect = Assert.Single(ranking.GetProperty("switchSuspects").EnumerateArray().ToList());
+        Assert.Equal(("NO-A1-B1", "closed"), (suspect.GetProperty("device").GetString(), suspect.GetProperty("state").GetString()));
+        // Its probability (and so the verdict on consistency) moves with what the grid has learned from the
+        // other tests' outcomes on the shared database; the Core tests check the numbers.
+        var entry = handover.GetProperty("incidents").EnumerateArray().Single(i => i.GetProperty("id").GetInt64() == id);
+        Assert.Equal("NO-A1-B1", Assert.Single(entry.GetProperty("switchSuspects").EnumerateArray().ToList()).GetProperty("device").GetString());
+
+        var found = await app.Client.PostAsync($"/api/incidents/{id}/switches", Json("""{ "switch": "NO-A1-B1", "position": "closed" }"""));
+        var again = await app.Client.GetFromJsonAsync<JsonElement>($"/api/incidents/{id}/ranking");
+
+        Assert.Equal(HttpStatusCode.Accepted, found.StatusCode);
+        Assert.Equal(0, again.GetProperty("switchSuspects").GetArrayLength());
+    }
+
+    [Fact]
     public async Task The_return_to_normal_is_read_after_the_plan_with_its_clearance_and_cautions()
     {
         var id = await OpenSolidTrip();

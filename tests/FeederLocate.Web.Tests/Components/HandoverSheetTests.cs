@@ -30,6 +30,20 @@ public class HandoverSheetTests : ComponentTest
     }
 
     [Fact]
+    public void A_switch_whose_recorded_position_is_in_doubt_is_an_open_question()
+    {
+        var incident = new HandoverIncident(8, "Marrowdell 20 kV", "reported", 12, 0, [], null, 0, "no interruption",
+            [], [], [], null)
+        {
+            SwitchSuspects = [new HandoverSwitchSuspect("NO-A1-B1", "closed", 0.82)],
+        };
+        var cut = Render<HandoverSheet>(p => p.Add(c => c.Document, new HandoverDocument(At, [incident], [])));
+
+        Assert.Equal("Switch position in doubt: NO-A1-B1 probably closed (82 %), not as recorded",
+            cut.Find("[data-testid=handover-switch-8-NO-A1-B1]").TextContent);
+    }
+
+    [Fact]
     public void With_no_open_incident_the_sheet_says_so()
     {
         var cut = Render<HandoverSheet>(p => p.Add(c => c.Document, new HandoverDocument(At, [], [])));

@@ -63,6 +63,28 @@ public sealed class WorkspaceWriteTests : BunitContext
     }
 
     [Fact]
+    public void A_switch_suspect_is_recorded_in_one_click_and_a_confirmation_and_then_no_longer_suspected()
+    {
+        // The back-fed sample incident (sample-grid/README.md) without the tie's closing in the record.
+        var ana = new Actor("ana", "operator");
+        var id = _board.Open(_grids.Default!, new SwitchId("RC-B1-1"), FaultType.LL, Reported, ana);
+        _board.Append(id, new SwitchStateChanged(new SwitchId("LB-A1-4"), SwitchPosition.Open), ana);
+        foreach (var (indicator, state) in new[] { ("FPI-B1-01", IndicatorState.Forward), ("FPI-B1-04", IndicatorState.Fault), ("FPI-A1-16", IndicatorState.Forward), ("FPI-A1-14", IndicatorState.None), ("FPI-B1-11", IndicatorState.Forward), ("FPI-B1-14", IndicatorState.None) })
+        {
+            _board.Append(id, new IndicationEntered(new Indication(new IndicatorId(indicator), state, IndicationSource.Remote)), ana);
+        }
+
+        var cut = Render<IncidentWorkspace>(p => p.Add(c => c.Id, id.Value));
+        cut.WaitForElement("[data-testid=switch-suspect-record-NO-A1-B1]", TimeSpan.FromMinutes(1)).Click();
+        Assert.Equal("Record NO-A1-B1 closed", cut.WaitForElement("[data-testid=switch-confirm]").TextContent);
+        cut.Find("[data-testid=switch-confirm]").Click();
+
+        cut.WaitForAssertion(() => Assert.Empty(cut.FindAll("[data-testid=switch-suspects]")), TimeSpan.FromMinutes(1));
+        cut.WaitForAssertion(() => Assert.NotEmpty(cut.FindAll("li[data-section]")), TimeSpan.FromMinutes(1));
+        Assert.Equal(new SwitchStateChanged(new SwitchId("NO-A1-B1"), SwitchPosition.Closed), _board.Events(id).Select(e => e.Event).OfType<SwitchStateChanged>().Last());
+    }
+
+    [Fact]
     public void When_the_log_cannot_be_written_the_page_says_not_saved_and_the_control_shows_the_stored_state()
     {
         var id = OpenIncident();

@@ -21,6 +21,12 @@ public sealed record RankingDocument(
     /// <summary>Indicators read more than their reset time after the fault: their readings carried no weight.</summary>
     public IReadOnlyList<string> Expired { get; init; } = [];
 
+    /// <summary>
+    /// Switches whose other position than recorded has a posterior probability of 5 % or more, most
+    /// probable first (FORMATS.md); empty when the recorded positions fit.
+    /// </summary>
+    public IReadOnlyList<SwitchSuspectEntry> SwitchSuspects { get; init; } = [];
+
     public static RankingDocument From(RankingResult r) => new(
         r.Consistent,
         [.. r.Segments.Select(s => new SegmentEntry(s.Id.Value, s.Section.Value, s.Probability))],
@@ -40,6 +46,7 @@ public sealed record RankingDocument(
     {
         Transient = r.Transient,
         Expired = [.. r.Expired.Select(i => i.Value)],
+        SwitchSuspects = [.. r.SwitchSuspects.Select(s => new SwitchSuspectEntry(s.Device.Value, IncidentFormat.Name(s.State), s.Probability, s.Section.Value, s.SectionProbability))],
     };
 
     public sealed record SegmentEntry(string Id, string Section, double Probability);
@@ -68,6 +75,9 @@ public sealed record RankingDocument(
 
     /// <summary>Present where a pair of earth faults on different phases explains the evidence better than any single fault.</summary>
     public sealed record CrossCountryEntry(double Probability, IReadOnlyList<PairEntry> Pairs);
+
+    /// <summary>A switch probably in <paramref name="State"/> ("open" or "closed"), and the most probable section were it so.</summary>
+    public sealed record SwitchSuspectEntry(string Device, string State, double Probability, string Section, double SectionProbability);
 
     public sealed record PairEntry(IReadOnlyList<string> Segments, IReadOnlyList<string> Sections, double Probability);
 }
