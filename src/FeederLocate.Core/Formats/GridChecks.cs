@@ -14,7 +14,7 @@ internal static class GridChecks
         UniqueIds(parts.Segments, "segment", s => s.Id.Value, log);
         UniqueIds(parts.Switches, "switch", s => s.Id.Value, log);
         UniqueIds(parts.Indicators, "indicator", i => i.Id.Value, log);
-        UniqueIds(parts.CrewBases, "crew base", b => b.Id.Value, log);
+        UniqueIds(parts.CrewBases, "crewBase", b => b.Id.Value, log);
 
         var nodes = parts.Nodes.Select(n => n.Id).ToHashSet();
         var lineTypes = parts.LineTypes.Select(t => t.Id).ToHashSet();
@@ -48,16 +48,16 @@ internal static class GridChecks
         var switches = parts.Switches.GroupBy(s => s.Id).ToDictionary(g => g.Key, g => g.First());
         foreach (var crewBase in parts.CrewBases)
         {
-            NodeExists(nodes, "crew base", crewBase.Id.Value, "node", crewBase.Node, log);
+            NodeExists(nodes, "crewBase", crewBase.Id.Value, "node", crewBase.Node, log);
             foreach (var device in (crewBase.TravelTimes?.Keys ?? []).OrderBy(d => d.Value, StringComparer.Ordinal))
             {
                 if (!switches.TryGetValue(device, out var known))
                 {
-                    log.Error("crew base", crewBase.Id.Value, "travelMinutes", $"refers to unknown switch \"{device}\"");
+                    log.Error("crewBase", crewBase.Id.Value, "travelMinutes", $"refers to unknown switch \"{device}\"");
                 }
                 else if (known.Remote)
                 {
-                    log.Warning("crew base", crewBase.Id.Value, "travelMinutes", $"gives a time to {device}, which is remote: no crew is sent to it");
+                    log.Warning("crewBase", crewBase.Id.Value, "travelMinutes", $"gives a time to {device}, which is remote: no crew is sent to it");
                 }
             }
         }

@@ -63,7 +63,7 @@ public static class GridReader
             Items(root, "segments", "segment", log, ReadSegment),
             Items(root, "switches", "switch", log, ReadSwitch),
             Items(root, "indicators", "indicator", log, ReadIndicator),
-            Items(root, "crews", "crew base", log, ReadCrewBase, required: false));
+            Items(root, "crews", "crewBase", log, ReadCrewBase, required: false));
         root.WarnUnknownFields();
 
         GridChecks.Run(parts, log);

@@ -12,15 +12,15 @@ public class CrewFormatTests
     public static TheoryData<string, string, string, string> Broken => new()
     {
         // crews array, element id, field, the whole message as printed
-        { """[ { "id": "DEPOT", "node": "N9", "count": 1 } ]""", "DEPOT", "node", "crew base DEPOT: node refers to unknown node \"N9\"" },
-        { """[ { "id": "DEPOT", "node": "N1", "count": 1, "travelMinutes": { "D7": 10 } } ]""", "DEPOT", "travelMinutes", "crew base DEPOT: travelMinutes refers to unknown switch \"D7\"" },
-        { """[ { "id": "DEPOT", "node": "N1", "count": 0 } ]""", "DEPOT", "count", "crew base DEPOT: count must be >= 1 and <= 1000, got 0" },
-        { """[ { "id": "DEPOT", "node": "N1", "count": 1.5 } ]""", "DEPOT", "count", "crew base DEPOT: count must be a whole number of crews, got 1.5" },
-        { """[ { "id": "DEPOT", "node": "N1" } ]""", "DEPOT", "count", "crew base DEPOT: count is required" },
-        { """[ { "id": "DEPOT", "node": "N1", "count": 1, "travelMinutes": { "D1": -5 } } ]""", "DEPOT", "D1", "crew base DEPOT travelMinutes: D1 must be >= 0 and <= 525960, got -5" },
+        { """[ { "id": "DEPOT", "node": "N9", "count": 1 } ]""", "DEPOT", "node", "crewBase DEPOT: node refers to unknown node \"N9\"" },
+        { """[ { "id": "DEPOT", "node": "N1", "count": 1, "travelMinutes": { "D7": 10 } } ]""", "DEPOT", "travelMinutes", "crewBase DEPOT: travelMinutes refers to unknown switch \"D7\"" },
+        { """[ { "id": "DEPOT", "node": "N1", "count": 0 } ]""", "DEPOT", "count", "crewBase DEPOT: count must be >= 1 and <= 1000, got 0" },
+        { """[ { "id": "DEPOT", "node": "N1", "count": 1.5 } ]""", "DEPOT", "count", "crewBase DEPOT: count must be a whole number of crews, got 1.5" },
+        { """[ { "id": "DEPOT", "node": "N1" } ]""", "DEPOT", "count", "crewBase DEPOT: count is required" },
+        { """[ { "id": "DEPOT", "node": "N1", "count": 1, "travelMinutes": { "D1": -5 } } ]""", "DEPOT", "D1", "crewBase DEPOT travelMinutes: D1 must be >= 0 and <= 525960, got -5" },
         {
             """[ { "id": "DEPOT", "node": "N1", "count": 1 }, { "id": "DEPOT", "node": "N3", "count": 2 } ]""", "DEPOT", "id",
-            "crew base DEPOT: id is used by 2 crew base elements; ids must be unique"
+            "crewBase DEPOT: id is used by 2 crewBase elements; ids must be unique"
         },
     };
 
@@ -45,7 +45,7 @@ public class CrewFormatTests
 
         Assert.True(result.Succeeded);
         var warning = Assert.Single(result.Warnings);
-        Assert.Equal("crew base DEPOT: travelMinutes gives a time to CB, which is remote: no crew is sent to it", warning.ToString());
+        Assert.Equal("crewBase DEPOT: travelMinutes gives a time to CB, which is remote: no crew is sent to it", warning.ToString());
     }
 
     [Fact]

@@ -110,7 +110,7 @@ internal static class StepAssembly
         }
 
         var points = isolation.Points.Concat(second?.Points ?? []).Select(p => p.Device);
-        CrewSteps(ctx, isolation, second, steps, timeline.Now, timeline.WorkCrew(points));
+        CrewSteps(ctx, isolation, second, steps, timeline.Now, timeline.WorkCrew(points), timeline.CrewAt);
         return steps;
     }
 
@@ -146,7 +146,12 @@ internal static class StepAssembly
         return c.Operations.Select((op, k) => op.Reason.Length > 0 ? op : op with { Reason = k == last ? text : op.Reason });
     }
 
-    private static void CrewSteps(PlanningContext ctx, IsolationResult first, IsolationResult? second, List<SwitchingStep> steps, TimeSpan at, string? crew)
+    /// <summary>
+    /// The work at the isolated section, all written at <paramref name="at"/> (the end of the switching; the work is not timed):
+    /// <paramref name="crew"/> patrols, proves dead, earths and takes the permit; each manual isolation point is locked
+    /// by the crew standing at it (<paramref name="standing"/>), else by <paramref name="crew"/>.
+    /// </summary>
+    private static void CrewSteps(PlanningContext ctx, IsolationResult first, IsolationResult? second, List<SwitchingStep> steps, TimeSpan at, string? crew, Func<int, string?> standing)
     {
         var zones = new[] { ctx.SuspectZone }.Concat(ctx.AlsoIsolated.Order()).Select(z => ctx.Zones.All[z]).ToList();
         var segments = zones.SelectMany(z => z.Segments).Select(i => ctx.Grid.Segments[i].Id).ToImmutableArray();
@@ -159,7 +164,7 @@ internal static class StepAssembly
             var d = ctx.Grid.Switches[device];
             steps.Add(Step(ctx, steps, StepAction.Lock, device, null, [], at, d.Remote
                 ? $"block the remote control of {d.Id} and tag it open: it stays open while the crew works (before the earths go on)"
-                : $"lock {d.Id} open and tag it: it stays open while the crew works (before the earths go on)", d.Remote ? null : crew));
+                : $"lock {d.Id} open and tag it: it stays open while the crew works (before the earths go on)", d.Remote ? null : standing(device) ?? crew));
         }
 
         foreach (var (device, node) in isolation.Points)

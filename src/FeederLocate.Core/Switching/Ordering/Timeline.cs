@@ -184,5 +184,12 @@ internal sealed class Timeline
         return _labels[c >= 0 ? c : 0];
     }
 
+    /// <summary>The crew standing at <paramref name="device"/> (the first in the list), or null.</summary>
+    public string? CrewAt(int device)
+    {
+        var c = Array.IndexOf(_at, device);
+        return c >= 0 ? _labels[c] : null;
+    }
+
     private static TimeSpan Max(TimeSpan a, TimeSpan b) => a > b ? a : b;
 }

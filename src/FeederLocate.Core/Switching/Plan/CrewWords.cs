@@ -14,7 +14,7 @@ internal static class CrewWords
 
         var bases = Words.List(grid.CrewBases.Select(b => $"{b.Count} at {b.Id}{(b.Name is { } n ? $" ({n})" : string.Empty)}"));
         var total = grid.CrewBases.Sum(b => b.Count);
-        return $"crews: {total} from the grid ({bases}), leaving at the start; a crew does one step at a time and stays at its device until its next trip; the trip to a device takes the device's travel time from the crew's base, also from another device (the grid gives no times between devices), none to the device it is at; each manual step goes to the crew that can start it first; remote steps need no crew";
+        return $"crews: {total} from the grid ({bases}), leaving at the start; a crew does one step at a time and stays at its device until its next trip; the trip to a device takes the device's travel time from the crew's base, also from another device (the grid gives no times between devices), none to the device it is at; each manual step goes to the crew that can start it first; remote steps need no crew; the work at the isolated section (patrol, locks, proving dead, earths, permit) follows the last switching step and is not timed";
     }
 
     /// <summary>The reason of a dispatch to a manual device: the crew, where it comes from, how long the trip takes.</summary>
