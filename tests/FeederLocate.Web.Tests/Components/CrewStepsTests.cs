@@ -43,4 +43,21 @@ public class CrewStepsTests : ComponentTest
         Assert.NotEmpty(cut.FindAll("[data-step]"));
         Assert.Empty(cut.FindAll(".crew"));
     }
+
+    [Fact]
+    public void The_return_names_the_crew_of_each_manual_step()
+    {
+        var grid = LoadedGrids.Sample("impedance");
+        var incident = IncidentReader.Parse(RepositoryFiles.Read("sample-grid", "incidents", "impedance-lg-trip-a2.incident.json"), grid.Grid).ValueOrThrow();
+        var plan = SwitchingPlanner.Plan(grid.Graph, incident, FaultRanking.Rank(grid.Graph, incident));
+        var back = SwitchingPlanner.PlanReturn(grid.Graph, incident, plan);
+        var manual = back.Steps.First(s => s.Action == StepAction.Close && s.Device is { } d && !grid.Grid.Switch(d).Remote);
+
+        var cut = Render<ReturnSteps>(p => p.Add(c => c.Attempt, new FeederLocate.Application.Analysis.ReturnAttempt(back, null)).Add(c => c.OnTick, _ => { }));
+
+        Assert.NotNull(manual.Crew);
+        cut.Find($"[data-testid=return-crew-{manual.Order}]").MarkupMatches(
+            $"<span class=\"crew\" data-testid=\"return-crew-{manual.Order}\">crew {manual.Crew}</span>");
+        Assert.Equal(back.Steps.Count(s => s.Crew is not null), cut.FindAll(".crew").Count);
+    }
 }

@@ -31,7 +31,7 @@ internal sealed class Timeline
     private readonly Dictionary<int, (TimeSpan Free, int Last)> _ownCrews;
     private readonly List<Placement> _placements;
 
-    public Timeline(Grid grid, SwitchingOptions options, TimeSpan start = default)
+    public Timeline(Grid grid, SwitchingOptions options)
     {
         _grid = grid;
         _options = options;
@@ -42,7 +42,6 @@ internal sealed class Timeline
         _last = Enumerable.Repeat(-1, _labels.Length).ToArray();
         _ownCrews = [];
         _placements = [];
-        Now = start;
     }
 
     private Timeline(Timeline other)
@@ -88,9 +87,6 @@ internal sealed class Timeline
         StepAction.Verify => TimeSpan.Zero,
         _ => _grid.Switches[device].Remote ? _options.RemoteOperationTime : _options.ManualOperationTime,
     };
-
-    /// <summary>Nothing on the timeline starts before <paramref name="moment"/>.</summary>
-    public void WaitUntil(TimeSpan moment) => Now = Now > moment ? Now : moment;
 
     /// <summary>Places one step on the timeline; returns its completion time.</summary>
     public TimeSpan Place(StepAction action, int device)
