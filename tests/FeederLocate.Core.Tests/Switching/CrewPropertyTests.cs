@@ -54,6 +54,7 @@ public class CrewPropertyTests(Xunit.Abstractions.ITestOutputHelper output)
                 Assert.Empty(Tagged(where, checker.Check(simulated.Incident, plan, simulated.Segment, standing).Problems));
                 Assert.Empty(Tagged(where, checker.CheckTestOrder(simulated.Incident, plan, simulated.Segment, standing).Problems));
                 Assert.Empty(Tagged(where, crews.Check(plan)));
+                Assert.Equal(Recounted(graph, simulated.Incident, plan), plan.CustomerMinutesInterrupted, 6);
                 var back = SwitchingPlanner.PlanReturn(graph, simulated.Incident, plan);
                 Assert.Empty(Tagged(where, checker.CheckReturn(simulated.Incident, plan, back)));
                 Assert.Empty(Tagged(where, crews.Check(back)));
@@ -102,6 +103,32 @@ public class CrewPropertyTests(Xunit.Abstractions.ITestOutputHelper output)
         }
 
         Assert.True(used > 0, "no test entry used a crew: the check of the test orders would be vacuous");
+    }
+
+    /// <summary>
+    /// IEEE 1366 CMI counted again from the steps' times: everyone the trip left without supply is out from the
+    /// start; each open or close changes who is out at its time; the count runs to the last switching step.
+    /// </summary>
+    private static double Recounted(NetworkGraph graph, Evidence.Incident incident, SwitchingPlan plan)
+    {
+        var grid = graph.Grid;
+        var states = SwitchStates.AfterTrip(grid, incident);
+        var affected = graph.Energise(SwitchStates.AtFaultTime(grid, incident));
+        int Out(SwitchStates s)
+        {
+            var network = graph.Energise(s);
+            return Enumerable.Range(0, grid.Nodes.Length).Where(v => affected.IsEnergised(v) && !network.IsEnergised(v)).Sum(v => grid.Nodes[v].Customers);
+        }
+
+        var atStart = Out(states);
+        var changes = new List<SupplyChange>();
+        foreach (var step in plan.Steps.Where(s => s.ChangesNetwork))
+        {
+            states = states.With(step.Device!.Value, step.Action == StepAction.Open ? Evidence.SwitchPosition.Open : Evidence.SwitchPosition.Closed);
+            changes.Add(new SupplyChange(step.At, Out(states)));
+        }
+
+        return CustomerMinutes.Interrupted(atStart, changes, changes.Count > 0 ? changes[^1].At : TimeSpan.Zero);
     }
 
     private static IEnumerable<string> Tagged(string where, IEnumerable<string> problems) => problems.Select(p => $"{where}: {p}");
