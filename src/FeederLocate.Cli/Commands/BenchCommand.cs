@@ -28,13 +28,16 @@ internal static class BenchCommand
         var plan = new Option<bool>("--plan") { Description = "Measure the switching plan of simulated incidents instead of the engine sweep" };
         var scheme = new Option<string>("--scheme") { Description = "With --ranking: grounding of the generated grid (isolated, resonant, solid, impedance)", DefaultValueFactory = _ => "resonant" };
         var protection = new Option<bool>("--protection") { Description = "With --ranking: incidents carry the protection context, and a third of the earth faults on solid and impedance grids go through a high resistance" };
+        var crewBases = new Option<int>("--crew-bases") { Description = "With --plan: crew bases of the generated grid, one at each substation's bus in turn (0: no crews, a crew of its own for every manual device)", DefaultValueFactory = _ => 2 };
+        var crewsPerBase = new Option<int>("--crews-per-base") { Description = "With --plan: crews at each base", DefaultValueFactory = _ => 2 };
         var json = CliOptions.Json();
         var command = new Command("bench", "Benchmark the fault engine (every indicator's response for a fault on every segment of a generated grid) or, with --ranking, the ranking")
         {
-            segments, seed, share, positions, rounds, ranking, plan, scheme, protection, json,
+            segments, seed, share, positions, rounds, ranking, plan, scheme, protection, crewBases, crewsPerBase, json,
         };
         command.SetAction(parse => parse.GetValue(plan)
-            ? BenchPlan.Run(console, parse.GetValue(segments), parse.GetValue(seed), parse.GetValue(share), parse.GetValue(rounds), parse.GetValue(json))
+            ? BenchPlan.Run(console, parse.GetValue(segments), parse.GetValue(seed), parse.GetValue(share), parse.GetValue(rounds), parse.GetValue(json),
+                parse.GetValue(crewBases), parse.GetValue(crewsPerBase))
             : parse.GetValue(ranking)
             ? BenchRanking.Run(console, parse.GetValue(segments), parse.GetValue(seed), parse.GetValue(share), parse.GetValue(rounds), parse.GetValue(json),
                 BenchRanking.Scheme(parse.GetValue(scheme)!), parse.GetValue(protection))

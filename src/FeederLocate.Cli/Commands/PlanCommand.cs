@@ -135,13 +135,7 @@ internal static class PlanCommand
             output.WriteLine($"  {s.Id}: segments {string.Join(" ", s.Segments)}");
         }
 
-        var steps = TableOutput.Table("order", "at min", "action", "device", "reason");
-        foreach (var s in d.Steps)
-        {
-            var where = s.Device ?? (s.Segments is { } segs ? string.Join(" ", segs) : string.Empty);
-            steps.AddRow(s.Order.ToString(CultureInfo.InvariantCulture), s.AtMinutes.ToString("0", CultureInfo.InvariantCulture), s.Action, where, s.Reason);
-        }
-
+        var steps = StepTable(d.Steps, s => s.Device ?? (s.Segments is { } segs ? string.Join(" ", segs) : string.Empty));
         TableOutput.Write(output, steps);
         var summary = TableOutput.Table("estimate", "value");
         summary.AddRow("restored customers", d.RestoredCustomers.ToString(CultureInfo.InvariantCulture));
@@ -200,6 +194,23 @@ internal static class PlanCommand
         WriteCautions(output, d);
     }
 
+    /// <summary>The steps as a table; the crew column only where the grid names its crews (a grid without them prints as it always has).</summary>
+    private static Spectre.Console.Table StepTable(IReadOnlyList<PlanDocument.StepEntry> entries, Func<PlanDocument.StepEntry, string> where)
+    {
+        var crews = entries.Any(s => s.Crew is not null);
+        var steps = crews
+            ? TableOutput.Table("order", "at min", "crew", "action", "device", "reason")
+            : TableOutput.Table("order", "at min", "action", "device", "reason");
+        foreach (var s in entries)
+        {
+            var order = s.Order.ToString(CultureInfo.InvariantCulture);
+            var at = s.AtMinutes.ToString("0", CultureInfo.InvariantCulture);
+            steps.AddRow(crews ? [order, at, s.Crew ?? "control room", s.Action, where(s), s.Reason] : [order, at, s.Action, where(s), s.Reason]);
+        }
+
+        return steps;
+    }
+
     private static void WriteReturn(TextWriter output, ReturnPlanDocument d, SwitchingPlan plan)
     {
         WriteCautions(output, d.Cautions);
@@ -207,11 +218,7 @@ internal static class PlanCommand
         output.WriteLine(plan.IsolatedSections.IsEmpty
             ? "Return to normal: the plan isolated nothing."
             : $"Return to normal after the repair of {string.Join(", ", plan.IsolatedSections)} (minutes count from the moment the repair is reported complete):");
-        var steps = TableOutput.Table("order", "at min", "action", "device", "reason");
-        foreach (var s in d.Steps)
-        {
-            steps.AddRow(s.Order.ToString(CultureInfo.InvariantCulture), s.AtMinutes.ToString("0", CultureInfo.InvariantCulture), s.Action, s.Device ?? string.Empty, s.Reason);
-        }
+        var steps = StepTable(d.Steps, s => s.Device ?? string.Empty);
 
         TableOutput.Write(output, steps);
         var summary = TableOutput.Table("estimate", "value");

@@ -16,7 +16,7 @@ public sealed record FieldChange(string Field, string? Before, string? After);
 /// <summary>An element added, removed or changed, by the grid format's collection (<c>segments</c>, <c>switches</c>, …) and id.</summary>
 public sealed record ElementChange(string Collection, string Id, ElementChangeKind Change, ImmutableArray<FieldChange> Fields)
 {
-    /// <summary>The element kind in the singular, as issues name it: segment, switch, indicator, node, substation, line type.</summary>
+    /// <summary>The element kind in the singular, as issues name it: segment, switch, indicator, node, substation, line type, crew base.</summary>
     public string Kind => GridDifference.KindOf(Collection);
 }
 
@@ -27,7 +27,7 @@ public sealed record ElementChange(string Collection, string Id, ElementChangeKi
 public sealed record GridDifference(ImmutableArray<FieldChange> GridFields, ImmutableArray<ElementChange> Elements)
 {
     /// <summary>The grid format's collections, in the order they are compared and listed.</summary>
-    public static readonly ImmutableArray<string> Collections = ["substations", "nodes", "segments", "switches", "indicators", "lineTypes"];
+    public static readonly ImmutableArray<string> Collections = ["substations", "nodes", "segments", "switches", "indicators", "lineTypes", "crews"];
 
     public bool IsEmpty => GridFields.IsEmpty && Elements.IsEmpty;
 
@@ -45,6 +45,7 @@ public sealed record GridDifference(ImmutableArray<FieldChange> GridFields, Immu
         "switches" => "switch",
         "indicators" => "indicator",
         "lineTypes" => "line type",
+        "crews" => "crew base",
         _ => collection,
     };
 }

@@ -14,6 +14,7 @@ internal static class GridChecks
         UniqueIds(parts.Segments, "segment", s => s.Id.Value, log);
         UniqueIds(parts.Switches, "switch", s => s.Id.Value, log);
         UniqueIds(parts.Indicators, "indicator", i => i.Id.Value, log);
+        UniqueIds(parts.CrewBases, "crewBase", b => b.Id.Value, log);
 
         var nodes = parts.Nodes.Select(n => n.Id).ToHashSet();
         var lineTypes = parts.LineTypes.Select(t => t.Id).ToHashSet();
@@ -42,6 +43,23 @@ internal static class GridChecks
         foreach (var device in parts.Switches)
         {
             Ends(nodes, "switch", device.Id.Value, device.From, device.To, log);
+        }
+
+        var switches = parts.Switches.GroupBy(s => s.Id).ToDictionary(g => g.Key, g => g.First());
+        foreach (var crewBase in parts.CrewBases)
+        {
+            NodeExists(nodes, "crewBase", crewBase.Id.Value, "node", crewBase.Node, log);
+            foreach (var device in (crewBase.TravelTimes?.Keys ?? []).OrderBy(d => d.Value, StringComparer.Ordinal))
+            {
+                if (!switches.TryGetValue(device, out var known))
+                {
+                    log.Error("crewBase", crewBase.Id.Value, "travelMinutes", $"refers to unknown switch \"{device}\"");
+                }
+                else if (known.Remote)
+                {
+                    log.Warning("crewBase", crewBase.Id.Value, "travelMinutes", $"gives a time to {device}, which is remote: no crew is sent to it");
+                }
+            }
         }
 
         foreach (var indicator in parts.Indicators)

@@ -1,3 +1,4 @@
+using System.Collections.Immutable;
 using System.Text.Json;
 using FeederLocate.Core.Model;
 
@@ -61,7 +62,8 @@ public static class GridReader
             Items(root, "nodes", "node", log, ReadNode),
             Items(root, "segments", "segment", log, ReadSegment),
             Items(root, "switches", "switch", log, ReadSwitch),
-            Items(root, "indicators", "indicator", log, ReadIndicator));
+            Items(root, "indicators", "indicator", log, ReadIndicator),
+            Items(root, "crews", "crewBase", log, ReadCrewBase, required: false));
         root.WarnUnknownFields();
 
         GridChecks.Run(parts, log);
@@ -71,15 +73,15 @@ public static class GridReader
         }
 
         var grid = Grid.Create(name, frequencyHz!.Value, parts.LineTypes, parts.Substations, parts.Nodes,
-            parts.Segments, parts.Switches, parts.Indicators);
+            parts.Segments, parts.Switches, parts.Indicators).WithCrewBases(parts.CrewBases);
         GridChecks.NormalTopology(grid, log);
         return new LoadResult<Grid>(log.HasErrors ? null : grid, log.Issues);
     }
 
-    private static List<T> Items<T>(ElementReader root, string field, string kind, IssueLog log, Func<ElementReader, T> read)
+    private static List<T> Items<T>(ElementReader root, string field, string kind, IssueLog log, Func<ElementReader, T> read, bool required = true)
     {
         var items = new List<T>();
-        if (root.Array(field, required: true) is not { } array)
+        if (root.Array(field, required) is not { } array)
         {
             return items;
         }
@@ -263,6 +265,35 @@ public static class GridReader
         return device;
     }
 
+    private static CrewBase ReadCrewBase(ElementReader r)
+    {
+        var node = r.RequiredString("node") ?? string.Empty;
+        var count = r.RequiredNumber("count", NumberRange.Between(1, 1000));
+        if (count is { } c && c != Math.Floor(c))
+        {
+            r.Error("count", $"must be a whole number of crews, got {ElementReader.Format(c)}");
+        }
+
+        var times = ImmutableDictionary.CreateBuilder<SwitchId, TimeSpan>();
+        if (r.Raw("travelMinutes") is { ValueKind: JsonValueKind.Object } raw && r.Object("travelMinutes", required: false) is { } map)
+        {
+            foreach (var device in raw.EnumerateObject())
+            {
+                if (map.RequiredNumber(device.Name, NumberRange.Between(0, Units.LongestDurationMinutes)) is { } minutes)
+                {
+                    times[new SwitchId(device.Name)] = Units.Duration(minutes)!.Value;
+                }
+            }
+        }
+        else if (r.Has("travelMinutes"))
+        {
+            _ = r.Object("travelMinutes", required: false);
+        }
+
+        return new CrewBase(new CrewBaseId(r.Id), new NodeId(node), count is { } n && n == Math.Floor(n) ? (int)n : 0,
+            r.OptionalString("name"), times.Count > 0 ? times.ToImmutable() : null);
+    }
+
     private static Indicator ReadIndicator(ElementReader r)
     {
         var indicator = new Indicator(
@@ -290,4 +321,5 @@ internal sealed record GridParts(
     List<Node> Nodes,
     List<Segment> Segments,
     List<SwitchingDevice> Switches,
-    List<Indicator> Indicators);
+    List<Indicator> Indicators,
+    List<CrewBase> CrewBases);

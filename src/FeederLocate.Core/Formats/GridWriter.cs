@@ -50,6 +50,11 @@ public static class GridWriter
                 w.WriteBoolean("remote", i.Remote);
                 Optional(w, "resetMinutes", Units.Minutes(i.ResetTime));
             });
+            if (!grid.CrewBases.IsEmpty)
+            {
+                Array(w, "crews", grid.CrewBases, WriteCrewBase);
+            }
+
             w.WriteEndObject();
         }
 
@@ -134,6 +139,24 @@ public static class GridWriter
         }
 
         w.WriteEndObject();
+    }
+
+    private static void WriteCrewBase(Utf8JsonWriter w, CrewBase b)
+    {
+        w.WriteString("id", b.Id.Value);
+        Optional(w, "name", b.Name);
+        w.WriteString("node", b.Node.Value);
+        Number(w, "count", b.Count);
+        if (b.TravelTimes is { Count: > 0 } times)
+        {
+            w.WriteStartObject("travelMinutes");
+            foreach (var (device, time) in times.OrderBy(t => t.Key.Value, StringComparer.Ordinal))
+            {
+                Number(w, device.Value, Units.Minutes(time)!.Value);
+            }
+
+            w.WriteEndObject();
+        }
     }
 
     private static void WriteNode(Utf8JsonWriter w, Node n)

@@ -82,6 +82,46 @@ public sealed record Grid
 
     public ImmutableArray<Indicator> Indicators { get; }
 
+    /// <summary>Where field crews set out from and how many; empty where the grid does not say (a crew is then assumed ready for every manual device).</summary>
+    public ImmutableArray<CrewBase> CrewBases { get; private init; } = [];
+
+    /// <summary>
+    /// This grid with its crew bases. Throws <see cref="ArgumentException"/> on a duplicate id, an unknown node
+    /// or device, a count below 1 or a negative travel time; data from files goes through the reader, which reports them.
+    /// </summary>
+    public Grid WithCrewBases(IEnumerable<CrewBase> bases)
+    {
+        ArgumentNullException.ThrowIfNull(bases);
+        ImmutableArray<CrewBase> list = [.. bases];
+        foreach (var b in list)
+        {
+            if (list.Count(o => o.Id == b.Id) > 1)
+            {
+                throw new ArgumentException($"duplicate crew base id {b.Id}", nameof(bases));
+            }
+
+            if (!HasNode(b.Node))
+            {
+                throw new ArgumentException($"crew base {b.Id}: unknown node {b.Node}", nameof(bases));
+            }
+
+            if (b.Count < 1)
+            {
+                throw new ArgumentException($"crew base {b.Id}: count must be at least 1, got {b.Count}", nameof(bases));
+            }
+
+            foreach (var (device, time) in b.TravelTimes ?? ImmutableDictionary<SwitchId, TimeSpan>.Empty)
+            {
+                if (!HasSwitch(device) || time < TimeSpan.Zero)
+                {
+                    throw new ArgumentException($"crew base {b.Id}: travel time to {device} names an unknown device or is negative", nameof(bases));
+                }
+            }
+        }
+
+        return this with { CrewBases = list };
+    }
+
     /// <summary>Angular frequency ω = 2πf in rad/s.</summary>
     public double AngularFrequencyRadPerS => 2 * Math.PI * FrequencyHz;
 

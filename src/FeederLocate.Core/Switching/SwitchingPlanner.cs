@@ -249,7 +249,8 @@ public static class SwitchingPlanner
         yield return "load flow: backward/forward sweep per phase, constant-power loads (power factor 0.95 lagging where loadKvar is absent), segment impedance (r1 + j·x1)·length, switches ideal, every busbar at 1.0 pu";
         yield return $"cold-load factor {Words.Number(o.ColdLoadFactor!.Value)} on the load of every node that was without supply; voltage limit {Words.Number(o.VoltageLimitPu)} pu; ampacityA per line type; transformerRatedMva where given";
         yield return "field indicators in the part without supply that the incident gives no field reading of are read before the first close, a default travel time after the start";
-        yield return $"timeline: one sequence; crews leave at the start; remote operation {Words.Number(o.RemoteOperationTime.TotalMinutes)} min, manual {Words.Number(o.ManualOperationTime.TotalMinutes)} min after arrival, fuse replacement {Words.Number(o.FuseReplacementTime.TotalMinutes)} min";
+        yield return $"timeline: one step after another (the control room switches one device at a time); remote operation {Words.Number(o.RemoteOperationTime.TotalMinutes)} min, manual {Words.Number(o.ManualOperationTime.TotalMinutes)} min after the crew's arrival, fuse replacement {Words.Number(o.FuseReplacementTime.TotalMinutes)} min";
+        yield return CrewWords.Assumption(ctx.Grid);
         var defaulted = steps.Where(s => s.Device is { } d && !ctx.Grid.Switch(d).Remote && ctx.Grid.Switch(d).TravelTime is null)
             .Select(s => s.Device!.Value).Distinct().ToList();
         if (defaulted.Count > 0)

@@ -1,3 +1,4 @@
+using System.Collections.Immutable;
 using FeederLocate.Core.Model;
 
 namespace FeederLocate.Core.Synthetic;
@@ -89,7 +90,27 @@ public static class SyntheticGrid
         }
 
         AddExtraTies(random, options, feeders, switches);
-        return Grid.Create($"Synthetic {options.Segments} segments (seed {options.Seed})", 50, [Cable, Overhead], substations, nodes, segments, switches, indicators);
+        var grid = Grid.Create($"Synthetic {options.Segments} segments (seed {options.Seed})", 50, [Cable, Overhead], substations, nodes, segments, switches, indicators);
+        return options.CrewBases > 0 ? grid.WithCrewBases(Crews(options, substations, switches)) : grid;
+    }
+
+    /// <summary>The crew bases, from a random stream of their own: each at a substation's bus in turn, with its own time to about half the manual devices.</summary>
+    private static IEnumerable<CrewBase> Crews(SyntheticGridOptions options, List<Substation> substations, List<SwitchingDevice> switches)
+    {
+        var random = new Random(unchecked((options.Seed * 7919) + 17));
+        for (var b = 0; b < options.CrewBases; b++)
+        {
+            var times = ImmutableDictionary.CreateBuilder<SwitchId, TimeSpan>();
+            foreach (var device in switches.Where(s => !s.Remote))
+            {
+                if (random.Next(2) == 0)
+                {
+                    times[device.Id] = TimeSpan.FromMinutes(5 + random.Next(60));
+                }
+            }
+
+            yield return new CrewBase(new CrewBaseId($"BASE{b + 1}"), substations[b % substations.Count].BusNode, options.CrewsPerBase, null, times.ToImmutable());
+        }
     }
 
     /// <summary>Disconnector, fuse or load-break switch by the options' shares (the default shares draw as one in six each).</summary>

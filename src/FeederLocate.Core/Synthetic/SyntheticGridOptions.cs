@@ -42,6 +42,16 @@ public sealed record SyntheticGridOptions(
     /// <summary>Multiplier on every node's load, &gt; 0 (customers stay as drawn).</summary>
     public double LoadScale { get; init; } = 1.0;
 
+    /// <summary>
+    /// Crew bases, ≥ 0: none gives a grid without <c>crews</c> (drawn apart from the rest, so the network is the
+    /// same either way). Each base sits at the bus of a substation in turn with <see cref="CrewsPerBase"/> crews and
+    /// its own travel time to about half the manual devices.
+    /// </summary>
+    public int CrewBases { get; init; }
+
+    /// <summary>Crews at each base, 1 to 1000.</summary>
+    public int CrewsPerBase { get; init; } = 2;
+
     public void Validate()
     {
         ArgumentOutOfRangeException.ThrowIfLessThan(Segments, 1);
@@ -49,6 +59,9 @@ public sealed record SyntheticGridOptions(
         ArgumentOutOfRangeException.ThrowIfLessThan(SegmentsPerSwitch, 1);
         ArgumentOutOfRangeException.ThrowIfLessThan(Substations, 1);
         ArgumentOutOfRangeException.ThrowIfNegative(ExtraTiesPerFeeder);
+        ArgumentOutOfRangeException.ThrowIfNegative(CrewBases);
+        ArgumentOutOfRangeException.ThrowIfLessThan(CrewsPerBase, 1);
+        ArgumentOutOfRangeException.ThrowIfGreaterThan(CrewsPerBase, 1000);
         if (!(IndicatorsPerSegment is >= 0 and <= 1))
         {
             throw new ArgumentOutOfRangeException(nameof(IndicatorsPerSegment), IndicatorsPerSegment, "share of segments with an indicator: 0 to 1");

@@ -195,4 +195,33 @@ public class PlanCommandTests
         Assert.Equal(1.5, run.Json().GetProperty("coldLoadFactor").GetDouble());
         Assert.True(run.Json().GetProperty("finalState").GetProperty("minimumVoltagePu").GetDouble() >= 0.95);
     }
+
+    [Fact]
+    public void Plan_names_the_crew_of_each_step_where_the_grid_names_its_crews()
+    {
+        // The resistor-grounded sample names two crew bases of one crew each (sample-grid/README.md).
+        var json = CliRun.Of("plan", SampleGrids.Path("impedance"), Incident("impedance-lg-trip-a2.incident.json"), "--json").Json();
+        var text = CliRun.Of("plan", SampleGrids.Path("impedance"), Incident("impedance-lg-trip-a2.incident.json"));
+
+        var steps = json.GetProperty("steps").EnumerateArray().ToList();
+        var lb = steps.Single(s => s.GetProperty("action").GetString() == "open" && s.GetProperty("device").GetString() == "LB-A2-3");
+        // LB-A2-3: 20 min from DEPOT-A (the device's own travelMinutes), 45 from DEPOT-B: DEPOT-A's crew, there at 20, done at 25.
+        Assert.Equal("DEPOT-A/1", lb.GetProperty("crew").GetString());
+        Assert.Equal(25, lb.GetProperty("atMinutes").GetDouble());
+        Assert.All(steps.Where(s => s.GetProperty("action").GetString() is "open" or "close" && s.GetProperty("device").GetString()!.StartsWith("CB-", StringComparison.Ordinal)),
+            s => Assert.False(s.TryGetProperty("crew", out _)));
+        Assert.Matches(@"order\s+at min\s+crew\s+action\s+device\s+reason", text.Out);
+        Assert.Contains("DEPOT-A/1", text.Out, StringComparison.Ordinal);
+        Assert.Contains("control room", text.Out, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Plan_without_crews_in_the_grid_has_no_crew_column_and_no_crew_field()
+    {
+        var json = CliRun.Of("plan", SampleGrids.Path("solid"), Incident("solid-lg-trip-a1.incident.json"), "--json").Json();
+        var text = CliRun.Of("plan", SampleGrids.Path("solid"), Incident("solid-lg-trip-a1.incident.json"));
+
+        Assert.All(json.GetProperty("steps").EnumerateArray(), s => Assert.False(s.TryGetProperty("crew", out _)));
+        Assert.Matches(@"order\s+at min\s+action\s+device\s+reason", text.Out);
+    }
 }

@@ -14,7 +14,7 @@ public sealed class ReaderFuzzTests(ITestOutputHelper output)
 {
     private const int MutantsPerReader = 3000;
 
-    private static readonly string[] GridKinds = ["grid", "lineType", "substation", "node", "segment", "switch", "indicator"];
+    private static readonly string[] GridKinds = ["grid", "lineType", "substation", "node", "segment", "switch", "indicator", "crewBase"];
 
     private static readonly string[] IncidentKinds = ["incident", "measurement", "indication", "reclosing", "relay"];
 

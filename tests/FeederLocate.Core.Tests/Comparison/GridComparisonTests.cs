@@ -86,4 +86,18 @@ public class GridComparisonTests
         Assert.Equal("FI1", Assert.Single(forward.Removed).Id);
         Assert.Equal("FI1", Assert.Single(backward.Added).Id);
     }
+
+    [Fact]
+    public void Crew_bases_added_and_changed_are_listed_with_their_fields()
+    {
+        var depot = new CrewBase(new CrewBaseId("DEPOT"), TestGrids.Brackenfold().Nodes[0].Id, 1);
+        var before = TestGrids.Brackenfold().WithCrewBases([depot]);
+        var after = TestGrids.Brackenfold().WithCrewBases([depot with { Count = 3 }, new CrewBase(new CrewBaseId("YARD"), TestGrids.Brackenfold().Nodes[0].Id, 1)]);
+
+        var difference = GridComparison.Compare(before, after);
+
+        Assert.Equal([("crew base", "DEPOT", ElementChangeKind.Changed), ("crew base", "YARD", ElementChangeKind.Added)],
+            difference.Elements.Select(e => (e.Kind, e.Id, e.Change)));
+        Assert.Equal(new FieldChange("count", "1", "3"), Assert.Single(difference.Elements[0].Fields));
+    }
 }

@@ -14,7 +14,8 @@ public class RoundTripPropertyTests
     private static readonly Gen<SyntheticGridOptions> GridOptions = Gen.Select(
         Gen.Int[1, 200], Gen.Int, Gen.Enum<GroundingScheme>(), Gen.Double[0, 1], Gen.Int[1, 60], Gen.Int[1, 6], Gen.Int[1, 3],
         (segments, seed, scheme, share, perFeeder, perSwitch, substations) =>
-            new SyntheticGridOptions(segments, seed, scheme, share, perFeeder, perSwitch, substations));
+            new SyntheticGridOptions(segments, seed, scheme, share, perFeeder, perSwitch, substations))
+        .Select(Gen.Int[0, 3], Gen.Int[1, 4], (options, bases, crews) => options with { CrewBases = bases, CrewsPerBase = crews });
 
     private static readonly Lazy<Grid> SolidSample = new(() => Grids.Sample("solid"));
 

@@ -77,6 +77,22 @@ public class SchemaTests
         Assert.False(results.IsValid);
     }
 
+    [Theory]
+    [InlineData("""[ { "id": "DEPOT", "node": "N1", "count": 2, "travelMinutes": { "D2": 30 } }, { "id": "WEST", "name": "West yard", "node": "N5", "count": 1 } ]""", true)]
+    [InlineData("""[ { "id": "DEPOT", "node": "N1" } ]""", false)]
+    [InlineData("""[ { "id": "DEPOT", "node": "N1", "count": 0 } ]""", false)]
+    [InlineData("""[ { "id": "DEPOT", "node": "N1", "count": 1.5 } ]""", false)]
+    [InlineData("""[ { "id": "DEPOT", "node": "N1", "count": 1, "travelMinutes": { "D2": -1 } } ]""", false)]
+    [InlineData("""[ { "id": "DEPOT", "node": "N1", "count": 1, "crew": 3 } ]""", false)]
+    public void Grid_schema_describes_the_crews(string crews, bool valid)
+    {
+        using var document = JsonDocument.Parse(Switching.CrewScheduleTests.FeederText(crews));
+
+        var results = GridSchema.Value.Evaluate(document.RootElement, new EvaluationOptions { OutputFormat = OutputFormat.List });
+
+        Assert.True(results.IsValid == valid, Describe(results));
+    }
+
     private static JsonSchema Load(string name) =>
         JsonSchema.FromText(RepositoryFiles.Read("sample-grid", "schemas", name), new BuildOptions { SchemaRegistry = new SchemaRegistry() });
 

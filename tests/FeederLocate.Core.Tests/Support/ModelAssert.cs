@@ -20,6 +20,15 @@ public static class ModelAssert
         Items(expected.Segments, actual.Segments, "segment");
         Items(expected.Switches, actual.Switches, "switch");
         Items(expected.Indicators, actual.Indicators, "indicator");
+        Assert.Equal(expected.CrewBases.Length, actual.CrewBases.Length);
+        foreach (var (e, a) in expected.CrewBases.Zip(actual.CrewBases))
+        {
+            // The travel times are a dictionary: compared by content, not by reference.
+            Assert.Equal(e with { TravelTimes = null }, a with { TravelTimes = null });
+            Assert.Equal(
+                (e.TravelTimes ?? ImmutableDictionary<SwitchId, TimeSpan>.Empty).OrderBy(p => p.Key.Value, StringComparer.Ordinal),
+                (a.TravelTimes ?? ImmutableDictionary<SwitchId, TimeSpan>.Empty).OrderBy(p => p.Key.Value, StringComparer.Ordinal));
+        }
     }
 
     public static void Equal(Incident expected, Incident actual)

@@ -226,4 +226,42 @@ public sealed class IncidentApiTests(ApiFixture app) : IClassFixture<ApiFixture>
         Assert.Equal(("http", "bearer"), (scheme.GetProperty("type").GetString(), scheme.GetProperty("scheme").GetString()));
         Assert.True(document.GetProperty("security")[0].TryGetProperty("apiToken", out _));
     }
+
+    [Fact]
+    public async Task The_plan_and_the_return_name_the_crew_of_each_manual_step_on_a_grid_with_crews()
+    {
+        // The resistor-grounded sample grid names two crew bases of one crew each (sample-grid/README.md).
+        var incident = RepositoryFiles.Read("sample-grid", "incidents", "impedance-lg-trip-a2.incident.json");
+        var response = await app.Client.PostAsync($"/api/incidents?grid={Uri.EscapeDataString("Marrowdell 20 kV (resistor-grounded)")}", Json(incident));
+        Assert.Equal(HttpStatusCode.Created, response.StatusCode);
+        using var created = JsonDocument.Parse(await response.Content.ReadAsStringAsync());
+        var id = created.RootElement.GetProperty("id").GetInt64();
+
+        var plan = await app.Client.GetFromJsonAsync<JsonElement>($"/api/incidents/{id}/plan");
+        var steps = plan.GetProperty("steps").EnumerateArray().ToList();
+
+        // Every open and close names a crew exactly when its device is manual; the remote ones name none.
+        string[] crews = ["DEPOT-A/1", "DEPOT-B/1"];
+        var grid = SampleGrids.Grid("impedance");
+        var switching = steps.Where(s => s.GetProperty("action").GetString() is "open" or "close").ToList();
+        Assert.NotEmpty(switching);
+        foreach (var step in switching)
+        {
+            var remote = grid.Switch(new Core.Model.SwitchId(step.GetProperty("device").GetString()!)).Remote;
+            Assert.Equal(!remote, step.TryGetProperty("crew", out var crew));
+            Assert.True(remote || crews.Contains(crew.GetString()), $"step {step.GetProperty("order")}: crew {crew}");
+        }
+
+        Assert.Contains(steps, s => s.GetProperty("action").GetString() == "dispatch" && s.TryGetProperty("crew", out _));
+
+        // Carried out, the plan leaves manual devices open: the return sends crews to close them.
+        foreach (var step in steps.Select(s => s.GetProperty("order").GetInt32()))
+        {
+            var ticked = await app.Client.PostAsync($"/api/incidents/{id}/steps", Json($$"""{ "order": {{step}} }"""));
+            Assert.Equal(HttpStatusCode.Accepted, ticked.StatusCode);
+        }
+
+        var back = await app.Client.GetFromJsonAsync<JsonElement>($"/api/incidents/{id}/plan/return");
+        Assert.Contains(back.GetProperty("steps").EnumerateArray(), s => s.TryGetProperty("crew", out var c) && crews.Contains(c.GetString()));
+    }
 }

@@ -62,9 +62,11 @@ public sealed record PlanDocument(
     internal static StepEntry Step(SwitchingStep s) => new(
         s.Order, ActionName(s.Action), s.Device?.Value, s.Node?.Value,
         s.Segments.IsDefaultOrEmpty ? null : [.. s.Segments.Select(x => x.Value)],
-        Math.Round(s.At.TotalMinutes, 2), s.Reason);
+        Math.Round(s.At.TotalMinutes, 2), s.Reason, s.Crew);
 
-    public sealed record StepEntry(int Order, string Action, string? Device, string? Node, IReadOnlyList<string>? Segments, double AtMinutes, string Reason);
+    /// <param name="AtMinutes">Planned completion, minutes after the start (for a dispatch, when the crew leaves).</param>
+    /// <param name="Crew">The crew that carries the step out (<c>DEPOT/1</c>); absent for the control room, or where the grid names no crews.</param>
+    public sealed record StepEntry(int Order, string Action, string? Device, string? Node, IReadOnlyList<string>? Segments, double AtMinutes, string Reason, string? Crew = null);
 
     public sealed record SectionEntry(string Id, IReadOnlyList<string> Segments);
 

@@ -3,7 +3,8 @@ namespace FeederLocate.Core.Switching;
 /// <summary>
 /// The order of restorations that minimises the estimated customer minutes: every order is tried for up
 /// to <see cref="ExhaustiveLimit"/> restorations; beyond that a greedy order takes next the restoration
-/// with the most customers per minute it adds to the timeline (Smith's ratio rule).
+/// with the most customers per minute it adds to the timeline (Smith's ratio rule). Both place the
+/// operations on the crews' timeline, so the order follows from where the crews are.
 /// </summary>
 internal static class JobOrder
 {
@@ -35,7 +36,7 @@ internal static class JobOrder
             var start = timeline.Now;
             var next = left.Where(j => j.After is null || order.Contains(j.After)).MaxBy(j =>
             {
-                var end = Finish(ctx, start, j);
+                var end = Finish(timeline, j);
                 return j.Customers / Math.Max(1e-3, (end - start).TotalMinutes);
             })!;
             foreach (var op in next.Operations)
@@ -124,17 +125,16 @@ internal static class JobOrder
     private static bool Respects(List<Job> order) =>
         order.Select((j, k) => j.After is null || order.IndexOf(j.After) < k).All(ok => ok);
 
-    private static TimeSpan Finish(PlanningContext ctx, TimeSpan start, Job job)
+    /// <summary>When <paramref name="job"/> would be done if it came next (with the crews where the timeline leaves them).</summary>
+    private static TimeSpan Finish(Timeline timeline, Job job)
     {
-        var now = start;
-        var timeline = new Timeline(ctx.Grid, ctx.Options);
+        var trial = timeline.Copy();
         foreach (var op in job.Operations)
         {
-            var ready = timeline.Travel(op.Device);
-            now = (now > ready ? now : ready) + timeline.Duration(op.Action, op.Device);
+            trial.Place(op.Action, op.Device);
         }
 
-        return now;
+        return trial.Now;
     }
 
     private static IEnumerable<List<Job>> Permutations(List<Job> items)

@@ -68,27 +68,41 @@ internal static class ReturnToNormal
         order ??= Greedy(graph, states, moves, served)
             ?? throw new PlanningException($"no safe order returns {Words.List(moves.Select(i => grid.Switches[i].Id))} to normal: a disconnector or fuse would have to operate live; switch by local instruction");
 
-        foreach (var device in order.Select(o => o.Device).Where(i => !grid.Switches[i].Remote).Distinct())
+        // Placed first, written after: a crew's first trip at the top, a later one after the step it leaves from.
+        var timeline = new Timeline(grid, options);
+        var placed = order.Select(o =>
         {
-            steps.Add(Step(steps, StepAction.Dispatch, grid.Switches[device].Id, null, TimeSpan.Zero,
-                $"send a crew to {grid.Switches[device].Id} (manual; about {Words.Number(new Timeline(grid, options).Travel(device).TotalMinutes)} min to reach it)"));
+            timeline.Place(o.Action, o.Device);
+            return timeline.Placements[^1];
+        }).ToList();
+        foreach (var (placement, k) in placed.Select((p, k) => (p, k)).Where(t => t.p.Trip is { After: < 0 }))
+        {
+            steps.Add(Step(steps, StepAction.Dispatch, grid.Switches[order[k].Device].Id, null, placement.Trip!.Leaves,
+                CrewWords.Dispatch(placement.Trip, grid.Switches[order[k].Device].Id)) with { Crew = placement.Crew });
         }
 
-        var timeline = new Timeline(grid, options);
+        var leaving = placed.Select((p, j) => (p.Trip, j)).Where(t => t.Trip is { After: >= 0 }).ToLookup(t => t.Trip!.After, t => t.j);
         var network = graph.Energise(states);
         var changes = new List<SupplyChange>();
         var atStart = Without(grid, network, served);
         var most = atStart;
-        foreach (var (device, action, after) in order)
+        for (var k = 0; k < order.Count; k++)
         {
+            var (device, action, after) = order[k];
             var id = grid.Switches[device].Id;
             var before = network;
             network = after;
-            var at = timeline.Place(action, device);
+            var at = placed[k].Done;
             var without = Without(grid, network, served);
             most = Math.Max(most, without);
             changes.Add(new SupplyChange(at, without));
-            steps.Add(Step(steps, action, id, null, at, Reason(grid, device, action, before, network, served)));
+            steps.Add(Step(steps, action, id, null, at, Reason(grid, device, action, before, network, served)) with { Crew = placed[k].Crew });
+            foreach (var j in leaving[k])
+            {
+                var trip = placed[j].Trip!;
+                steps.Add(Step(steps, StepAction.Dispatch, grid.Switches[order[j].Device].Id, null, trip.Leaves,
+                    CrewWords.Dispatch(trip, grid.Switches[order[j].Device].Id)) with { Crew = trip.Crew });
+            }
         }
 
         var horizon = changes.Count > 0 ? changes[^1].At : TimeSpan.Zero;
@@ -132,7 +146,7 @@ internal static class ReturnToNormal
     {
         var grid = graph.Grid;
         var full = (1 << moves.Count) - 1;
-        var best = new Dictionary<int, (double Cost, TimeSpan Now, int Previous, List<Operation> Ops)> { [0] = (0, TimeSpan.Zero, -1, []) };
+        var best = new Dictionary<int, (double Cost, Timeline Timeline, int Previous, List<Operation> Ops)> { [0] = (0, new Timeline(grid, options), -1, []) };
         var networks = new Dictionary<int, EnergisedNetwork> { [0] = graph.Energise(start) };
 
         // Subsets in order of size: every transition adds one device, so each is final before it is expanded.
@@ -152,7 +166,8 @@ internal static class ReturnToNormal
                 }
 
                 var next = mask | (1 << k);
-                var timeline = new Timeline(grid, options, here.Now);
+                // The crews where the best order to this subset left them (with crews in the grid, the search is exact in the positions, not in the crews' whereabouts).
+                var timeline = here.Timeline.Copy();
                 var cost = here.Cost;
                 var before = network;
                 foreach (var op in ops)
@@ -164,7 +179,7 @@ internal static class ReturnToNormal
 
                 if (!best.TryGetValue(next, out var there) || cost < there.Cost - 1e-9)
                 {
-                    best[next] = (cost, timeline.Now, mask, ops);
+                    best[next] = (cost, timeline, mask, ops);
                     networks[next] = ops[^1].After;
                 }
             }

@@ -38,7 +38,7 @@ internal static class EarthFaultSearch
         }
 
         var search = new Search(ctx, tree);
-        search.Live([.. tree.Zones], depth: 0, [], TimeSpan.Zero);
+        search.Live([.. tree.Zones], depth: 0, [], null);
         expectedInterruptions = search.ExpectedInterruptions / Math.Max(1e-300, tree.Zones.Sum(z => ctx.ProbabilityOfZone[z]));
         return [.. search.Entries.OrderBy(e => e.Entry)];
     }
@@ -64,7 +64,7 @@ internal static class EarthFaultSearch
         /// The search on the live part <paramref name="region"/> (holding the fault), after <paramref name="prefix"/>;
         /// returns its first entry, or null when it ends.
         /// </summary>
-        public int? Live(HashSet<int> region, int depth, IReadOnlyList<(StepAction, int, string)> prefix, TimeSpan start)
+        public int? Live(HashSet<int> region, int depth, IReadOnlyList<(StepAction, int, string)> prefix, Timeline? start)
         {
             var cut = Bisect(region, z => DeviceRules.CanOpenLive(Grid.Switches[tree.ParentSwitch(z)].Kind, ThroughCurrent.StandingEarthFault));
             if (cut < 0 || depth >= MaxDepth || Entries.Count >= ctx.Options.MaxSearchEntries)
@@ -95,7 +95,7 @@ internal static class EarthFaultSearch
         /// The search on the dead part <paramref name="region"/> below <paramref name="gate"/>'s zone, which a breaker or
         /// recloser recloses, after <paramref name="prefix"/>; returns its first entry, or null when it ends.
         /// </summary>
-        private int? Dead(HashSet<int> region, int gate, int depth, IReadOnlyList<(StepAction, int, string)> prefix, TimeSpan start)
+        private int? Dead(HashSet<int> region, int gate, int depth, IReadOnlyList<(StepAction, int, string)> prefix, Timeline? start)
         {
             var cut = Bisect(region, _ => true);
             if (cut < 0 || depth >= MaxDepth || Entries.Count >= ctx.Options.MaxSearchEntries)

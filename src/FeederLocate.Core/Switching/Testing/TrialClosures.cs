@@ -63,7 +63,7 @@ internal static class TrialClosures
         var remaining = inTree.ToList();
         var live = Reach(tree, root, entrance.Values.ToHashSet());
         var entries = new List<TestEntry>();
-        var steps = new EntrySteps(ctx, TimeSpan.Zero);
+        var steps = new EntrySteps(ctx, null);
         // A suspect beyond another one stays dead behind that one's entrance; its own entrance opens only when that one is added.
         Suspect? Above(Suspect s)
         {
