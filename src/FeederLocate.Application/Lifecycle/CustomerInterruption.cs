@@ -86,7 +86,7 @@ public sealed record CustomerInterruption(double CustomerMinutesInterrupted, Dat
         }
 
         var minutes = Core.Switching.CustomerMinutes.Interrupted(atStart, changes, until - from);
-        var basis = $"from the {(state.Times.TrippedAt is null ? "fault" : "trip")} at {Times.EventTimes.Text(from)}: "
+        var basis = $"from the {(state.Times.TrippedAt is null ? "fault" : "trip")} at {from.UtcDateTime.ToString("yyyy-MM-dd HH:mm 'UTC'", System.Globalization.CultureInfo.InvariantCulture)}: "
             + $"{actual.Count} switching operation{(actual.Count == 1 ? string.Empty : "s")} at the actual time{(actual.Count == 1 ? string.Empty : "s")}, "
             + $"{estimated.Count} at the plan's estimate"
             + (estimated.Count > 0 && repairedAt is null && returnSteps.Count > 0 ? " (the return counted as if the repair were reported now)" : string.Empty);

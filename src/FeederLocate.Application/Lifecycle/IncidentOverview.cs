@@ -45,11 +45,11 @@ public static class IncidentOverview
             CustomerInterruption.Of(graph, state, plan, back, now));
     }
 
-    /// <summary>A step as the board shows it: its number, action and device (or segments).</summary>
+    /// <summary>A step as the board shows it: its number, action in plain words and device (or segments).</summary>
     public static string Describe(SwitchingStep step)
     {
         ArgumentNullException.ThrowIfNull(step);
-        return $"{step.Order}. {CheckedSwitching.ActionName(step.Action)} {step.Device?.Value ?? string.Join(" ", step.Segments)}".TrimEnd();
+        return $"{step.Order}. {StepWords.Action(step.Action)} {step.Device?.Value ?? string.Join(" ", step.Segments)}".TrimEnd();
     }
 
     /// <summary>Customers on nodes without supply at the incident's switch positions of now.</summary>

@@ -14,22 +14,7 @@ public static partial class OperatorWords
 {
     private static readonly CultureInfo Numbers = CultureInfo.InvariantCulture;
 
-    public static string Action(StepAction action) => action switch
-    {
-        StepAction.Open => "open",
-        StepAction.Close => "close",
-        StepAction.Dispatch => "send a crew to",
-        StepAction.Patrol => "patrol",
-        StepAction.Verify => "verify",
-        StepAction.Replace => "replace the fuse",
-        StepAction.Lock => "lock and tag (or block remote control of)",
-        StepAction.ProveDead => "prove dead",
-        StepAction.Earth => "earth",
-        StepAction.Permit => "issue a permit for",
-        StepAction.RemoveEarth => "remove the earths from",
-        StepAction.Unlock => "remove the lock and tag from",
-        _ => action.ToString().ToLowerInvariant(),
-    };
+    public static string Action(StepAction action) => FeederLocate.Application.Switching.StepWords.Action(action);
 
     public static string Quantity(string quantity) => quantity switch
     {

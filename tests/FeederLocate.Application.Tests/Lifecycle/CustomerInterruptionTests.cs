@@ -52,7 +52,7 @@ public sealed class CustomerInterruptionTests : IDisposable
         Assert.Equal(135 * 30, figure.CustomerMinutesInterrupted, 6);
         Assert.Equal((0, 1), (figure.ActualSteps, figure.EstimatedSteps));
         Assert.Equal(Trip.AddMinutes(30), figure.Until);
-        Assert.Equal("from the trip at 2026-03-14T05:45:00Z: 0 switching operations at the actual times, 1 at the plan's estimate", figure.Basis);
+        Assert.Equal("from the trip at 2026-03-14 05:45 UTC: 0 switching operations at the actual times, 1 at the plan's estimate", figure.Basis);
     }
 
     [Fact]
