@@ -144,6 +144,9 @@ public sealed class DeskLayoutTests(WebAppFixture app) : IClassFixture<WebAppFix
 
         await phone.FillAsync("[data-testid=field-search]", "FPI-A2-08");
         await phone.ClickAsync("[data-testid=field-matches] button");
+        // Where it is, in the operator's words: the section by feeder and bounding devices; the segment id is the tooltip.
+        await Assertions.Expect(phone.Locator("[data-testid=field-place]")).ToContainTextAsync("on A2: ");
+        await Assertions.Expect(phone.Locator("[data-testid=field-place]")).ToHaveAttributeAsync("title", "S206");
         await phone.ClickAsync("[data-testid=field-state-fault]");
         await phone.FillAsync("[data-testid=field-read-at]", "07:45");
         await phone.ScreenshotAsync(new PageScreenshotOptions { Path = Shot("field-390x844.png") });
