@@ -1,5 +1,6 @@
 using FeederLocate.Application.Analysis;
 using FeederLocate.Application.Switching;
+using FeederLocate.Application.Words;
 using FeederLocate.Core.Switching;
 using FeederLocate.Core.Topology;
 using FeederLocate.Storage.Incidents;

@@ -4,6 +4,7 @@ using FeederLocate.Cli.Input;
 using FeederLocate.Cli.Output;
 using FeederLocate.Core.Formats.Documents;
 using FeederLocate.Application.Analysis;
+using FeederLocate.Application.Words;
 using FeederLocate.Core.Model;
 using FeederLocate.Core.Ranking;
 using FeederLocate.Core.Switching;
@@ -88,6 +89,7 @@ internal static class PlanCommand
             throw new BadInputException($"error: {planned.Problem}");
         }
 
+        var names = SectionNames.Build(graph, FeederMap.Build(graph));
         if (returnToNormal)
         {
             var attempt = EvidenceAnalysis.Return(graph, incident, plan, options);
@@ -103,7 +105,7 @@ internal static class PlanCommand
             }
             else
             {
-                WriteReturn(console.Out, returnDocument, plan);
+                WriteReturn(console.Out, returnDocument, plan, names);
             }
 
             return CliApp.Success;
@@ -116,31 +118,32 @@ internal static class PlanCommand
             return CliApp.Success;
         }
 
-        Write(console.Out, document);
+        Write(console.Out, document, names);
         return CliApp.Success;
     }
 
-    private static void Write(TextWriter output, PlanDocument d)
+    private static void Write(TextWriter output, PlanDocument d, SectionNames names)
     {
         WriteCautions(output, d);
         output.WriteLine();
         var consistency = d.Ranking.Consistent ? string.Empty : "; the evidence is not consistent: check it";
+        var isolated = string.Join("; ", d.IsolatedSections.Select(id => Named(id, names)));
         output.WriteLine(d.IsolatedSections.Count == 0
-            ? $"Transient fault (a reclosure held): nothing is switched or isolated; patrol the suspects, most likely first (top {d.Ranking.TopSection}, {Percent(d.Ranking.TopProbability)}{consistency})."
+            ? $"Transient fault (a reclosure held): nothing is switched or isolated; patrol the suspects, most likely first (top {Named(d.Ranking.TopSection, names)}, {Percent(d.Ranking.TopProbability)}{consistency})."
             : d.IsolatedSections[0] == d.Ranking.TopSection
-                ? $"Isolate {string.Join(", ", d.IsolatedSections)} (most likely section, {Percent(d.Ranking.TopProbability)}{consistency})."
-                : $"Isolate {string.Join(", ", d.IsolatedSections)} (the section asked for; the most likely is {d.Ranking.TopSection}, {Percent(d.Ranking.TopProbability)}{consistency}).");
+                ? $"Isolate {isolated} (most likely section, {Percent(d.Ranking.TopProbability)}{consistency})."
+                : $"Isolate {isolated} (the section asked for; the most likely is {Named(d.Ranking.TopSection, names)}, {Percent(d.Ranking.TopProbability)}{consistency}).");
         foreach (var s in d.Sections)
         {
-            output.WriteLine($"  {s.Id}: segments {string.Join(" ", s.Segments)}");
+            output.WriteLine($"  {Named(s.Id, names)}: segments {string.Join(" ", s.Segments)}");
         }
 
-        var steps = StepTable(d.Steps, s => s.Device ?? (s.Segments is { } segs ? string.Join(" ", segs) : string.Empty));
+        var steps = StepTable(d.Steps, s => s.Device ?? (s.Segments is { } segs ? string.Join(" ", segs) : string.Empty), names);
         TableOutput.Write(output, steps);
         var summary = TableOutput.Table("estimate", "value");
-        summary.AddRow("restored customers", d.RestoredCustomers.ToString(CultureInfo.InvariantCulture));
-        summary.AddRow("unserved customers", d.UnservedCustomers.ToString(CultureInfo.InvariantCulture));
-        summary.AddRow("customer minutes interrupted (IEEE 1366 CMI)", d.CustomerMinutesInterrupted.ToString("0", CultureInfo.InvariantCulture));
+        summary.AddRow("restored customers", PeopleNumbers.Count(d.RestoredCustomers));
+        summary.AddRow("unserved customers", PeopleNumbers.Count(d.UnservedCustomers));
+        summary.AddRow("customer minutes interrupted (IEEE 1366 CMI)", $"about {PeopleNumbers.Count(d.CustomerMinutesInterrupted)}");
         summary.AddRow("lowest voltage, final state", $"{d.FinalState.MinimumVoltagePu:F3} pu at {d.FinalState.MinimumVoltageNode} (limit {d.VoltageLimitPu:F2} pu)");
         summary.AddRow("highest loading, final state", $"{d.FinalState.MaximumLoadingPercent:F0} % on {d.FinalState.MaximumLoadingSegment}");
         summary.AddRow("cold-load factor", d.ColdLoadBasis ?? d.ColdLoadFactor.ToString(CultureInfo.InvariantCulture));
@@ -171,8 +174,8 @@ internal static class PlanCommand
             var tests = TableOutput.Table("entry", "steps", "watch", "p", "branches");
             foreach (var t in d.TestOrder)
             {
-                var entrySteps = t.Steps.Select(s => $"{s.Order}. {s.Action} {s.Device} (about {s.AtMinutes.ToString("0", CultureInfo.InvariantCulture)} min): {s.Reason}");
-                var branches = t.Branches.Select(b => $"{b.Result}: {b.Then}");
+                var entrySteps = t.Steps.Select(s => $"{s.Order}. {Words(s.Action)} {s.Device} (about {s.AtMinutes.ToString("0", CultureInfo.InvariantCulture)} min): {NamesInText.With(s.Reason, names, null)}");
+                var branches = t.Branches.Select(b => $"{b.Result}: {NamesInText.With(b.Then, names, null)}");
                 tests.AddRow(
                     t.Entry.ToString(CultureInfo.InvariantCulture),
                     string.Join(Environment.NewLine, entrySteps),
@@ -195,7 +198,7 @@ internal static class PlanCommand
     }
 
     /// <summary>The steps as a table; the crew column only where the grid names its crews (a grid without them prints as it always has).</summary>
-    private static Spectre.Console.Table StepTable(IReadOnlyList<PlanDocument.StepEntry> entries, Func<PlanDocument.StepEntry, string> where)
+    private static Spectre.Console.Table StepTable(IReadOnlyList<PlanDocument.StepEntry> entries, Func<PlanDocument.StepEntry, string> where, SectionNames names)
     {
         var crews = entries.Any(s => s.Crew is not null);
         var steps = crews
@@ -205,25 +208,35 @@ internal static class PlanCommand
         {
             var order = s.Order.ToString(CultureInfo.InvariantCulture);
             var at = s.AtMinutes.ToString("0", CultureInfo.InvariantCulture);
-            steps.AddRow(crews ? [order, at, s.Crew ?? "control room", s.Action, where(s), s.Reason] : [order, at, s.Action, where(s), s.Reason]);
+            var action = Words(s.Action);
+            var reason = NamesInText.With(s.Reason, names, null);
+            steps.AddRow(crews ? [order, at, s.Crew ?? "control room", action, where(s), reason] : [order, at, action, where(s), reason]);
         }
 
         return steps;
     }
 
-    private static void WriteReturn(TextWriter output, ReturnPlanDocument d, SwitchingPlan plan)
+    /// <summary>A section by the operators' name, its id after it: "A1: LB-A1-3 → LB-A1-4 (SEC-S108)".</summary>
+    private static string Named(string? id, SectionNames names) =>
+        id is null ? "none" : names.All.TryGetValue(new SectionId(id), out var name) ? $"{name} ({id})" : id;
+
+    /// <summary>The step's action in plain words ("prove dead"); the JSON keeps the format's action names.</summary>
+    private static string Words(string action) =>
+        Enum.TryParse<StepAction>(action, ignoreCase: true, out var known) ? StepWords.Action(known) : action;
+
+    private static void WriteReturn(TextWriter output, ReturnPlanDocument d, SwitchingPlan plan, SectionNames names)
     {
         WriteCautions(output, d.Cautions);
         output.WriteLine();
         output.WriteLine(plan.IsolatedSections.IsEmpty
             ? "Return to normal: the plan isolated nothing."
-            : $"Return to normal after the repair of {string.Join(", ", plan.IsolatedSections)} (minutes count from the moment the repair is reported complete):");
-        var steps = StepTable(d.Steps, s => s.Device ?? string.Empty);
+            : $"Return to normal after the repair of {string.Join("; ", plan.IsolatedSections.Select(id => Named(id.Value, names)))} (minutes count from the moment the repair is reported complete):");
+        var steps = StepTable(d.Steps, s => s.Device ?? string.Empty, names);
 
         TableOutput.Write(output, steps);
         var summary = TableOutput.Table("estimate", "value");
-        summary.AddRow("most customers without supply at once", d.MostCustomersInterrupted.ToString(CultureInfo.InvariantCulture));
-        summary.AddRow("customer minutes interrupted (IEEE 1366 CMI)", d.CustomerMinutesInterrupted.ToString("0", CultureInfo.InvariantCulture));
+        summary.AddRow("most customers without supply at once", PeopleNumbers.Count(d.MostCustomersInterrupted));
+        summary.AddRow("customer minutes interrupted (IEEE 1366 CMI)", $"about {PeopleNumbers.Count(d.CustomerMinutesInterrupted)}");
         TableOutput.Write(output, summary);
         output.WriteLine("Approximations:");
         foreach (var a in d.Approximations)

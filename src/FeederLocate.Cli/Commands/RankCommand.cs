@@ -43,11 +43,11 @@ internal static class RankCommand
             return CliApp.Success;
         }
 
-        Write(console.Out, document);
+        Write(console.Out, document, Core.Topology.SectionNames.Build(graph, Core.Topology.FeederMap.Build(graph)));
         return CliApp.Success;
     }
 
-    private static void Write(TextWriter output, RankingDocument d)
+    private static void Write(TextWriter output, RankingDocument d, Core.Topology.SectionNames names)
     {
         if (d.Transient)
         {
@@ -56,7 +56,7 @@ internal static class RankCommand
 
         foreach (var s in d.SwitchSuspects)
         {
-            output.WriteLine($"SWITCH POSITION: {s.Device} is probably {s.State} ({Percent(s.Probability)}), not as recorded; were it so, the fault most probably lies in {s.Section} ({Percent(s.SectionProbability)}). The ranking below assumes the recorded positions: confirm {s.Device}'s real position to rank again.");
+            output.WriteLine($"SWITCH POSITION: {s.Device} is probably {s.State} ({Percent(s.Probability)}), not as recorded; were it so, the fault most probably lies in {names[new Core.Model.SectionId(s.Section)]} [{s.Section}] ({Percent(s.SectionProbability)}). The ranking below assumes the recorded positions: confirm {s.Device}'s real position to rank again.");
         }
 
         if (d.CrossCountry is { } cross)
@@ -90,16 +90,16 @@ internal static class RankCommand
             output.WriteLine($"without weight (read more than the reset time after the fault): {string.Join(", ", d.Expired)}");
         }
 
-        var sections = TableOutput.Table("rank", "section", "probability", "segments");
+        var sections = TableOutput.Table("rank", "section", "id", "probability", "segments");
         foreach (var (s, i) in d.Sections.Take(8).Select((s, i) => (s, i)))
         {
-            sections.AddRow((i + 1).ToString(CultureInfo.InvariantCulture), s.Id, Percent(s.Probability), string.Join(" ", s.Segments));
+            sections.AddRow((i + 1).ToString(CultureInfo.InvariantCulture), names[new Core.Model.SectionId(s.Id)], s.Id, Percent(s.Probability), string.Join(" ", s.Segments));
         }
 
         TableOutput.Write(output, sections);
         foreach (var suspect in d.Suspects)
         {
-            output.WriteLine($"segment {suspect.Segment}: {Percent(suspect.Probability)}, best fit {suspect.FaultType} with Rf {suspect.FaultResistanceOhm.ToString(CultureInfo.InvariantCulture)} Ω"
+            output.WriteLine($"segment {suspect.Segment}: {Percent(suspect.Probability)}, best fit {suspect.FaultType} with Rf {Application.Words.PeopleNumbers.Resistance(suspect.FaultResistanceOhm)}"
                 + (suspect.DistanceWindowKm is { } w ? $", {w.FromKm:F1}–{w.ToKm:F1} km from the substation" : string.Empty));
             foreach (var c in suspect.Agreeing)
             {

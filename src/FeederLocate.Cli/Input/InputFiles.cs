@@ -81,6 +81,11 @@ public static class InputFiles
             return;
         }
 
+        if (reference.IndexOfAny(Path.GetInvalidPathChars()) >= 0)
+        {
+            throw new BadInputException("error: incident file: grid must be a file path; it holds a character no path may hold (a control character such as U+0000)");
+        }
+
         var named = Path.GetFullPath(Path.Combine(Path.GetDirectoryName(Path.GetFullPath(incidentPath)) ?? ".", reference));
         var given = Path.GetFullPath(gridPath);
         if (string.Equals(named, given, StringComparison.Ordinal))

@@ -34,8 +34,9 @@ public static class TableOutput
         table.AddRow(cells.Select(c => (IRenderable)new Text(Printable(c))).ToArray());
 
     /// <summary>
-    /// The text with control characters and Unicode noncharacters written as <c>\uXXXX</c>: an id may hold any
-    /// character the JSON allows, but the table's width measure fails on some of them (U+FFFF).
+    /// The text with control characters (but the line break, which starts a new line in the cell) and Unicode
+    /// noncharacters written as <c>\uXXXX</c>: an id may hold any character the JSON allows, but the table's
+    /// width measure fails on some of them (U+FFFF).
     /// </summary>
     public static string Printable(string text)
     {
@@ -55,7 +56,7 @@ public static class TableOutput
     }
 
     private static bool NeedsEscape(char c) =>
-        char.IsControl(c) || c is '\uFFFE' or '\uFFFF' || c is >= '\uFDD0' and <= '\uFDEF';
+        (char.IsControl(c) && c != '\n') || c is '\uFFFE' or '\uFFFF' || c is >= '\uFDD0' and <= '\uFDEF';
 
     public static void Write(TextWriter writer, IRenderable renderable) => ConsoleFor(writer).Write(renderable);
 }

@@ -1,5 +1,4 @@
 using System.Globalization;
-using System.Text.RegularExpressions;
 using FeederLocate.Core.Model;
 using FeederLocate.Core.Switching;
 using FeederLocate.Core.Topology;
@@ -10,11 +9,11 @@ namespace FeederLocate.Web.Naming;
 /// The words and numbers the pages show people: actions in plain words, sections by their feeder and
 /// bounding devices, numbers rounded and grouped. The file formats and the API keep their own words and ids.
 /// </summary>
-public static partial class OperatorWords
+public static class OperatorWords
 {
     private static readonly CultureInfo Numbers = CultureInfo.InvariantCulture;
 
-    public static string Action(StepAction action) => FeederLocate.Application.Switching.StepWords.Action(action);
+    public static string Action(StepAction action) => FeederLocate.Application.Words.StepWords.Action(action);
 
     public static string Quantity(string quantity) => quantity switch
     {
@@ -34,7 +33,7 @@ public static partial class OperatorWords
     };
 
     /// <summary>A whole count with thousands grouped: 12,345.</summary>
-    public static string Count(double value) => Math.Round(value).ToString("#,0", Numbers);
+    public static string Count(double value) => FeederLocate.Application.Words.PeopleNumbers.Count(value);
 
     /// <summary>"none", "under 1" or the rounded count, for an estimate such as customer minutes.</summary>
     public static string Estimate(double value) => value <= 0 ? "none" : value < 1 ? "under 1" : $"about {Count(value)}";
@@ -64,19 +63,7 @@ public static partial class OperatorWords
     /// The text with every section and segment id in it (a whole word: "FPI-S108" is an indicator's name and
     /// stays) replaced by its operator's name.
     /// </summary>
-    public static string WithNames(string text, SectionNames? sections, SegmentNames? segments)
-    {
-        ArgumentNullException.ThrowIfNull(text);
-        return sections is null && segments is null ? text : IdInText().Replace(text, m =>
-        {
-            if (sections is not null && sections.All.ContainsKey(new SectionId(m.Value)))
-            {
-                return sections[new SectionId(m.Value)];
-            }
-
-            return segments is not null && segments.All.ContainsKey(new SegmentId(m.Value)) ? segments[new SegmentId(m.Value)] : m.Value;
-        });
-    }
+    public static string WithNames(string text, SectionNames? sections, SegmentNames? segments) => NamesInText.With(text, sections, segments);
 
     /// <summary>A segment by its name, or its id where no names are given.</summary>
     public static string Segment(SegmentId id, SegmentNames? names) => names?[id] ?? id.Value;
@@ -85,16 +72,5 @@ public static partial class OperatorWords
     public static string Section(SectionId id, SectionNames? names) => names?[id] ?? id.Value;
 
     /// <summary>A fault resistance for people: "0.5 Ω", "12 Ω", "350 Ω", "1.2 kΩ".</summary>
-    public static string Resistance(double ohm) => Math.Abs(ohm) switch
-    {
-        >= 10_000 => $"{(ohm / 1000).ToString("0", Numbers)} kΩ",
-        >= 1000 => $"{(ohm / 1000).ToString("0.#", Numbers)} kΩ",
-        >= 10 => $"{ohm.ToString("0", Numbers)} Ω",
-        >= 1 => $"{ohm.ToString("0.#", Numbers)} Ω",
-        _ => $"{ohm.ToString("0.##", Numbers)} Ω",
-    };
-
-    /// <summary>A whole word that may be an id: letters, digits and _ . - inside, a letter, digit or _ at either end.</summary>
-    [GeneratedRegex(@"(?<![A-Za-z0-9_.\-])[A-Za-z0-9_](?:[A-Za-z0-9_.\-]*[A-Za-z0-9_])?(?![A-Za-z0-9_\-]|\.[A-Za-z0-9_])")]
-    private static partial Regex IdInText();
+    public static string Resistance(double ohm) => FeederLocate.Application.Words.PeopleNumbers.Resistance(ohm);
 }

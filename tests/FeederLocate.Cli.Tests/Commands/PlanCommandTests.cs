@@ -64,7 +64,8 @@ public class PlanCommandTests
 
         var table = CliRun.Of("plan", SampleGrids.Path("solid"), Incident("solid-lg-trip-a1.incident.json"), "--return");
         Assert.Equal(0, table.ExitCode);
-        Assert.Contains("Return to normal after the repair of SEC-S108", table.Out, StringComparison.Ordinal);
+        // The section by the operators' name (feeder and bounding devices), its id after it.
+        Assert.Contains("Return to normal after the repair of A1: LB-A1-3 → LB-A1-4, DS-A1-5 (SEC-S108)", table.Out, StringComparison.Ordinal);
         Assert.Contains("CAUTION: Advice only", table.Out, StringComparison.Ordinal);
     }
 
@@ -110,7 +111,21 @@ public class PlanCommandTests
         Assert.Contains("lock and tag every isolation point open, prove dead, earth on both sides, and issue a permit", run.Out, StringComparison.Ordinal);
         Assert.Contains("Local switching rules and licensed practice govern", run.Out, StringComparison.Ordinal);
         Assert.Contains("CB-A1", run.Out, StringComparison.Ordinal);
-        Assert.Contains("proveDead", run.Out, StringComparison.Ordinal);
+        // Actions in plain words in the text; the JSON keeps the format's action names.
+        Assert.Contains("prove dead", run.Out, StringComparison.Ordinal);
+        Assert.DoesNotContain("proveDead", run.Out, StringComparison.Ordinal);
+        Assert.Contains("Isolate A1: LB-A1-3 → LB-A1-4, DS-A1-5 (SEC-S108)", run.Out, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Plan_table_writes_a_test_entry_s_steps_on_lines_of_their_own()
+    {
+        var run = CliRun.Of("plan", SampleGrids.Path("impedance"), Incident("impedance-lg-trip-a2.incident.json"));
+
+        Assert.Equal(0, run.ExitCode);
+        Assert.Contains("Test order:", run.Out, StringComparison.Ordinal);
+        Assert.DoesNotContain("\\u000A", run.Out, StringComparison.Ordinal);
+        Assert.Matches(@"customer minutes interrupted \(IEEE 1366 CMI\)\s+about \d{1,3}(,\d{3})*\s", run.Out);
     }
 
     [Fact]

@@ -135,6 +135,29 @@ public sealed class FuzzFindingTests
     }
 
     [Fact]
+    public void Rank_of_an_incident_whose_grid_field_holds_a_null_character_exits_2_naming_the_field()
+    {
+        // The incident's grid field is a path; U+0000 can be written in JSON but no path may hold it.
+        var text = File.ReadAllText(RepositoryFiles.Path("sample-grid", "incidents", "solid-lg-trip-a1.incident.json"));
+        var node = JsonNode.Parse(text)!;
+        node["grid"] = "\u0000";
+        var path = Path.Combine(Path.GetTempPath(), $"null-grid-{Guid.NewGuid():N}.incident.json");
+        File.WriteAllText(path, node.ToJsonString());
+        try
+        {
+            var run = CliRun.Of("rank", SampleGrids.Path("solid"), path);
+
+            Assert.Equal(2, run.ExitCode);
+            Assert.Equal(string.Empty, run.Out);
+            Assert.Contains("incident file: grid must be a file path", run.Error, StringComparison.Ordinal);
+        }
+        finally
+        {
+            File.Delete(path);
+        }
+    }
+
+    [Fact]
     public void Fault_with_rf_negative_zero_exits_0_or_2_not_1()
     {
         var run = CliRun.Of("fault", SampleGrids.Path("solid"), "--segment", "S101", "--type", "LG", "--rf", "-0");

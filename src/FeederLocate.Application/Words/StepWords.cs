@@ -1,6 +1,6 @@
 using FeederLocate.Core.Switching;
 
-namespace FeederLocate.Application.Switching;
+namespace FeederLocate.Application.Words;
 
 /// <summary>
 /// A step's action in the plain words people read (the page, the board, the handover, the command line's
@@ -16,7 +16,7 @@ public static class StepWords
         StepAction.Patrol => "patrol",
         StepAction.Verify => "verify",
         StepAction.Replace => "replace the fuse",
-        StepAction.Lock => "lock and tag (or block remote control of)",
+        StepAction.Lock => "lock and tag",
         StepAction.ProveDead => "prove dead",
         StepAction.Earth => "earth",
         StepAction.Permit => "issue a permit for",
