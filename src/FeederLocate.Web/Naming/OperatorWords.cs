@@ -14,22 +14,8 @@ public static partial class OperatorWords
 {
     private static readonly CultureInfo Numbers = CultureInfo.InvariantCulture;
 
-    public static string Action(StepAction action) => action switch
-    {
-        StepAction.Open => "open",
-        StepAction.Close => "close",
-        StepAction.Dispatch => "send a crew to",
-        StepAction.Patrol => "patrol",
-        StepAction.Verify => "verify",
-        StepAction.Replace => "replace the fuse",
-        StepAction.Lock => "lock and tag (or block remote control of)",
-        StepAction.ProveDead => "prove dead",
-        StepAction.Earth => "earth",
-        StepAction.Permit => "issue a permit for",
-        StepAction.RemoveEarth => "remove the earths from",
-        StepAction.Unlock => "remove the lock and tag from",
-        _ => action.ToString().ToLowerInvariant(),
-    };
+    /// <summary>A step's action in plain words ("prove dead"): the words the command line and the handover use too.</summary>
+    public static string Action(StepAction action) => FeederLocate.Application.Naming.StepWords.Action(action);
 
     public static string Quantity(string quantity) => quantity switch
     {
@@ -61,6 +47,15 @@ public static partial class OperatorWords
         >= 10 => value.ToString("0.0", Numbers),
         _ => value.ToString("0.00", Numbers),
     };
+
+    /// <summary>
+    /// A figure to three significant digits, grouped, never in exponent form: 12,300; 1,230; 123; 12.3; 1.23; 0.0123.
+    /// </summary>
+    public static string Figure(double value) => FeederLocate.Application.Naming.Figures.Significant(value);
+
+    /// <summary>A share as a percentage with <paramref name="decimals"/> decimals: "4.5 %".</summary>
+    public static string Percent(double share, int decimals = 1) =>
+        (100 * share).ToString(decimals == 0 ? "0" : "0." + new string('0', decimals), Numbers) + " %";
 
     /// <summary>A switch device's kind in words.</summary>
     public static string Kind(SwitchKind kind) => kind switch

@@ -146,6 +146,12 @@ public sealed class HistoryCommandTests : IDisposable
         var text = CliRun.Of("stats", SampleGrids.Path("solid"), "--db", Db);
         Assert.Contains("prior strength km·years", text.Out, StringComparison.Ordinal);
         Assert.Contains("learned relative error", text.Out, StringComparison.Ordinal);
+        // The text names S109 as operators do, by its section's feeder and bounding devices; the id stays beside it and in the JSON.
+        var graph = new FeederLocate.Core.Topology.NetworkGraph(SampleGrids.Grid("solid"));
+        var name = FeederLocate.Application.Naming.GridNames.Segments(graph)[new FeederLocate.Core.Model.SegmentId("S109")];
+        Assert.NotEqual("S109", name);
+        Assert.Contains(name, text.Out, StringComparison.Ordinal);
+        Assert.DoesNotContain("E+", text.Out, StringComparison.Ordinal);
     }
 
     [Fact]
