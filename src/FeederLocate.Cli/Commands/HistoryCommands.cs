@@ -30,9 +30,18 @@ internal static class HistoryCommands
     {
         var db = CliOptions.Database(required: true);
         var json = CliOptions.Json();
-        var command = new Command("history", "List the incidents in the history database") { db, json };
+        var grids = new Option<string[]>("--grid")
+        {
+            Description = "Grid files (feederlocate-grid/1) whose incidents' confirmed segments the text names by feeder and bounding devices (the JSON keeps the ids)",
+            AllowMultipleArgumentsPerToken = false,
+        };
+        var command = new Command("history", "List the incidents in the history database") { db, json, grids };
         command.SetAction(parse =>
         {
+            var names = (parse.GetValue(grids) ?? [])
+                .Select(p => new NetworkGraph(InputFiles.LoadGrid(p, console.Error)))
+                .GroupBy(g => g.Grid.Name, StringComparer.Ordinal)
+                .ToDictionary(g => g.Key, g => GridNames.Segments(g.Last()), StringComparer.Ordinal);
             using var log = HistoryDatabase.OpenExistingLog(parse.GetValue(db)!);
             var incidents = log.List().OrderBy(i => i.Id.Value).ToList();
             if (parse.GetValue(json))
@@ -49,7 +58,7 @@ internal static class HistoryCommands
             foreach (var i in incidents)
             {
                 table.AddRow(i.Id.ToString(), i.GridName, i.ReportedAt.ToString("yyyy-MM-dd HH:mm", CultureInfo.InvariantCulture), i.Status.ToString(),
-                    i.FaultType?.ToString() ?? "unknown", i.ConfirmedSegment?.Value ?? (i.NoFaultFound ? (i.Transient ? "none found (transient)" : "none found") : "–"), i.Cause ?? string.Empty, i.EventCount.ToString(CultureInfo.InvariantCulture));
+                    i.FaultType?.ToString() ?? "unknown", i.ConfirmedSegment is { } confirmed ? Confirmed(confirmed, names.GetValueOrDefault(i.GridName)) : (i.NoFaultFound ? (i.Transient ? "none found (transient)" : "none found") : "–"), i.Cause ?? string.Empty, i.EventCount.ToString(CultureInfo.InvariantCulture));
             }
 
             TableOutput.Write(console.Out, table);
@@ -57,6 +66,10 @@ internal static class HistoryCommands
         });
         return command;
     }
+
+    /// <summary>A confirmed segment in the text: its name and id where its grid was given, else its id.</summary>
+    private static string Confirmed(FeederLocate.Core.Model.SegmentId segment, SegmentNames? names) =>
+        names is not null && names.All.ContainsKey(segment) ? $"{names[segment]} ({segment})" : segment.Value;
 
     private static Command Stats(CliConsole console)
     {
