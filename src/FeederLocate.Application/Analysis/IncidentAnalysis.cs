@@ -48,6 +48,16 @@ public sealed class IncidentAnalysis
     }
 
     /// <summary>
+    /// The switching order for the ranking's most likely section when it is already planned; null when it is not
+    /// (nothing is started: a caller that shows the suspects first plans after).
+    /// </summary>
+    public PlanAttempt? Planned(NetworkGraph graph, IncidentState state)
+    {
+        var (key, _) = KeyOf(graph, state);
+        return _plans.TryGet(key, out var plan) ? plan : null;
+    }
+
+    /// <summary>
     /// The switching order assuming the fault lies in <paramref name="section"/>; the ranking's most likely
     /// section (and the cached plan) when null.
     /// </summary>

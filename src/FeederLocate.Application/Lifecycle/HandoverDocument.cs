@@ -33,6 +33,13 @@ public sealed record HandoverIncident(
     /// <summary>Switches probably in the other position than recorded, most probable first.</summary>
     public IReadOnlyList<HandoverSwitchSuspect> SwitchSuspects { get; init; } = [];
 
+    /// <summary>
+    /// <see cref="NextStep"/> as people read it (plain words, sections by name) for the page and the command line's
+    /// text; the JSON keeps <see cref="NextStep"/> with its ids.
+    /// </summary>
+    [System.Text.Json.Serialization.JsonIgnore]
+    public string? NextStepInWords { get; init; }
+
     public static HandoverIncident From(HandoverEntry entry)
     {
         ArgumentNullException.ThrowIfNull(entry);
@@ -53,6 +60,7 @@ public sealed record HandoverIncident(
             entry.AnalysisProblem)
         {
             SwitchSuspects = [.. entry.SwitchSuspects.Select(s => new HandoverSwitchSuspect(s.Device.Value, IncidentFormat.Name(s.State), s.Probability))],
+            NextStepInWords = line.CurrentStepInWords,
         };
     }
 }

@@ -1,6 +1,5 @@
 using FeederLocate.Application.Analysis;
 using FeederLocate.Application.Switching;
-using FeederLocate.Application.Words;
 using FeederLocate.Core.Switching;
 using FeederLocate.Core.Topology;
 using FeederLocate.Storage.Incidents;
@@ -14,6 +13,12 @@ namespace FeederLocate.Application.Lifecycle;
 /// <param name="Interruption">Customer minutes interrupted from the steps' actual times, and the plan's estimates for the rest.</param>
 public sealed record IncidentLine(IncidentState State, TimeSpan Age, int? CustomersOff, string? CurrentStep, CustomerInterruption? Interruption = null)
 {
+    /// <summary>
+    /// <see cref="CurrentStep"/> as people read it: the action in plain words and segments by their sections' names
+    /// (<see cref="Naming.StepWords"/>); the ids stay in <see cref="CurrentStep"/>, for the JSON and as a tooltip.
+    /// </summary>
+    public string? CurrentStepInWords { get; init; }
+
     public IncidentStage Stage => State.Stage;
 }
 
@@ -30,27 +35,33 @@ public static class IncidentOverview
         var plan = (await analysis.PlanAsync(graph, state).ConfigureAwait(false)).Plan;
         var back = state.HasOutcome ? (await analysis.ReturnAsync(graph, state).ConfigureAwait(false)).Plan : null;
         string? current = null;
+        string? inWords = null;
         if (state.Status == IncidentStatus.Open)
         {
             if (back is not null && ReturnSwitching.NotYet(state) is null && ReturnSwitching.Remaining(state, back) is { Count: > 0 } left)
             {
                 current = "return " + Describe(left[0]);
+                inWords = "return " + Naming.StepWords.Describe(left[0], graph);
             }
             else if (plan is not null && plan.Steps.FirstOrDefault(s => !state.CompletedSteps.Any(d => d.Step.Order == s.Order && d.Step.Action == CheckedSwitching.ActionName(s.Action))) is { } step)
             {
                 current = Describe(step);
+                inWords = Naming.StepWords.Describe(step, graph);
             }
         }
 
         return new IncidentLine(state, age < TimeSpan.Zero ? TimeSpan.Zero : age, CustomersOff(graph, state), current,
-            CustomerInterruption.Of(graph, state, plan, back, now));
+            CustomerInterruption.Of(graph, state, plan, back, now))
+        {
+            CurrentStepInWords = inWords,
+        };
     }
 
-    /// <summary>A step as the board shows it: its number, action in plain words and device (or segments).</summary>
+    /// <summary>A step by its number, action and device (or segments) in the plan document's words and ids, as the JSON gives it.</summary>
     public static string Describe(SwitchingStep step)
     {
         ArgumentNullException.ThrowIfNull(step);
-        return $"{step.Order}. {StepWords.Action(step.Action)} {step.Device?.Value ?? string.Join(" ", step.Segments)}".TrimEnd();
+        return $"{step.Order}. {CheckedSwitching.ActionName(step.Action)} {step.Device?.Value ?? string.Join(" ", step.Segments)}".TrimEnd();
     }
 
     /// <summary>Customers on nodes without supply at the incident's switch positions of now.</summary>

@@ -1,4 +1,3 @@
-using System.Runtime.CompilerServices;
 using FeederLocate.Application.Analysis;
 using FeederLocate.Application.Incidents;
 using FeederLocate.Application.Switching;
@@ -42,8 +41,6 @@ public sealed record HandoverEntry(
 /// </summary>
 public sealed class ShiftHandover(IncidentLog log, IncidentAnalysis analysis, TimeProvider clock)
 {
-    private static readonly ConditionalWeakTable<NetworkGraph, SectionNames> Names = [];
-
     /// <summary>
     /// The open incidents whose grid <paramref name="graphOf"/> finds (by grid name) and <paramref name="visible"/>
     /// allows; an incident of a grid not loaded is listed by <see cref="IncidentsWithoutGrid"/> instead.
@@ -106,7 +103,7 @@ public sealed class ShiftHandover(IncidentLog log, IncidentAnalysis analysis, Ti
             return [];
         }
 
-        var names = Names.GetValue(graph, g => SectionNames.Build(g, FeederMap.Build(g)));
+        var names = Naming.GridNames.Sections(graph);
         return [.. graph.Sections.All
             .Where(s => s.Nodes.Any(n => normal.IsEnergised(n)) && s.Nodes.All(n => !network.IsEnergised(n) || !normal.IsEnergised(n)))
             .Select(s => new SectionOff(s.Id, names[s.Id], s.Nodes.Sum(n => grid.Node(n).Customers)))

@@ -45,7 +45,7 @@ internal static class HandoverCommand
             output.WriteLine($"Incident {i.Id} on {i.Grid}: {i.Stage}, {Age(i.AgeMinutes)} since the fault");
             output.WriteLine($"  still off: {(i.CustomersOff is { } off ? off.ToString("#,0", CultureInfo.InvariantCulture) : "not known (not radial)")} customers"
                 + (i.SectionsOff.Count == 0 ? string.Empty : " in " + string.Join("; ", i.SectionsOff.Select(s => s.Name))));
-            output.WriteLine($"  next step: {i.NextStep ?? "none"}");
+            output.WriteLine($"  next step: {i.NextStepInWords ?? i.NextStep ?? "none"}");
             output.WriteLine($"  customer minutes interrupted: {i.CustomerMinutesInterrupted.ToString("#,0", CultureInfo.InvariantCulture)} ({i.CustomerMinutesBasis})");
             output.WriteLine($"  unread indicators: {List(i.UnreadIndicators)}");
             output.WriteLine($"  distrusted readings: {List(i.DistrustedIndicators)}");

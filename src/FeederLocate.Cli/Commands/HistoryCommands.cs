@@ -1,5 +1,6 @@
 using System.CommandLine;
 using System.Globalization;
+using FeederLocate.Application.Naming;
 using FeederLocate.Cli.Input;
 using FeederLocate.Cli.Output;
 using FeederLocate.Application.History;
@@ -29,9 +30,18 @@ internal static class HistoryCommands
     {
         var db = CliOptions.Database(required: true);
         var json = CliOptions.Json();
-        var command = new Command("history", "List the incidents in the history database") { db, json };
+        var grids = new Option<string[]>("--grid")
+        {
+            Description = "Grid files (feederlocate-grid/1) whose incidents' confirmed segments the text names by feeder and bounding devices (the JSON keeps the ids)",
+            AllowMultipleArgumentsPerToken = false,
+        };
+        var command = new Command("history", "List the incidents in the history database") { db, json, grids };
         command.SetAction(parse =>
         {
+            var names = (parse.GetValue(grids) ?? [])
+                .Select(p => new NetworkGraph(InputFiles.LoadGrid(p, console.Error)))
+                .GroupBy(g => g.Grid.Name, StringComparer.Ordinal)
+                .ToDictionary(g => g.Key, g => GridNames.Segments(g.Last()), StringComparer.Ordinal);
             using var log = HistoryDatabase.OpenExistingLog(parse.GetValue(db)!);
             var incidents = log.List().OrderBy(i => i.Id.Value).ToList();
             if (parse.GetValue(json))
@@ -48,7 +58,7 @@ internal static class HistoryCommands
             foreach (var i in incidents)
             {
                 table.AddRow(i.Id.ToString(), i.GridName, i.ReportedAt.ToString("yyyy-MM-dd HH:mm", CultureInfo.InvariantCulture), i.Status.ToString(),
-                    i.FaultType?.ToString() ?? "unknown", i.ConfirmedSegment?.Value ?? (i.NoFaultFound ? (i.Transient ? "none found (transient)" : "none found") : "–"), i.Cause ?? string.Empty, i.EventCount.ToString(CultureInfo.InvariantCulture));
+                    i.FaultType?.ToString() ?? "unknown", i.ConfirmedSegment is { } confirmed ? Confirmed(confirmed, names.GetValueOrDefault(i.GridName)) : (i.NoFaultFound ? (i.Transient ? "none found (transient)" : "none found") : "–"), i.Cause ?? string.Empty, i.EventCount.ToString(CultureInfo.InvariantCulture));
             }
 
             TableOutput.Write(console.Out, table);
@@ -56,6 +66,10 @@ internal static class HistoryCommands
         });
         return command;
     }
+
+    /// <summary>A confirmed segment in the text: its name and id where its grid was given, else its id.</summary>
+    private static string Confirmed(FeederLocate.Core.Model.SegmentId segment, SegmentNames? names) =>
+        names is not null && names.All.ContainsKey(segment) ? $"{names[segment]} ({segment})" : segment.Value;
 
     private static Command Stats(CliConsole console)
     {
@@ -117,14 +131,15 @@ internal static class HistoryCommands
             }
 
             var invariant = CultureInfo.InvariantCulture;
+            var segmentNames = GridNames.Segments(graph);
             console.Out.WriteLine($"{model.Name}: {outcomes.Count} recorded outcomes over {learned.FaultRates.ObservationYears.ToString("F2", invariant)} years");
             var types = TableOutput.Table("line type", "stated faults/100 km·year", "faults", "km·years", "type rate faults/100 km·year", "prior strength km·years", "chosen");
             foreach (var t in learned.FaultRates.LineTypes)
             {
                 var c = t.Choice!;
                 types.AddRow(t.LineType.Value, model.LineTypes.Single(l => l.Id == t.LineType).EffectiveFaultsPer100KmYear.ToString("F2", invariant),
-                    t.Faults.ToString(invariant), t.ExposureKmYears.ToString("F0", invariant), c.MeanPer100KmYear.ToString("F2", invariant),
-                    c.StrengthKmYears.ToString("G3", invariant), Chosen(c.ChosenByData, c.AtBound, c.LowerKmYears, c.UpperKmYears));
+                    t.Faults.ToString(invariant), t.ExposureKmYears.ToString("#,0", invariant), c.MeanPer100KmYear.ToString("F2", invariant),
+                    Figures.Significant(c.StrengthKmYears), Chosen(c.ChosenByData, c.AtBound, c.LowerKmYears, c.UpperKmYears));
             }
 
             TableOutput.Write(console.Out, types);
@@ -135,7 +150,7 @@ internal static class HistoryCommands
                 {
                     if (c is not null)
                     {
-                        kinds.AddRow(k.Kind.ToString(), name, c.Mean.ToString("P1", invariant), c.StrengthTrials.ToString("G3", invariant),
+                        kinds.AddRow(k.Kind.ToString(), name, c.Mean.ToString("P1", invariant), Figures.Significant(c.StrengthTrials),
                             Chosen(c.ChosenByData, c.AtBound, c.LowerTrials, c.UpperTrials));
                     }
                 }
@@ -144,12 +159,13 @@ internal static class HistoryCommands
             TableOutput.Write(console.Out, kinds);
             foreach (var u in unusable)
             {
-                console.Out.WriteLine($"not learned from: {u}");
+                console.Out.WriteLine($"not learned from: incident {u.Incident}, outcome on {segmentNames[u.ConfirmedSegment]} ({u.ConfirmedSegment}): {u.Problem}");
             }
-            var seg = TableOutput.Table("segment", "faults", "learned faults/100 km·year", "expected faults/year");
+
+            var seg = TableOutput.Table("segment", "id", "faults", "learned faults/100 km·year", "expected faults/year");
             foreach (var s in segments.Take(15))
             {
-                seg.AddRow(s.Segment.Value, s.Faults.ToString(invariant), s.FaultsPer100KmYear.ToString("F2", invariant), s.ExpectedFaultsPerYear.ToString("F4", invariant));
+                seg.AddRow(segmentNames[s.Segment], s.Segment.Value, s.Faults.ToString(invariant), s.FaultsPer100KmYear.ToString("F2", invariant), s.ExpectedFaultsPerYear.ToString("F4", invariant));
             }
 
             TableOutput.Write(console.Out, seg);
@@ -168,7 +184,7 @@ internal static class HistoryCommands
 
             foreach (var s in learned.Skipped)
             {
-                console.Out.WriteLine($"skipped the outcome reported {s.ReportedAt.ToString("yyyy-MM-dd HH:mm", invariant)} on {s.Segment}: {s.Reason}");
+                console.Out.WriteLine($"skipped the outcome reported {s.ReportedAt.ToString("yyyy-MM-dd HH:mm", invariant)} on {segmentNames[s.Segment]} ({s.Segment}): {s.Reason}");
             }
             return CliApp.Success;
         });
@@ -189,8 +205,8 @@ internal static class HistoryCommands
 
     private static string Chosen(bool byData, bool atBound, double lower, double upper) =>
         !byData ? "configured (no history)"
-        : atBound ? $"by data, on a bound of {lower.ToString("G3", CultureInfo.InvariantCulture)}–{upper.ToString("G3", CultureInfo.InvariantCulture)}"
-        : $"by data, within {lower.ToString("G3", CultureInfo.InvariantCulture)}–{upper.ToString("G3", CultureInfo.InvariantCulture)}";
+        : atBound ? $"by data, on a bound of {Figures.Significant(lower)}–{Figures.Significant(upper)}"
+        : $"by data, within {Figures.Significant(lower)}–{Figures.Significant(upper)}";
 
     private static Command Export(CliConsole console)
     {

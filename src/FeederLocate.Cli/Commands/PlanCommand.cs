@@ -4,7 +4,7 @@ using FeederLocate.Cli.Input;
 using FeederLocate.Cli.Output;
 using FeederLocate.Core.Formats.Documents;
 using FeederLocate.Application.Analysis;
-using FeederLocate.Application.Words;
+using FeederLocate.Application.Naming;
 using FeederLocate.Core.Model;
 using FeederLocate.Core.Ranking;
 using FeederLocate.Core.Switching;
@@ -89,7 +89,7 @@ internal static class PlanCommand
             throw new BadInputException($"error: {planned.Problem}");
         }
 
-        var names = SectionNames.Build(graph, FeederMap.Build(graph));
+        var names = GridNames.Sections(graph);
         if (returnToNormal)
         {
             var attempt = EvidenceAnalysis.Return(graph, incident, plan, options);
@@ -141,9 +141,9 @@ internal static class PlanCommand
         var steps = StepTable(d.Steps, s => s.Device ?? (s.Segments is { } segs ? string.Join(" ", segs) : string.Empty), names);
         TableOutput.Write(output, steps);
         var summary = TableOutput.Table("estimate", "value");
-        summary.AddRow("restored customers", PeopleNumbers.Count(d.RestoredCustomers));
-        summary.AddRow("unserved customers", PeopleNumbers.Count(d.UnservedCustomers));
-        summary.AddRow("customer minutes interrupted (IEEE 1366 CMI)", $"about {PeopleNumbers.Count(d.CustomerMinutesInterrupted)}");
+        summary.AddRow("restored customers", Figures.Count(d.RestoredCustomers));
+        summary.AddRow("unserved customers", Figures.Count(d.UnservedCustomers));
+        summary.AddRow("customer minutes interrupted (IEEE 1366 CMI)", $"about {Figures.Count(d.CustomerMinutesInterrupted)}");
         summary.AddRow("lowest voltage, final state", $"{d.FinalState.MinimumVoltagePu:F3} pu at {d.FinalState.MinimumVoltageNode} (limit {d.VoltageLimitPu:F2} pu)");
         summary.AddRow("highest loading, final state", $"{d.FinalState.MaximumLoadingPercent:F0} % on {d.FinalState.MaximumLoadingSegment}");
         summary.AddRow("cold-load factor", d.ColdLoadBasis ?? d.ColdLoadFactor.ToString(CultureInfo.InvariantCulture));
@@ -235,8 +235,8 @@ internal static class PlanCommand
 
         TableOutput.Write(output, steps);
         var summary = TableOutput.Table("estimate", "value");
-        summary.AddRow("most customers without supply at once", PeopleNumbers.Count(d.MostCustomersInterrupted));
-        summary.AddRow("customer minutes interrupted (IEEE 1366 CMI)", $"about {PeopleNumbers.Count(d.CustomerMinutesInterrupted)}");
+        summary.AddRow("most customers without supply at once", Figures.Count(d.MostCustomersInterrupted));
+        summary.AddRow("customer minutes interrupted (IEEE 1366 CMI)", $"about {Figures.Count(d.CustomerMinutesInterrupted)}");
         TableOutput.Write(output, summary);
         output.WriteLine("Approximations:");
         foreach (var a in d.Approximations)

@@ -43,7 +43,7 @@ internal static class RankCommand
             return CliApp.Success;
         }
 
-        Write(console.Out, document, Core.Topology.SectionNames.Build(graph, Core.Topology.FeederMap.Build(graph)));
+        Write(console.Out, document, Application.Naming.GridNames.Sections(graph));
         return CliApp.Success;
     }
 
@@ -99,7 +99,7 @@ internal static class RankCommand
         TableOutput.Write(output, sections);
         foreach (var suspect in d.Suspects)
         {
-            output.WriteLine($"segment {suspect.Segment}: {Percent(suspect.Probability)}, best fit {suspect.FaultType} with Rf {Application.Words.PeopleNumbers.Resistance(suspect.FaultResistanceOhm)}"
+            output.WriteLine($"segment {suspect.Segment}: {Percent(suspect.Probability)}, best fit {suspect.FaultType} with Rf {Application.Naming.Figures.Resistance(suspect.FaultResistanceOhm)}"
                 + (suspect.DistanceWindowKm is { } w ? $", {w.FromKm:F1}–{w.ToKm:F1} km from the substation" : string.Empty));
             foreach (var c in suspect.Agreeing)
             {

@@ -13,7 +13,8 @@ public static class OperatorWords
 {
     private static readonly CultureInfo Numbers = CultureInfo.InvariantCulture;
 
-    public static string Action(StepAction action) => FeederLocate.Application.Words.StepWords.Action(action);
+    /// <summary>A step's action in plain words ("prove dead"): the words the command line and the handover use too.</summary>
+    public static string Action(StepAction action) => FeederLocate.Application.Naming.StepWords.Action(action);
 
     public static string Quantity(string quantity) => quantity switch
     {
@@ -33,7 +34,7 @@ public static class OperatorWords
     };
 
     /// <summary>A whole count with thousands grouped: 12,345.</summary>
-    public static string Count(double value) => FeederLocate.Application.Words.PeopleNumbers.Count(value);
+    public static string Count(double value) => FeederLocate.Application.Naming.Figures.Count(value);
 
     /// <summary>"none", "under 1" or the rounded count, for an estimate such as customer minutes.</summary>
     public static string Estimate(double value) => value <= 0 ? "none" : value < 1 ? "under 1" : $"about {Count(value)}";
@@ -45,6 +46,15 @@ public static class OperatorWords
         >= 10 => value.ToString("0.0", Numbers),
         _ => value.ToString("0.00", Numbers),
     };
+
+    /// <summary>
+    /// A figure to three significant digits, grouped, never in exponent form: 12,300; 1,230; 123; 12.3; 1.23; 0.0123.
+    /// </summary>
+    public static string Figure(double value) => FeederLocate.Application.Naming.Figures.Significant(value);
+
+    /// <summary>A share as a percentage with <paramref name="decimals"/> decimals: "4.5 %".</summary>
+    public static string Percent(double share, int decimals = 1) =>
+        (100 * share).ToString(decimals == 0 ? "0" : "0." + new string('0', decimals), Numbers) + " %";
 
     /// <summary>A switch device's kind in words.</summary>
     public static string Kind(SwitchKind kind) => kind switch
@@ -72,5 +82,5 @@ public static class OperatorWords
     public static string Section(SectionId id, SectionNames? names) => names?[id] ?? id.Value;
 
     /// <summary>A fault resistance for people: "0.5 Ω", "12 Ω", "350 Ω", "1.2 kΩ".</summary>
-    public static string Resistance(double ohm) => FeederLocate.Application.Words.PeopleNumbers.Resistance(ohm);
+    public static string Resistance(double ohm) => FeederLocate.Application.Naming.Figures.Resistance(ohm);
 }

@@ -1,5 +1,6 @@
 using System.Collections.Concurrent;
 using FeederLocate.Application.Grids;
+using FeederLocate.Application.Naming;
 using FeederLocate.Core.Model;
 using FeederLocate.Core.Topology;
 using FeederLocate.Storage.Events;
@@ -25,11 +26,14 @@ public sealed record LoadedGrid(string Key, Grid Grid, NetworkGraph Graph, OneLi
     /// <summary>Why the one-line view could not be drawn, or null when it was.</summary>
     public string? DrawingProblem { get; init; }
 
-    /// <summary>Operators' names of the sections: feeder and bounding devices.</summary>
-    public SectionNames SectionNames { get; } = SectionNames.Build(Graph, FeederMap.Build(Graph));
+    /// <summary>Operators' names of the sections: feeder and bounding devices (the same the command line and the handover use).</summary>
+    public SectionNames SectionNames { get; } = GridNames.Sections(Graph);
 
     /// <summary>Operators' names of the segments: their section, and their place in it.</summary>
-    public SegmentNames SegmentNames => _segmentNames ??= SegmentNames.Build(Graph, FeederMap.Build(Graph), SectionNames);
+    public SegmentNames SegmentNames => _segmentNames ??= GridNames.Segments(Graph);
+
+    /// <summary>The devices the incident page's forms offer, the same for every incident of this grid.</summary>
+    public GridDeviceLists Devices { get; } = GridDeviceLists.Of(Grid);
 
     /// <summary>The section each segment is in.</summary>
     public IReadOnlyDictionary<SegmentId, SectionId> SectionOfSegment { get; } = Drawing.Segments.ToDictionary(s => s.Id, s => s.Section);

@@ -4,7 +4,6 @@ using FeederLocate.Application.Lifecycle;
 using FeederLocate.Application.Tests.Support;
 using FeederLocate.Core.Evidence;
 using FeederLocate.Core.Model;
-using FeederLocate.Core.Switching;
 using FeederLocate.Core.Topology;
 using FeederLocate.Storage.Events;
 
@@ -18,18 +17,6 @@ public sealed class ShiftHandoverTests : IDisposable
     public void Dispose() => _test.Dispose();
 
     private ShiftHandover Handover() => new(_test.Log, new IncidentAnalysis(new GridLearning(_test.Log), new CoreFaultRanker()), TestClock.Manual());
-
-    [Theory]
-    [InlineData(StepAction.Dispatch, "LB-A1-3", "2. send a crew to LB-A1-3")]
-    [InlineData(StepAction.ProveDead, "LB-A1-3", "2. prove dead LB-A1-3")]
-    [InlineData(StepAction.RemoveEarth, "LB-A1-3", "2. remove the earths from LB-A1-3")]
-    [InlineData(StepAction.Open, "LB-A1-3", "2. open LB-A1-3")]
-    public void The_next_step_is_told_in_plain_words_not_the_format_s_action_names(StepAction action, string device, string expected)
-    {
-        var step = new SwitchingStep(2, action, new SwitchId(device), null, [], TimeSpan.Zero, "reason");
-
-        Assert.Equal(expected, IncidentOverview.Describe(step));
-    }
 
     [Fact]
     public async Task Each_open_incident_is_handed_over_with_the_sections_off_by_name_the_next_step_and_the_open_questions()

@@ -23,6 +23,22 @@ public sealed class HistoryCommandTests : IDisposable
     }
 
     [Fact]
+    public void History_names_the_confirmed_segment_by_its_section_when_its_grid_is_given()
+    {
+        Assert.Equal(0, CliRun.Of("record", SampleGrids.Path("solid"), Incident("solid-lg-trip-a1.incident.json"), "--segment", "S109", "--db", Db).ExitCode);
+        var name = FeederLocate.Application.Naming.GridNames.Segments(new FeederLocate.Core.Topology.NetworkGraph(SampleGrids.Grid("solid")))[new FeederLocate.Core.Model.SegmentId("S109")];
+
+        var named = CliRun.Of("history", "--db", Db, "--grid", SampleGrids.Path("solid"));
+        var plain = CliRun.Of("history", "--db", Db);
+        var json = CliRun.Of("history", "--db", Db, "--grid", SampleGrids.Path("solid"), "--json");
+
+        Assert.Equal(0, named.ExitCode);
+        Assert.Contains($"{name} (S109)", named.Out, StringComparison.Ordinal);
+        Assert.DoesNotContain(name, plain.Out, StringComparison.Ordinal);
+        Assert.Equal("S109", json.Json().EnumerateArray().Single().GetProperty("confirmedSegment").GetString());
+    }
+
+    [Fact]
     public void Record_names_the_account_given_with_by_only_with_one_of_its_tokens()
     {
         string anaToken, veraToken;
@@ -146,6 +162,12 @@ public sealed class HistoryCommandTests : IDisposable
         var text = CliRun.Of("stats", SampleGrids.Path("solid"), "--db", Db);
         Assert.Contains("prior strength km·years", text.Out, StringComparison.Ordinal);
         Assert.Contains("learned relative error", text.Out, StringComparison.Ordinal);
+        // The text names S109 as operators do, by its section's feeder and bounding devices; the id stays beside it and in the JSON.
+        var graph = new FeederLocate.Core.Topology.NetworkGraph(SampleGrids.Grid("solid"));
+        var name = FeederLocate.Application.Naming.GridNames.Segments(graph)[new FeederLocate.Core.Model.SegmentId("S109")];
+        Assert.NotEqual("S109", name);
+        Assert.Contains(name, text.Out, StringComparison.Ordinal);
+        Assert.DoesNotContain("E+", text.Out, StringComparison.Ordinal);
     }
 
     [Fact]

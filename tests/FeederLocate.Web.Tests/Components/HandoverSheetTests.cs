@@ -30,6 +30,35 @@ public class HandoverSheetTests : ComponentTest
     }
 
     [Fact]
+    public void The_next_step_is_in_plain_words_with_its_ids_as_the_tooltip()
+    {
+        var incident = new HandoverIncident(9, "Marrowdell 20 kV", "isolated", 30, 120, [], "5. proveDead S104 S105", 0, "no interruption",
+            [], [], [], null)
+        {
+            NextStepInWords = "5. prove dead section A1: LB-A1-3 → LB-A1-4",
+        };
+        var cut = Render<HandoverSheet>(p => p.Add(c => c.Document, new HandoverDocument(At, [incident], [])));
+
+        var next = cut.Find("[data-testid=handover-next-9]");
+        Assert.Equal("5. prove dead section A1: LB-A1-3 → LB-A1-4", next.TextContent);
+        Assert.Equal("5. proveDead S104 S105", next.GetAttribute("title"));
+    }
+
+    [Fact]
+    public void The_json_keeps_the_next_step_with_its_ids_and_leaves_the_words_to_the_page()
+    {
+        var incident = new HandoverIncident(9, "g", "isolated", 30, 120, [], "5. proveDead S104 S105", 0, "none", [], [], [], null)
+        {
+            NextStepInWords = "5. prove dead section A1: LB-A1-3 → LB-A1-4",
+        };
+
+        var json = System.Text.Json.JsonSerializer.Serialize(incident);
+
+        Assert.Contains("5. proveDead S104 S105", json, StringComparison.Ordinal);
+        Assert.DoesNotContain("prove dead", json, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void A_switch_whose_recorded_position_is_in_doubt_is_an_open_question()
     {
         var incident = new HandoverIncident(8, "Marrowdell 20 kV", "reported", 12, 0, [], null, 0, "no interruption",

@@ -51,6 +51,33 @@ public sealed class WorkspaceAnalysisTests : BunitContext
     }
 
     [Fact]
+    public void The_suspects_are_shown_before_the_switching_order_is_planned_and_the_entry_forms_follow_them()
+    {
+        var id = _board.Open(_grids.Default!, new SwitchId("CB-A1"), FaultType.LG, new DateTimeOffset(2026, 11, 30, 6, 12, 0, TimeSpan.Zero), new Actor("ana", "operator"));
+        _ranker.Hold();
+        var cut = Render<IncidentWorkspace>(p => p.Add(c => c.Id, id.Value));
+        var shown = new System.Collections.Concurrent.ConcurrentQueue<string>();
+        cut.OnMarkupUpdated += (_, _) => shown.Enqueue(cut.Markup);
+        Assert.NotEmpty(cut.FindAll("[data-testid=forms-busy]"));
+
+        _ranker.Release();
+
+        cut.WaitForAssertion(() => Assert.NotEmpty(cut.FindAll("[data-testid=next-step]")), TimeSpan.FromMinutes(1));
+        var markups = shown.ToList();
+        // First the ranked suspects with the order still being planned and the entry forms not yet drawn...
+        var suspects = markups.FindIndex(m => m.Contains("data-section=", StringComparison.Ordinal));
+        Assert.True(suspects >= 0);
+        Assert.Contains("data-testid=\"plan-busy\"", markups[suspects], StringComparison.Ordinal);
+        Assert.Contains("planning the switching order…", markups[suspects], StringComparison.Ordinal);
+        Assert.Contains("data-testid=\"forms-busy\"", markups[suspects], StringComparison.Ordinal);
+        // ...then the entry forms, then the switching order.
+        var forms = markups.FindIndex(m => m.Contains("data-testid=\"indicator-entry\"", StringComparison.Ordinal));
+        var order = markups.FindIndex(m => m.Contains("data-testid=\"next-step\"", StringComparison.Ordinal));
+        Assert.InRange(forms, suspects + 1, order - 1);
+        Assert.Empty(cut.FindAll("[data-testid=working]"));
+    }
+
+    [Fact]
     public void A_switch_click_records_nothing_until_the_operator_confirms_the_device_and_position()
     {
         var id = _board.Open(_grids.Default!, new SwitchId("CB-A1"), FaultType.LG, new DateTimeOffset(2026, 11, 30, 6, 12, 0, TimeSpan.Zero), new Actor("ana", "operator"));

@@ -61,6 +61,18 @@ public partial class OperatorWordsTests
     public void A_measured_value_has_sensible_digits(double value, string shown) => Assert.Equal(shown, OperatorWords.Measured(value));
 
     [Theory]
+    [InlineData(1234.5, "1,230")]
+    [InlineData(0.0456, "0.0456")]
+    [InlineData(12.34, "12.3")]
+    public void A_prior_strength_has_three_significant_digits_and_no_exponent(double value, string shown) => Assert.Equal(shown, OperatorWords.Figure(value));
+
+    [Theory]
+    [InlineData(0.045, 1, "4.5 %")]
+    [InlineData(0.2, 0, "20 %")]
+    public void A_share_is_a_percentage_with_a_space_before_the_sign(double share, int decimals, string shown) =>
+        Assert.Equal(shown, OperatorWords.Percent(share, decimals));
+
+    [Theory]
     [InlineData(0.25, "0.25 Ω")]
     [InlineData(4.55, "4.6 Ω")]
     [InlineData(349.6, "350 Ω")]
