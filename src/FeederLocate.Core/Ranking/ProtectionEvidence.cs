@@ -82,7 +82,11 @@ internal sealed class ProtectionEvidence
     /// <summary>True where the incident gives no protection evidence the ranking uses.</summary>
     public bool IsEmpty { get; }
 
-    /// <summary>Log-factor of the evidence that depends on where the fault is and its type, not on its resistance.</summary>
+    /// <summary>
+    /// Log-factor of the evidence that depends on where the fault is and its type, not on its resistance.
+    /// The parts that do not depend on the type, and the intact fuses with the fault beyond them, are worked
+    /// out once per segment (the last segment asked for is kept) and reused for each type and resistance.
+    /// </summary>
     public double TypeLog(int segment, FaultType type, int substation)
     {
         if (IsEmpty)
@@ -90,38 +94,68 @@ internal sealed class ProtectionEvidence
             return 0;
         }
 
-        var log = 0.0;
+        if (_cached.Segment != segment || _cached.Substation != substation)
+        {
+            _cached = Prepare(segment, substation);
+        }
+
+        var earth = type is FaultType.LG or FaultType.LLG;
+        var log = _cached.PlaceLog + (earth ? _cached.EarthDirectionLog : _cached.OtherDirectionLog);
+        return _reactances.Count > 0 && !(type == FaultType.LG && _lowCurrentEarthing[substation]) ? log + _cached.ReactanceLog : log;
+    }
+
+    /// <summary>The type-independent factors of one segment and its intact fuses with the fault beyond them.</summary>
+    private sealed record SegmentTerms(int Segment, int Substation, double PlaceLog, double EarthDirectionLog, double OtherDirectionLog, double ReactanceLog, double?[] IntactBeyondRatingsA);
+
+    private SegmentTerms _cached = new(-1, -1, 0, 0, 0, 0, []);
+
+    private SegmentTerms Prepare(int segment, int substation)
+    {
+        var place = 0.0;
         foreach (var point in _blown)
         {
-            log += _model.IsFaultBeyond(point, segment) ? 0 : Math.Log(_options.FuseErrorProbability);
+            place += _model.IsFaultBeyond(point, segment) ? 0 : Math.Log(_options.FuseErrorProbability);
         }
 
         if (_reclosing is { } reclosing && !_model.IsFaultBeyond(reclosing, segment))
         {
-            log += Math.Log(_options.OutsideTrippedZoneFactor);
+            place += Math.Log(_options.OutsideTrippedZoneFactor);
         }
 
-        var earth = type is FaultType.LG or FaultType.LLG;
+        var (earthLog, otherLog) = (0.0, 0.0);
         foreach (var (point, direction) in _directions)
         {
-            log += Math.Log(DirectionProbability(direction, Expected(point, segment, earth, substation)));
+            earthLog += Math.Log(DirectionProbability(direction, Expected(point, segment, earth: true, substation)));
+            otherLog += Math.Log(DirectionProbability(direction, Expected(point, segment, earth: false, substation)));
         }
 
-        if (_reactances.Count > 0 && !(type == FaultType.LG && _lowCurrentEarthing[substation]))
+        var reactanceLog = 0.0;
+        foreach (var reading in _reactances)
         {
-            foreach (var reading in _reactances)
-            {
-                log += ReactanceLog(reading, segment);
-            }
+            reactanceLog += ReactanceLog(reading, segment);
         }
 
-        return log;
+        var intact = _intact.Where(f => _model.IsFaultBeyond(f.Point, segment)).Select(f => f.RatedCurrentA).ToArray();
+        return new SegmentTerms(segment, substation, place, earthLog, otherLog, reactanceLog, intact);
     }
 
     /// <summary>Log-factor of the intact fuses for a solved fault: the fault is not beyond one its current would have blown.</summary>
     public double FaultLog(int segment, in FaultSolution fault, double faultResistanceOhm)
     {
         var log = 0.0;
+        if (_cached.Segment == segment && _cached.Substation == fault.Substation)
+        {
+            foreach (var rating in _cached.IntactBeyondRatingsA)
+            {
+                if (WouldBlow(rating, fault, faultResistanceOhm))
+                {
+                    log += Math.Log(_options.FuseErrorProbability);
+                }
+            }
+
+            return log;
+        }
+
         foreach (var (point, rating) in _intact)
         {
             if (_model.IsFaultBeyond(point, segment) && WouldBlow(rating, fault, faultResistanceOhm))
