@@ -114,7 +114,7 @@ public sealed class FaultResponseModel
         var corner = origin + (fromSupplyMin * alongSegment) + (resistanceMinOhm * perOhm);
         var u = (fromSupplyMax - fromSupplyMin) * alongSegment;
         var v = (resistanceMaxOhm - resistanceMinOhm) * perOhm;
-        Complex[] corners = [corner, corner + u, corner + u + v, corner + v];
+        Span<Complex> corners = [corner, corner + u, corner + u + v, corner + v];
         var largest = 0.0;
         var nearest = double.PositiveInfinity;
         for (var k = 0; k < 4; k++)

@@ -25,6 +25,7 @@ internal sealed class ProtectionEvidence
     private readonly List<(MeasuringPoint Point, int FarNode, double ReactanceOhm, double UniformDensity)> _reactances = [];
     private readonly MeasuringPoint? _reclosing;
     private readonly double _maximumTrippingEarthFaultOhm;
+    private readonly double[,] _directionLog;
 
     public ProtectionEvidence(FaultResponseModel model, Incident incident, RankingOptions options)
     {
@@ -33,6 +34,15 @@ internal sealed class ProtectionEvidence
         var grid = model.Grid;
         _lowCurrentEarthing = [.. grid.Substations.Select(s => s.Grounding.Scheme is GroundingScheme.Isolated or GroundingScheme.Resonant)];
         _maximumTrippingEarthFaultOhm = options.LowResistanceEarthFaultOhms.IsDefaultOrEmpty ? 0 : options.LowResistanceEarthFaultOhms.Max();
+        var directions = Enum.GetValues<EarthFaultDirection>();
+        _directionLog = new double[directions.Length, directions.Length];
+        foreach (var reported in directions)
+        {
+            foreach (var expected in directions)
+            {
+                _directionLog[(int)reported, (int)expected] = Math.Log(DirectionProbability(reported, expected));
+            }
+        }
         foreach (var (id, condition) in incident.Fuses)
         {
             var index = grid.SwitchIndex(id);
@@ -125,8 +135,8 @@ internal sealed class ProtectionEvidence
         var (earthLog, otherLog) = (0.0, 0.0);
         foreach (var (point, direction) in _directions)
         {
-            earthLog += Math.Log(DirectionProbability(direction, Expected(point, segment, earth: true, substation)));
-            otherLog += Math.Log(DirectionProbability(direction, Expected(point, segment, earth: false, substation)));
+            earthLog += _directionLog[(int)direction, (int)Expected(point, segment, earth: true, substation)];
+            otherLog += _directionLog[(int)direction, (int)EarthFaultDirection.None];
         }
 
         var reactanceLog = 0.0;
@@ -135,8 +145,16 @@ internal sealed class ProtectionEvidence
             reactanceLog += ReactanceLog(reading, segment);
         }
 
-        var intact = _intact.Where(f => _model.IsFaultBeyond(f.Point, segment)).Select(f => f.RatedCurrentA).ToArray();
-        return new SegmentTerms(segment, substation, place, earthLog, otherLog, reactanceLog, intact);
+        var intact = new List<double?>();
+        foreach (var (point, rating) in _intact)
+        {
+            if (_model.IsFaultBeyond(point, segment))
+            {
+                intact.Add(rating);
+            }
+        }
+
+        return new SegmentTerms(segment, substation, place, earthLog, otherLog, reactanceLog, [.. intact]);
     }
 
     /// <summary>Log-factor of the intact fuses for a solved fault: the fault is not beyond one its current would have blown.</summary>

@@ -38,6 +38,7 @@ internal sealed class RankingComputation
     private readonly double[] _segmentZ1MagnitudeOhm;
     private readonly double[] _segmentEarthLoopOhm;
     private readonly (double Min, double Max) _fromSupplyRange;
+    private readonly double[] _logPriors;
 
     public RankingComputation(NetworkGraph graph, Incident incident, RankingOptions options, RankingPriors priors)
     {
@@ -72,6 +73,7 @@ internal sealed class RankingComputation
         // The first pass compares the midpoint and the option's positions, from either end.
         double[] shares = [0.5, .. options.Positions, .. options.Positions.Select(p => 1 - p)];
         _fromSupplyRange = (shares.Min(), shares.Max());
+        _logPriors = PriorLogs.Of(priors, _grid);
     }
 
     public EnergisedNetwork Network { get; }
@@ -246,7 +248,7 @@ internal sealed class RankingComputation
         return TripLogFactor(segment) + best;
     }
 
-    private double LogPrior(int segment) => Math.Log(Math.Max(1e-12, _priors.FaultsPerYear(_grid, _grid.Segments[segment])));
+    private double LogPrior(int segment) => _logPriors[segment];
 
     /// <summary>
     /// The best hypothesis on a segment over a finer grid of fault resistance and position, with every
