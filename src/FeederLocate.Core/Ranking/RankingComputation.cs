@@ -365,6 +365,31 @@ internal sealed class RankingComputation
         return total;
     }
 
+    /// <summary>The same plain sum with the records' devices that have the segment beyond them given (<see cref="RecordsBeyond"/>): the same arithmetic, for many faults on one segment.</summary>
+    internal double MeasurementLogLikelihoodDirect(in FaultSolution fault, bool[] beyond)
+    {
+        var total = 0.0;
+        for (var m = 0; m < _measured.Count; m++)
+        {
+            var point = _measured[m].Point;
+            var same = point.Substation >= 0 && point.Substation == fault.Substation;
+            total += MeasurementLogLikelihood(_measured[m].Measurement, Predicted(point, same, same && beyond[m], fault));
+        }
+
+        return total;
+    }
+
+    /// <summary>Which records' devices have a fault on the segment beyond them.</summary>
+    internal bool[] RecordsBeyond(int segment) => [.. _measured.Select(r => _model.IsFaultBeyond(r.Point, segment))];
+
+    /// <summary>The value a record's device would have measured for a solved fault, with whether its device has the fault beyond it given.</summary>
+    internal (double PhaseA, double ResidualA, double NeutralV) Predicted(int record, bool beyond, in FaultSolution fault)
+    {
+        var point = _measured[record].Point;
+        var same = point.Substation >= 0 && point.Substation == fault.Substation;
+        return Predicted(point, same, same && beyond, fault);
+    }
+
     /// <summary>The same sum through the tabulated shortcut the ranking uses.</summary>
     public double MeasurementLogLikelihoodFast(int segment, in FaultSolution fault)
     {
