@@ -141,14 +141,28 @@ public static class FaultRanking
             segmentProbability[scores[k].Segment] = segmentProbability.GetValueOrDefault(scores[k].Segment) + probabilities[k];
         }
 
-        var rankedSegments = segmentProbability
-            .Select(p => new RankedSegment(grid.Segments[p.Key].Id, sections.OfSegment(p.Key).Id, p.Value))
-            .OrderByDescending(s => s.Probability).ThenBy(s => s.Id.Value, StringComparer.Ordinal)
+        // Most probable first, ties by id (ordinal). A section's probability sums its segments' in that order.
+        var segmentValues = new double[grid.Segments.Length];
+        Array.Fill(segmentValues, double.NaN);
+        foreach (var (segment, p) in segmentProbability)
+        {
+            segmentValues[segment] = p;
+        }
+
+        var segmentOrder = RankingOrder.Ranked(RankingOrder.Segments(grid), segmentValues);
+        var rankedSegments = segmentOrder
+            .Select(k => new RankedSegment(grid.Segments[k].Id, sections.OfSegment(k).Id, segmentValues[k]))
             .ToImmutableArray();
-        var rankedSections = rankedSegments
-            .GroupBy(s => s.Section)
-            .Select(g => new RankedSection(g.Key, sections[g.Key].Segments, g.Sum(s => s.Probability)))
-            .OrderByDescending(s => s.Probability).ThenBy(s => s.Id.Value, StringComparer.Ordinal)
+        var sectionValues = new double[sections.All.Length];
+        Array.Fill(sectionValues, double.NaN);
+        foreach (var k in segmentOrder)
+        {
+            var section = sections.IndexOfSegment(k);
+            sectionValues[section] = (double.IsNaN(sectionValues[section]) ? 0 : sectionValues[section]) + segmentValues[k];
+        }
+
+        var rankedSections = RankingOrder.Ranked(RankingOrder.Sections(sections), sectionValues)
+            .Select(k => new RankedSection(sections.All[k].Id, sections.All[k].Segments, sectionValues[k]))
             .ToImmutableArray();
 
         var scoreOf = scores.ToDictionary(s => grid.Segments[s.Segment].Id);
