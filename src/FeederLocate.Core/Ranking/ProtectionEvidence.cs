@@ -26,6 +26,11 @@ internal sealed class ProtectionEvidence
     private readonly MeasuringPoint? _reclosing;
     private readonly double _maximumTrippingEarthFaultOhm;
     private readonly double[,] _directionLog;
+    private readonly double[] _directionBaseLog;
+    private readonly double _directionOtherLog;
+    private readonly PointsAbove _directionsAbove;
+    private readonly PointsAbove _intactAbove;
+    private readonly List<int> _beyond = [];
 
     public ProtectionEvidence(FaultResponseModel model, Incident incident, RankingOptions options)
     {
@@ -82,6 +87,18 @@ internal sealed class ProtectionEvidence
             _reclosing = model.SwitchPoint(grid.SwitchIndex(reclosing.Device));
         }
 
+        _directionBaseLog = new double[grid.Substations.Length];
+        for (var sub = 0; sub < _directionBaseLog.Length; sub++)
+        {
+            foreach (var (point, direction) in _directions)
+            {
+                _directionBaseLog[sub] += _directionLog[(int)direction, (int)(point.Substation == sub ? EarthFaultDirection.Reverse : EarthFaultDirection.None)];
+            }
+        }
+
+        _directionOtherLog = _directions.Sum(d => _directionLog[(int)d.Direction, (int)EarthFaultDirection.None]);
+        _directionsAbove = new PointsAbove(network, [.. _directions.Select(d => d.Point)]);
+        _intactAbove = new PointsAbove(network, [.. _intact.Select(f => f.Point)]);
         HasResistanceTerms = _intact.Count > 0;
         IsEmpty = _blown.Count == 0 && _intact.Count == 0 && _directions.Count == 0 && _reactances.Count == 0 && _reclosing is null;
     }
@@ -132,11 +149,15 @@ internal sealed class ProtectionEvidence
             place += Math.Log(_options.OutsideTrippedZoneFactor);
         }
 
-        var (earthLog, otherLog) = (0.0, 0.0);
-        foreach (var (point, direction) in _directions)
+        // Directions: every relay as if the fault were not beyond it, then those with it beyond (the chain above the segment).
+        var up = _model.Network.SuppliedEndOf(segment);
+        var earthLog = _directionBaseLog[substation];
+        _beyond.Clear();
+        _directionsAbove.Collect(up, _beyond);
+        foreach (var k in _beyond)
         {
-            earthLog += _directionLog[(int)direction, (int)Expected(point, segment, earth: true, substation)];
-            otherLog += _directionLog[(int)direction, (int)EarthFaultDirection.None];
+            var reported = (int)_directions[k].Direction;
+            earthLog += _directionLog[reported, (int)EarthFaultDirection.Forward] - _directionLog[reported, (int)EarthFaultDirection.Reverse];
         }
 
         var reactanceLog = 0.0;
@@ -145,16 +166,11 @@ internal sealed class ProtectionEvidence
             reactanceLog += ReactanceLog(reading, segment);
         }
 
-        var intact = new List<double?>();
-        foreach (var (point, rating) in _intact)
-        {
-            if (_model.IsFaultBeyond(point, segment))
-            {
-                intact.Add(rating);
-            }
-        }
+        _beyond.Clear();
+        _intactAbove.Collect(up, _beyond);
+        var intact = _beyond.Select(k => _intact[k].RatedCurrentA).ToArray();
 
-        return new SegmentTerms(segment, substation, place, earthLog, otherLog, reactanceLog, [.. intact]);
+        return new SegmentTerms(segment, substation, place, earthLog, _directionOtherLog, reactanceLog, intact);
     }
 
     /// <summary>Log-factor of the intact fuses for a solved fault: the fault is not beyond one its current would have blown.</summary>
@@ -203,16 +219,6 @@ internal sealed class ProtectionEvidence
         }
 
         return fault.Type != FaultType.LG || faultResistanceOhm <= _maximumTrippingEarthFaultOhm;
-    }
-
-    private EarthFaultDirection Expected(in MeasuringPoint point, int segment, bool earth, int substation)
-    {
-        if (!earth || point.Substation != substation)
-        {
-            return EarthFaultDirection.None;
-        }
-
-        return _model.IsFaultBeyond(point, segment) ? EarthFaultDirection.Forward : EarthFaultDirection.Reverse;
     }
 
     /// <summary>

@@ -30,7 +30,7 @@ internal sealed class RankingComputation
     private readonly Quadrature[][] _coarse;
     private readonly Quadrature[][] _refined;
     private readonly bool[] _beyond;
-    private readonly bool[] _measuredBeyond;
+    private readonly PointsAbove _recordsAbove;
     private readonly IndicationSums _sums;
     private readonly MeasurementSums _records;
     private readonly List<int> _recordsBeyond = [];
@@ -61,7 +61,7 @@ internal sealed class RankingComputation
         _coarse = [.. _plans.Select(plans => plans.Select(Quadrature.Coarse).ToArray())];
         _refined = [.. _plans.Select(plans => plans.Select(Quadrature.Refined).ToArray())];
         _beyond = new bool[_observed.Count];
-        _measuredBeyond = new bool[_measured.Count];
+        _recordsAbove = new PointsAbove(Network, [.. _measured.Select(m => m.Point)]);
         _sums = new IndicationSums(_model, _observed, options.PickupTolerance);
         _records = new MeasurementSums(this, _measured, _model);
         _protection = new ProtectionEvidence(_model, incident, options);
@@ -224,13 +224,7 @@ internal sealed class RankingComputation
         var up = Network.SuppliedEndOf(segment);
         var sub = Network.SubstationIndexOf(up);
         _recordsBeyond.Clear();
-        for (var m = 0; m < _measured.Count; m++)
-        {
-            if (_measured[m].Point.Substation == sub && _model.IsFaultBeyond(_measured[m].Point, segment))
-            {
-                _recordsBeyond.Add(m);
-            }
-        }
+        _recordsAbove.Collect(up, _recordsBeyond);
 
         var plans = _plans[sub];
         var best = double.NegativeInfinity;
@@ -447,15 +441,7 @@ internal sealed class RankingComputation
     {
         var sub = Network.SubstationIndexOf(Network.SuppliedEndOf(segment));
         _recordsBeyond.Clear();
-        for (var m = 0; m < _measured.Count; m++)
-        {
-            var point = _measured[m].Point;
-            _measuredBeyond[m] = point.Substation == sub && _model.IsFaultBeyond(point, segment);
-            if (_measuredBeyond[m])
-            {
-                _recordsBeyond.Add(m);
-            }
-        }
+        _recordsAbove.Collect(Network.SuppliedEndOf(segment), _recordsBeyond);
 
         var tripLog = TripLogFactor(segment);
         if (refined)
