@@ -157,8 +157,8 @@ internal sealed class RankingComputation
     /// <summary>A segment is passed over only where its bound lies this far, plus ln(segments), below the best posterior: 30 nats (e^-30 ≈ 1e-13).</summary>
     internal const double PrunedBelowNats = 30;
 
-    /// <summary>The leaders by posterior kept exactly, at least: as many as the cross-country pairs start from.</summary>
-    private int KeptLeaders => Math.Max(3, _options.CrossCountryCandidates);
+    /// <summary>The leaders by posterior kept exactly, at least: as many as the cross-country pairs start from and as many as are explained.</summary>
+    private int KeptLeaders => Math.Max(3, Math.Max(_options.CrossCountryCandidates, _options.ExplainedSuspects));
 
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private void ScoreByBranchAndBound(List<int> energised, SegmentScore?[] scored)
