@@ -85,6 +85,73 @@ public sealed class FaultResponseModel
             SequenceFault.FaultedPhaseCurrentA(type, currents));
     }
 
+    /// <summary>
+    /// Bounds of |U0| at the bus over the earth faults of <paramref name="type"/> (LG or LLG) on segment index
+    /// <paramref name="segment"/>, at a share of its length from its supplied end within
+    /// [<paramref name="fromSupplyMin"/>, <paramref name="fromSupplyMax"/>] and a fault resistance within
+    /// [<paramref name="resistanceMinOhm"/>, <paramref name="resistanceMaxOhm"/>]. U0 = ∓E/d, and the
+    /// denominator d of <see cref="SequenceFault"/> is affine in both the position and the resistance, so |d|
+    /// is largest at a corner of the parallelogram they span and smallest at its point nearest to 0. The
+    /// bounds are widened by a relative 1e-9 against rounding; the maximum is +∞ where d can vanish.
+    /// Short circuits (LL, LLL) drive no zero-sequence current: 0 and 0.
+    /// </summary>
+    internal (double MinV, double MaxV) NeutralVoltageRangeV(int segment, FaultType type, double fromSupplyMin, double fromSupplyMax, double resistanceMinOhm, double resistanceMaxOhm)
+    {
+        if (type is FaultType.LL or FaultType.LLL)
+        {
+            return (0, 0);
+        }
+
+        var up = Network.SuppliedEndOf(segment);
+        var terms = _substations[Network.SubstationIndexOf(up)];
+        var y0 = terms.ZeroSequenceBusS;
+        var z1Up = terms.SourceOhm + Aggregates.PositiveSequencePathOhm(up);
+        var z0Up = Aggregates.ZeroSequencePathOhm(up);
+        // d = origin + share·alongSegment + Rf·perOhm.
+        var (origin, alongSegment, perOhm) = type == FaultType.LG
+            ? (1 + (y0 * ((2 * z1Up) + z0Up)), y0 * ((2 * _segmentZ1Ohm[segment]) + _segmentZ0Ohm[segment]), 3 * y0)
+            : (2 + (y0 * (z1Up + (2 * z0Up))), y0 * (_segmentZ1Ohm[segment] + (2 * _segmentZ0Ohm[segment])), 6 * y0);
+        var corner = origin + (fromSupplyMin * alongSegment) + (resistanceMinOhm * perOhm);
+        var u = (fromSupplyMax - fromSupplyMin) * alongSegment;
+        var v = (resistanceMaxOhm - resistanceMinOhm) * perOhm;
+        Span<Complex> corners = [corner, corner + u, corner + u + v, corner + v];
+        var largest = 0.0;
+        var nearest = double.PositiveInfinity;
+        for (var k = 0; k < 4; k++)
+        {
+            largest = Math.Max(largest, corners[k].Magnitude);
+            nearest = Math.Min(nearest, DistanceFromZero(corners[k], corners[(k + 1) % 4]));
+        }
+
+        // Zero inside the parallelogram: corner + s·u + t·v = 0 with s and t within [0, 1].
+        var cross = (u.Real * v.Imaginary) - (u.Imaginary * v.Real);
+        if (cross != 0)
+        {
+            var s = ((-corner.Real * v.Imaginary) + (corner.Imaginary * v.Real)) / cross;
+            var t = ((u.Real * -corner.Imaginary) + (u.Imaginary * corner.Real)) / cross;
+            if (s is >= 0 and <= 1 && t is >= 0 and <= 1)
+            {
+                nearest = 0;
+            }
+        }
+
+        // Rounding: d is computed in another order in the solution; allow for it absolutely and relatively.
+        var slack = 1e-12 * (corner.Magnitude + u.Magnitude + v.Magnitude + 1);
+        (largest, nearest) = (largest + slack, nearest - slack);
+        var e = terms.PhaseVoltageV;
+        const double Rounding = 1e-9;
+        return (e / largest * (1 - Rounding), nearest > 0 ? e / nearest * (1 + Rounding) : double.PositiveInfinity);
+    }
+
+    /// <summary>The distance from 0 to the straight piece from <paramref name="a"/> to <paramref name="b"/>.</summary>
+    private static double DistanceFromZero(Complex a, Complex b)
+    {
+        var ab = b - a;
+        var length = (ab.Real * ab.Real) + (ab.Imaginary * ab.Imaginary);
+        var t = length > 0 ? Math.Clamp(-((a.Real * ab.Real) + (a.Imaginary * ab.Imaginary)) / length, 0, 1) : 0;
+        return (a + (t * ab)).Magnitude;
+    }
+
     /// <summary>What indicator index <paramref name="indicator"/> sees for a solved fault.</summary>
     public IndicatorReading Read(in FaultSolution fault, int indicator) => ReadAt(_indicators[indicator], fault);
 

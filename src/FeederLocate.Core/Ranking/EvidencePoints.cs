@@ -92,8 +92,38 @@ internal static class EvidencePoints
         return observed;
     }
 
-    public static List<MeasurementPoint> Measurements(Grid grid, Incident incident, FaultResponseModel model) =>
-        [.. incident.Measurements.Select(m => new MeasurementPoint(m, model.SwitchPoint(grid.SwitchIndex(m.Device))))];
+    /// <summary>
+    /// The substation measurements compiled against their devices, with the neutral voltage counted once per
+    /// bus: U0 is one voltage at the bus, measured by one voltage transformer, that each feeder breaker's
+    /// record repeats. Counted once per record it would weigh as often as the bus has feeders (53 times on a
+    /// 53-feeder substation). The first record of each energised bus that carries a U0 keeps the mean of the
+    /// bus's U0 values (the one reading where they agree); the others keep their currents only. A record at
+    /// a dead device stands alone.
+    /// </summary>
+    public static List<MeasurementPoint> Measurements(Grid grid, Incident incident, FaultResponseModel model)
+    {
+        var points = incident.Measurements.Select(m => new MeasurementPoint(m, model.SwitchPoint(grid.SwitchIndex(m.Device)))).ToList();
+        var busVoltages = points
+            .Where(p => p.Point.Substation >= 0 && p.Measurement.NeutralVoltageV is not null)
+            .GroupBy(p => p.Point.Substation)
+            .ToDictionary(g => g.Key, g => g.Average(p => p.Measurement.NeutralVoltageV!.Value));
+        var counted = new HashSet<int>();
+        for (var k = 0; k < points.Count; k++)
+        {
+            var (measurement, point) = (points[k].Measurement, points[k].Point);
+            if (point.Substation < 0 || measurement.NeutralVoltageV is null)
+            {
+                continue;
+            }
+
+            points[k] = points[k] with
+            {
+                Measurement = measurement with { NeutralVoltageV = counted.Add(point.Substation) ? busVoltages[point.Substation] : null },
+            };
+        }
+
+        return points;
+    }
 
     /// <summary>Read before a trial re-energisation changed what the indicator shows.</summary>
     public static bool IsStale(Indicator indicator, Indication indication, Incident incident) =>

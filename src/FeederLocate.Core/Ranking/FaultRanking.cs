@@ -19,7 +19,11 @@ public static class FaultRanking
         Rank(new NetworkGraph(grid), incident, options, priors);
 
     /// <summary>Ranks an incident on a prepared network graph (reuse it across incidents of one grid).</summary>
-    public static RankingResult Rank(NetworkGraph graph, Incident incident, RankingOptions? options = null, RankingPriors? priors = null)
+    public static RankingResult Rank(NetworkGraph graph, Incident incident, RankingOptions? options = null, RankingPriors? priors = null) =>
+        Rank(graph, incident, options, priors, exhaustive: false);
+
+    /// <summary>As <see cref="Rank(NetworkGraph, Incident, RankingOptions?, RankingPriors?)"/>; <paramref name="exhaustive"/> scores every segment in full, passing over none (for the tests).</summary>
+    internal static RankingResult Rank(NetworkGraph graph, Incident incident, RankingOptions? options, RankingPriors? priors, bool exhaustive)
     {
         ArgumentNullException.ThrowIfNull(graph);
         ArgumentNullException.ThrowIfNull(incident);
@@ -27,7 +31,7 @@ public static class FaultRanking
         options.Validate();
         priors ??= RankingPriors.None;
         options = priors.WidenTolerances(options);
-        var computation = new RankingComputation(graph, incident, options, priors);
+        var computation = new RankingComputation(graph, incident, options, priors) { Exhaustive = exhaustive };
         var scores = computation.RefineContenders(computation.ScoreSegments());
         return Assemble(computation, scores);
     }
@@ -137,14 +141,28 @@ public static class FaultRanking
             segmentProbability[scores[k].Segment] = segmentProbability.GetValueOrDefault(scores[k].Segment) + probabilities[k];
         }
 
-        var rankedSegments = segmentProbability
-            .Select(p => new RankedSegment(grid.Segments[p.Key].Id, sections.OfSegment(p.Key).Id, p.Value))
-            .OrderByDescending(s => s.Probability).ThenBy(s => s.Id.Value, StringComparer.Ordinal)
+        // Most probable first, ties by id (ordinal). A section's probability sums its segments' in that order.
+        var segmentValues = new double[grid.Segments.Length];
+        Array.Fill(segmentValues, double.NaN);
+        foreach (var (segment, p) in segmentProbability)
+        {
+            segmentValues[segment] = p;
+        }
+
+        var segmentOrder = RankingOrder.Ranked(RankingOrder.Segments(grid), segmentValues);
+        var rankedSegments = segmentOrder
+            .Select(k => new RankedSegment(grid.Segments[k].Id, sections.OfSegment(k).Id, segmentValues[k]))
             .ToImmutableArray();
-        var rankedSections = rankedSegments
-            .GroupBy(s => s.Section)
-            .Select(g => new RankedSection(g.Key, sections[g.Key].Segments, g.Sum(s => s.Probability)))
-            .OrderByDescending(s => s.Probability).ThenBy(s => s.Id.Value, StringComparer.Ordinal)
+        var sectionValues = new double[sections.All.Length];
+        Array.Fill(sectionValues, double.NaN);
+        foreach (var k in segmentOrder)
+        {
+            var section = sections.IndexOfSegment(k);
+            sectionValues[section] = (double.IsNaN(sectionValues[section]) ? 0 : sectionValues[section]) + segmentValues[k];
+        }
+
+        var rankedSections = RankingOrder.Ranked(RankingOrder.Sections(sections), sectionValues)
+            .Select(k => new RankedSection(sections.All[k].Id, sections.All[k].Segments, sectionValues[k]))
             .ToImmutableArray();
 
         var scoreOf = scores.ToDictionary(s => grid.Segments[s.Segment].Id);
@@ -200,6 +218,7 @@ public static class FaultRanking
             $"fault resistance marginalised over: earth faults on isolated and resonant networks {Ohms(o.HighResistanceEarthFaultOhms)}; on solid and impedance networks {Ohms(o.LowResistanceEarthFaultOhms)}, joined by the higher values of the first range up to {o.HighResistanceEarthFaultOhms.Max().ToString(CultureInfo.InvariantCulture)} Ω (half the prior where nothing tripped, {Pct(o.HighResistanceTripShare)} where a device tripped: a sensitive earth-fault trip); short circuits {Ohms(o.ShortCircuitOhms)}",
             $"measurement tolerance{(computation.Priors.MeasurementErrors == LearnedMeasurementErrors.None ? string.Empty : " (widened to the error learned from outcomes where larger)")}: phase current {Pct(o.PhaseCurrentTolerance.Relative)} + {o.PhaseCurrentTolerance.Absolute.ToString(CultureInfo.InvariantCulture)} A, residual current {Pct(o.ResidualCurrentTolerance.Relative)} + {o.ResidualCurrentTolerance.Absolute.ToString(CultureInfo.InvariantCulture)} A, neutral voltage {Pct(o.NeutralVoltageTolerance.Relative)} + {o.NeutralVoltageTolerance.Absolute.ToString(CultureInfo.InvariantCulture)} V",
             "indications and records are compared with a fault at each segment's midpoint, or at several positions along it where the fault current's drop along the segment exceeds 1 % of the phase voltage",
+            $"a segment is scored in full unless an upper bound of its likelihood shows its posterior below e^-{RankingComputation.PrunedBelowNats.ToString(CultureInfo.InvariantCulture)}/segments of the best found (those together hold less than e^-{RankingComputation.PrunedBelowNats.ToString(CultureInfo.InvariantCulture)} of it): such a segment is listed with probability 0",
             $"an indicator picks up within a tolerance of its setting (σ of ln I/I_pickup = {o.PickupTolerance.ToString(CultureInfo.InvariantCulture)}): near its pickup either state fits",
             "load current is ignored in the fault currents (reference model); Z2 = Z1",
             $"predictions at voltage factor c = {o.VoltageFactor.ToString(CultureInfo.InvariantCulture)} (recorded values are compared with the current at nominal voltage, within the tolerances; IEC 60909-0's cmax = 1.1 is for ratings)",

@@ -30,6 +30,8 @@ internal sealed class IndicationSums
     private readonly int[] _chainHead;
     private readonly List<(int Indicator, int Next)> _chain = [];
     private readonly Dictionary<int, List<int>> _onSegment = [];
+    private readonly double[][] _positivePrefix;
+    private readonly double[] _towardMaximum;
 
     public IndicationSums(FaultResponseModel model, IReadOnlyList<ObservedIndication> observed, double pickupTolerance)
     {
@@ -46,6 +48,8 @@ internal sealed class IndicationSums
         _towardSource = new int[substations][];
         _sortedIndicator = new int[substations][];
         _bandTerms = new BandTerm[substations][];
+        _positivePrefix = new double[substations][];
+        _towardMaximum = new double[substations];
         for (var sub = 0; sub < substations; sub++)
         {
             var steps = new List<(double Threshold, double Delta, int Indicator)>();
@@ -61,6 +65,7 @@ internal sealed class IndicationSums
                 else if (!p.AwayFromSource)
                 {
                     toward.Add(i);
+                    _towardMaximum[sub] += Math.Max(o.LogProbability(IndicatorState.None), Math.Max(o.LogProbability(p.PickedUpState(true)), o.LogProbability(p.PickedUpState(false))));
                 }
                 else
                 {
@@ -78,9 +83,11 @@ internal sealed class IndicationSums
             _thresholdsV[sub] = [.. steps.Select(s => s.Threshold)];
             _sortedIndicator[sub] = [.. steps.Select(s => s.Indicator)];
             _prefix[sub] = new double[steps.Count + 1];
+            _positivePrefix[sub] = new double[steps.Count + 1];
             for (var k = 0; k < steps.Count; k++)
             {
                 _prefix[sub][k + 1] = _prefix[sub][k] + steps[k].Delta;
+                _positivePrefix[sub][k + 1] = _positivePrefix[sub][k] + Math.Max(0, steps[k].Delta);
             }
 
             _towardSource[sub] = [.. toward];
@@ -164,6 +171,55 @@ internal sealed class IndicationSums
         }
 
         return sum;
+    }
+
+    /// <summary>
+    /// An upper bound of <see cref="LogLikelihood"/> over every fault on the segment whose |U0| lies within
+    /// [<paramref name="u0MinV"/>, <paramref name="u0MaxV"/>] (0 and 0 for short circuits), whatever its
+    /// phase current: each indicator's term is a weighted log of a mixture of its picked-up and its none
+    /// probabilities, so it is at most the larger of the two; where the residual it would see cannot reach
+    /// its pickup band (or surely passes it) its term is the one state. Looking away from the source and
+    /// without the fault beyond them: certain pickups summed, uncertain ones at their better state, in
+    /// O(log n) over the sorted thresholds. With the fault beyond them (the chain from the source and the
+    /// segment's own): the better of none and picked up, less the least their not-beyond term could be.
+    /// Looking toward the source: their best state.
+    /// </summary>
+    public double UpperBound(int segment, int substation, int suppliedNode, double u0MinV, double u0MaxV)
+    {
+        var thresholds = _thresholdsV[substation];
+        var certain = u0MinV > 0 ? UpperBound(thresholds, u0MinV / _band) : 0;
+        var reachable = u0MaxV > 0 ? UpperBound(thresholds, u0MaxV * _band) : 0;
+        var sum = _otherNetworks[substation] + _base[substation] + _prefix[substation][certain]
+            + (_positivePrefix[substation][Math.Max(certain, reachable)] - _positivePrefix[substation][certain])
+            + _towardMaximum[substation];
+        for (var link = _chainHead[suppliedNode]; link >= 0; link = _chain[link].Next)
+        {
+            sum += CorrectionBound(_chain[link].Indicator, u0MaxV);
+        }
+
+        if (_onSegment.TryGetValue(segment, out var own))
+        {
+            foreach (var i in own)
+            {
+                sum += CorrectionBound(i, u0MaxV);
+            }
+        }
+
+        return sum;
+    }
+
+    /// <summary>At most what <see cref="Correction"/> adds for an indicator with the fault beyond it, for |U0| up to <paramref name="u0MaxV"/>.</summary>
+    private double CorrectionBound(int i, double u0MaxV)
+    {
+        var o = _observed[i];
+        var p = o.Point;
+        var none = o.LogProbability(IndicatorState.None);
+        var beyond = Math.Max(none, o.LogProbability(p.PickedUpState(faultBeyond: true)));
+        var threshold = p.NotBeyondGainS > 0 ? p.EarthPickupA / p.NotBeyondGainS : double.NaN;
+        var notBeyondLeast = double.IsNaN(threshold) || threshold >= u0MaxV * _band
+            ? none
+            : Math.Min(none, o.LogProbability(p.PickedUpState(faultBeyond: false)));
+        return beyond - notBeyondLeast;
     }
 
     /// <summary>

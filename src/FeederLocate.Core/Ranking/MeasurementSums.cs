@@ -1,5 +1,6 @@
 using System.Runtime.CompilerServices;
 using FeederLocate.Core.Electrical;
+using FeederLocate.Core.Evidence;
 using FeederLocate.Core.Model;
 
 namespace FeederLocate.Core.Ranking;
@@ -20,6 +21,10 @@ internal sealed class MeasurementSums
     private readonly double[][] _table;
     private readonly double[] _stepV;
     private readonly List<MeasurementPoint>[] _same;
+    private readonly RecordBound[] _bounds;
+    private readonly double[][] _notBeyondBoundSum;
+    private readonly double[][] _neutralVoltagesV;
+    private readonly RankingOptions _options;
 
     public MeasurementSums(RankingComputation computation, IReadOnlyList<MeasurementPoint> records, FaultResponseModel model)
     {
@@ -30,6 +35,10 @@ internal sealed class MeasurementSums
         _table = new double[substations.Length][];
         _stepV = new double[substations.Length];
         _same = new List<MeasurementPoint>[substations.Length];
+        _options = computation.Options;
+        _bounds = [.. records.Select(r => RecordBound.Of(computation, r.Measurement))];
+        _notBeyondBoundSum = new double[substations.Length][];
+        _neutralVoltagesV = new double[substations.Length][];
         for (var sub = 0; sub < substations.Length; sub++)
         {
             foreach (var r in records.Where(r => r.Point.Substation != sub))
@@ -43,6 +52,69 @@ internal sealed class MeasurementSums
             _same[sub] = [.. records.Where(r => r.Point.Substation == sub)];
             _table[sub] = new double[TableSteps + 1];
             Array.Fill(_table[sub], double.NaN);
+            _neutralVoltagesV[sub] = [.. _same[sub].Where(r => r.Measurement.NeutralVoltageV is not null).Select(r => r.Measurement.NeutralVoltageV!.Value)];
+            _notBeyondBoundSum[sub] = new double[2];
+            for (var m = 0; m < records.Count; m++)
+            {
+                if (records[m].Point.Substation == sub)
+                {
+                    _notBeyondBoundSum[sub][0] += _bounds[m].NotBeyondShortCircuit;
+                    _notBeyondBoundSum[sub][1] += _bounds[m].NotBeyondEarthFault;
+                }
+            }
+        }
+    }
+
+    /// <summary>
+    /// An upper bound of <see cref="LogLikelihood"/> over every fault on the substation's network whose |U0|
+    /// lies within [<paramref name="u0MinV"/>, <paramref name="u0MaxV"/>] (0 and 0: a short circuit, which
+    /// drives no residual current), whatever its phase current, with the records <paramref name="beyond"/>
+    /// having it beyond their device. Each term is a robust log density, at most −ln σ_min − ½ ln 2π where
+    /// its prediction is free, and exact where the prediction is 0 whatever the fault (the phase current of
+    /// a device without the fault beyond it; every residual current of a short circuit). The neutral
+    /// voltage is bounded over the |U0| interval widened by one step of the table that interpolates it.
+    /// </summary>
+    public double UpperBound(int sub, double u0MinV, double u0MaxV, IReadOnlyList<int> beyond)
+    {
+        var shortCircuit = u0MaxV <= 0;
+        var sum = _otherNetworks[sub] + _notBeyondBoundSum[sub][shortCircuit ? 0 : 1];
+        foreach (var m in beyond)
+        {
+            var b = _bounds[m];
+            sum += shortCircuit ? b.BeyondShortCircuit - b.NotBeyondShortCircuit : b.BeyondEarthFault - b.NotBeyondEarthFault;
+        }
+
+        foreach (var neutral in _neutralVoltagesV[sub])
+        {
+            sum += shortCircuit
+                ? MeasurementLikelihood.Log(_options.NeutralVoltageTolerance, neutral, 0)
+                : MeasurementLikelihood.UpperBound(_options.NeutralVoltageTolerance, neutral, Math.Max(0, u0MinV - _stepV[sub]), u0MaxV + _stepV[sub]);
+        }
+
+        return sum;
+    }
+
+    /// <summary>
+    /// One record's bounds without its neutral voltage: its device without and with the fault beyond it, for a
+    /// short circuit (no residual current anywhere) and for an earth fault (residual free).
+    /// </summary>
+    private readonly record struct RecordBound(double NotBeyondShortCircuit, double BeyondShortCircuit, double NotBeyondEarthFault, double BeyondEarthFault)
+    {
+        public static RecordBound Of(RankingComputation computation, SubstationMeasurement m)
+        {
+            var o = computation.Options;
+            var phaseAtZero = m.PhaseCurrentA is { } p ? MeasurementLikelihood.Log(o.PhaseCurrentTolerance, p, 0) : 0;
+            var phaseFree = m.PhaseCurrentA is null ? 0 : MeasurementLikelihood.Maximum(o.PhaseCurrentTolerance);
+            var residualAtZero = m.ResidualCurrentA is { } r ? MeasurementLikelihood.Log(o.ResidualCurrentTolerance, r, 0) : 0;
+            // With a phase current recorded, the residual may be taken as the same information and left out: a term of 0.
+            var residualFree = m.ResidualCurrentA is null ? 0
+                : m.PhaseCurrentA is null ? MeasurementLikelihood.Maximum(o.ResidualCurrentTolerance)
+                : Math.Max(0, MeasurementLikelihood.Maximum(o.ResidualCurrentTolerance));
+            return new RecordBound(
+                phaseAtZero + residualAtZero,
+                phaseFree + residualAtZero,
+                phaseAtZero + residualFree,
+                phaseFree + residualFree);
         }
     }
 

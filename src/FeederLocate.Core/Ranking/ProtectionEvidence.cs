@@ -25,6 +25,12 @@ internal sealed class ProtectionEvidence
     private readonly List<(MeasuringPoint Point, int FarNode, double ReactanceOhm, double UniformDensity)> _reactances = [];
     private readonly MeasuringPoint? _reclosing;
     private readonly double _maximumTrippingEarthFaultOhm;
+    private readonly double[,] _directionLog;
+    private readonly double[] _directionBaseLog;
+    private readonly double _directionOtherLog;
+    private readonly PointsAbove _directionsAbove;
+    private readonly PointsAbove _intactAbove;
+    private readonly List<int> _beyond = [];
 
     public ProtectionEvidence(FaultResponseModel model, Incident incident, RankingOptions options)
     {
@@ -33,6 +39,15 @@ internal sealed class ProtectionEvidence
         var grid = model.Grid;
         _lowCurrentEarthing = [.. grid.Substations.Select(s => s.Grounding.Scheme is GroundingScheme.Isolated or GroundingScheme.Resonant)];
         _maximumTrippingEarthFaultOhm = options.LowResistanceEarthFaultOhms.IsDefaultOrEmpty ? 0 : options.LowResistanceEarthFaultOhms.Max();
+        var directions = Enum.GetValues<EarthFaultDirection>();
+        _directionLog = new double[directions.Length, directions.Length];
+        foreach (var reported in directions)
+        {
+            foreach (var expected in directions)
+            {
+                _directionLog[(int)reported, (int)expected] = Math.Log(DirectionProbability(reported, expected));
+            }
+        }
         foreach (var (id, condition) in incident.Fuses)
         {
             var index = grid.SwitchIndex(id);
@@ -72,6 +87,18 @@ internal sealed class ProtectionEvidence
             _reclosing = model.SwitchPoint(grid.SwitchIndex(reclosing.Device));
         }
 
+        _directionBaseLog = new double[grid.Substations.Length];
+        for (var sub = 0; sub < _directionBaseLog.Length; sub++)
+        {
+            foreach (var (point, direction) in _directions)
+            {
+                _directionBaseLog[sub] += _directionLog[(int)direction, (int)(point.Substation == sub ? EarthFaultDirection.Reverse : EarthFaultDirection.None)];
+            }
+        }
+
+        _directionOtherLog = _directions.Sum(d => _directionLog[(int)d.Direction, (int)EarthFaultDirection.None]);
+        _directionsAbove = new PointsAbove(network, [.. _directions.Select(d => d.Point)]);
+        _intactAbove = new PointsAbove(network, [.. _intact.Select(f => f.Point)]);
         HasResistanceTerms = _intact.Count > 0;
         IsEmpty = _blown.Count == 0 && _intact.Count == 0 && _directions.Count == 0 && _reactances.Count == 0 && _reclosing is null;
     }
@@ -82,7 +109,11 @@ internal sealed class ProtectionEvidence
     /// <summary>True where the incident gives no protection evidence the ranking uses.</summary>
     public bool IsEmpty { get; }
 
-    /// <summary>Log-factor of the evidence that depends on where the fault is and its type, not on its resistance.</summary>
+    /// <summary>
+    /// Log-factor of the evidence that depends on where the fault is and its type, not on its resistance.
+    /// The parts that do not depend on the type, and the intact fuses with the fault beyond them, are worked
+    /// out once per segment (the last segment asked for is kept) and reused for each type and resistance.
+    /// </summary>
     public double TypeLog(int segment, FaultType type, int substation)
     {
         if (IsEmpty)
@@ -90,38 +121,75 @@ internal sealed class ProtectionEvidence
             return 0;
         }
 
-        var log = 0.0;
+        if (_cached.Segment != segment || _cached.Substation != substation)
+        {
+            _cached = Prepare(segment, substation);
+        }
+
+        var earth = type is FaultType.LG or FaultType.LLG;
+        var log = _cached.PlaceLog + (earth ? _cached.EarthDirectionLog : _cached.OtherDirectionLog);
+        return _reactances.Count > 0 && !(type == FaultType.LG && _lowCurrentEarthing[substation]) ? log + _cached.ReactanceLog : log;
+    }
+
+    /// <summary>The type-independent factors of one segment and its intact fuses with the fault beyond them.</summary>
+    private sealed record SegmentTerms(int Segment, int Substation, double PlaceLog, double EarthDirectionLog, double OtherDirectionLog, double ReactanceLog, double?[] IntactBeyondRatingsA);
+
+    private SegmentTerms _cached = new(-1, -1, 0, 0, 0, 0, []);
+
+    private SegmentTerms Prepare(int segment, int substation)
+    {
+        var place = 0.0;
         foreach (var point in _blown)
         {
-            log += _model.IsFaultBeyond(point, segment) ? 0 : Math.Log(_options.FuseErrorProbability);
+            place += _model.IsFaultBeyond(point, segment) ? 0 : Math.Log(_options.FuseErrorProbability);
         }
 
         if (_reclosing is { } reclosing && !_model.IsFaultBeyond(reclosing, segment))
         {
-            log += Math.Log(_options.OutsideTrippedZoneFactor);
+            place += Math.Log(_options.OutsideTrippedZoneFactor);
         }
 
-        var earth = type is FaultType.LG or FaultType.LLG;
-        foreach (var (point, direction) in _directions)
+        // Directions: every relay as if the fault were not beyond it, then those with it beyond (the chain above the segment).
+        var up = _model.Network.SuppliedEndOf(segment);
+        var earthLog = _directionBaseLog[substation];
+        _beyond.Clear();
+        _directionsAbove.Collect(up, _beyond);
+        foreach (var k in _beyond)
         {
-            log += Math.Log(DirectionProbability(direction, Expected(point, segment, earth, substation)));
+            var reported = (int)_directions[k].Direction;
+            earthLog += _directionLog[reported, (int)EarthFaultDirection.Forward] - _directionLog[reported, (int)EarthFaultDirection.Reverse];
         }
 
-        if (_reactances.Count > 0 && !(type == FaultType.LG && _lowCurrentEarthing[substation]))
+        var reactanceLog = 0.0;
+        foreach (var reading in _reactances)
         {
-            foreach (var reading in _reactances)
-            {
-                log += ReactanceLog(reading, segment);
-            }
+            reactanceLog += ReactanceLog(reading, segment);
         }
 
-        return log;
+        _beyond.Clear();
+        _intactAbove.Collect(up, _beyond);
+        var intact = _beyond.Select(k => _intact[k].RatedCurrentA).ToArray();
+
+        return new SegmentTerms(segment, substation, place, earthLog, _directionOtherLog, reactanceLog, intact);
     }
 
     /// <summary>Log-factor of the intact fuses for a solved fault: the fault is not beyond one its current would have blown.</summary>
     public double FaultLog(int segment, in FaultSolution fault, double faultResistanceOhm)
     {
         var log = 0.0;
+        if (_cached.Segment == segment && _cached.Substation == fault.Substation)
+        {
+            foreach (var rating in _cached.IntactBeyondRatingsA)
+            {
+                if (WouldBlow(rating, fault, faultResistanceOhm))
+                {
+                    log += Math.Log(_options.FuseErrorProbability);
+                }
+            }
+
+            return log;
+        }
+
         foreach (var (point, rating) in _intact)
         {
             if (_model.IsFaultBeyond(point, segment) && WouldBlow(rating, fault, faultResistanceOhm))
@@ -151,16 +219,6 @@ internal sealed class ProtectionEvidence
         }
 
         return fault.Type != FaultType.LG || faultResistanceOhm <= _maximumTrippingEarthFaultOhm;
-    }
-
-    private EarthFaultDirection Expected(in MeasuringPoint point, int segment, bool earth, int substation)
-    {
-        if (!earth || point.Substation != substation)
-        {
-            return EarthFaultDirection.None;
-        }
-
-        return _model.IsFaultBeyond(point, segment) ? EarthFaultDirection.Forward : EarthFaultDirection.Reverse;
     }
 
     /// <summary>

@@ -30,13 +30,15 @@ internal sealed class RankingComputation
     private readonly Quadrature[][] _coarse;
     private readonly Quadrature[][] _refined;
     private readonly bool[] _beyond;
-    private readonly bool[] _measuredBeyond;
+    private readonly PointsAbove _recordsAbove;
     private readonly IndicationSums _sums;
     private readonly MeasurementSums _records;
     private readonly List<int> _recordsBeyond = [];
     private readonly ProtectionEvidence _protection;
     private readonly double[] _segmentZ1MagnitudeOhm;
     private readonly double[] _segmentEarthLoopOhm;
+    private readonly (double Min, double Max) _fromSupplyRange;
+    private readonly double[] _logPriors;
 
     public RankingComputation(NetworkGraph graph, Incident incident, RankingOptions options, RankingPriors priors)
     {
@@ -59,7 +61,7 @@ internal sealed class RankingComputation
         _coarse = [.. _plans.Select(plans => plans.Select(Quadrature.Coarse).ToArray())];
         _refined = [.. _plans.Select(plans => plans.Select(Quadrature.Refined).ToArray())];
         _beyond = new bool[_observed.Count];
-        _measuredBeyond = new bool[_measured.Count];
+        _recordsAbove = new PointsAbove(Network, [.. _measured.Select(m => m.Point)]);
         _sums = new IndicationSums(_model, _observed, options.PickupTolerance);
         _records = new MeasurementSums(this, _measured, _model);
         _protection = new ProtectionEvidence(_model, incident, options);
@@ -68,6 +70,10 @@ internal sealed class RankingComputation
         var z0 = _grid.Segments.Select(x => new System.Numerics.Complex(_grid.LineTypeOf(x).R0OhmPerKm, _grid.LineTypeOf(x).X0OhmPerKm) * x.LengthKm).ToArray();
         _segmentZ1MagnitudeOhm = [.. z1.Select(z => z.Magnitude)];
         _segmentEarthLoopOhm = [.. z1.Select((z, s) => (((2 * z) + z0[s]) / 3).Magnitude)];
+        // The first pass compares the midpoint and the option's positions, from either end.
+        double[] shares = [0.5, .. options.Positions, .. options.Positions.Select(p => 1 - p)];
+        _fromSupplyRange = (shares.Min(), shares.Max());
+        _logPriors = PriorLogs.Of(priors, _grid);
     }
 
     public EnergisedNetwork Network { get; }
@@ -96,29 +102,147 @@ internal sealed class RankingComputation
     internal NetworkGraph Graph => _graph;
 
     /// <summary>
-    /// Scores every energised segment. This and the loops it calls are compiled fully optimised at once
-    /// (AggressiveOptimization): each runs once per ranking, too few calls for tiered compilation to
-    /// optimise them before the first few dozen rankings after a start.
+    /// Scores every energised segment, by branch and bound: a cheap upper bound of each segment's likelihood
+    /// first (<see cref="UpperBound"/>), then the segments in order of bound times prior, each scored in full
+    /// unless its bound shows it cannot matter. A segment is passed over only where its bound times prior lies
+    /// more than <see cref="PrunedBelowNats"/> + ln(segments) below the best posterior found, below the
+    /// <see cref="KeptLeaders"/>th best found, and its bound below the third-best likelihood found: so every
+    /// segment passed over has at most e^-30 of the best's posterior (all of them together too), and the
+    /// leaders by posterior and by likelihood are the same as if every segment were scored. Segments that hold
+    /// an indicator that picked up are always scored (the cross-country pairs start from them). A segment
+    /// passed over gets probability 0 (it had less than e^-30 of the best's).
+    /// This and the loops it calls are compiled fully optimised at once (AggressiveOptimization): each runs
+    /// once per ranking, too few calls for tiered compilation to optimise them before the first few dozen
+    /// rankings after a start.
     /// </summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public List<SegmentScore> ScoreSegments()
     {
-        var scores = new List<SegmentScore>();
+        var energised = new List<int>();
         for (var s = 0; s < _grid.Segments.Length; s++)
         {
             if (Network.IsSegmentEnergised(s))
             {
-                scores.Add(Score(s));
+                energised.Add(s);
             }
         }
 
-        if (scores.Count == 0)
+        if (energised.Count == 0)
         {
             throw new RankingException(NothingEnergised);
         }
 
-        return scores;
+        var scored = new SegmentScore?[_grid.Segments.Length];
+        if (Exhaustive || energised.Count <= KeptLeaders)
+        {
+            foreach (var s in energised)
+            {
+                scored[s] = Score(s);
+            }
+        }
+        else
+        {
+            ScoreByBranchAndBound(energised, scored);
+        }
+
+        return [.. energised.Select(s => scored[s]!)];
     }
+
+    /// <summary>Score every segment in full, without passing over any (what the tests compare the pruned ranking with).</summary>
+    internal bool Exhaustive { get; init; }
+
+    /// <summary>How many segments passed over so far in this computation (for the tests).</summary>
+    internal int PassedOver { get; private set; }
+
+    /// <summary>A segment is passed over only where its bound lies this far, plus ln(segments), below the best posterior: 30 nats (e^-30 ≈ 1e-13).</summary>
+    internal const double PrunedBelowNats = 30;
+
+    /// <summary>The leaders by posterior kept exactly, at least: as many as the cross-country pairs start from and as many as are explained.</summary>
+    private int KeptLeaders => Math.Max(3, Math.Max(_options.CrossCountryCandidates, _options.ExplainedSuspects));
+
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    private void ScoreByBranchAndBound(List<int> energised, SegmentScore?[] scored)
+    {
+        var alwaysScored = new HashSet<int>(_observed
+            .Where(o => o.Indication.State is not IndicatorState.None)
+            .Select(o => _grid.SegmentIndex(o.Indicator.Segment)));
+        var bounds = new (int Segment, double Bound, double LogPrior)[energised.Count];
+        for (var k = 0; k < energised.Count; k++)
+        {
+            var s = energised[k];
+            bounds[k] = (s, UpperBound(s), LogPrior(s));
+        }
+
+        Array.Sort(bounds, (a, b) => (b.Bound + b.LogPrior).CompareTo(a.Bound + a.LogPrior));
+        var margin = PrunedBelowNats + Math.Log(energised.Count);
+        var bestPosterior = double.NegativeInfinity;
+        var leaders = new PriorityQueue<double, double>();
+        var likelihoods = new PriorityQueue<double, double>();
+        foreach (var (s, bound, logPrior) in bounds)
+        {
+            var kthPosterior = leaders.Count < KeptLeaders ? double.PositiveInfinity : leaders.Peek();
+            var thirdLikelihood = likelihoods.Count < 3 ? double.PositiveInfinity : likelihoods.Peek();
+            if (!alwaysScored.Contains(s) && bound + logPrior < bestPosterior - margin && bound + logPrior < kthPosterior && bound < thirdLikelihood)
+            {
+                scored[s] = new SegmentScore(s, logPrior, double.NegativeInfinity, new BestHypothesis(FaultType.LG, 0, 0.5, double.NegativeInfinity), []);
+                PassedOver++;
+                continue;
+            }
+
+            var score = Score(s);
+            scored[s] = score;
+            bestPosterior = Math.Max(bestPosterior, score.LogPosterior);
+            Keep(leaders, score.LogPosterior, KeptLeaders);
+            Keep(likelihoods, score.Best.LogLikelihood, 3);
+        }
+    }
+
+    /// <summary>Keeps the <paramref name="count"/> largest values seen, the least of them first.</summary>
+    private static void Keep(PriorityQueue<double, double> largest, double value, int count)
+    {
+        if (largest.Count < count)
+        {
+            largest.Enqueue(value, value);
+        }
+        else if (value > largest.Peek())
+        {
+            largest.DequeueEnqueue(value, value);
+        }
+    }
+
+    /// <summary>
+    /// An upper bound of the segment's likelihood over every hypothesis the first pass scores: the trip factor,
+    /// and for each fault type its protection factor (the intact fuses' factor is at most 1) plus the bounds of
+    /// the indications and of the records over the |U0| the type's resistances and the compared positions can
+    /// give (<see cref="FaultResponseModel.NeutralVoltageRangeV"/>), whatever the phase current. The prior
+    /// weights of the types and resistances sum to 1, so the marginal likelihood and the best hypothesis lie
+    /// below it too.
+    /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    internal double UpperBound(int segment)
+    {
+        var up = Network.SuppliedEndOf(segment);
+        var sub = Network.SubstationIndexOf(up);
+        _recordsBeyond.Clear();
+        _recordsAbove.Collect(up, _recordsBeyond);
+
+        var plans = _plans[sub];
+        var best = double.NegativeInfinity;
+        for (var t = 0; t < plans.Length; t++)
+        {
+            var plan = plans[t];
+            var quadrature = _coarse[sub][t];
+            var (u0Min, u0Max) = _model.NeutralVoltageRangeV(segment, plan.Type, _fromSupplyRange.Min, _fromSupplyRange.Max, quadrature.LeastOhm, quadrature.MostOhm);
+            var log = _protection.TypeLog(segment, plan.Type, sub)
+                + _sums.UpperBound(segment, sub, up, u0Min, u0Max)
+                + (_measured.Count == 0 ? 0 : _records.UpperBound(sub, u0Min, u0Max, _recordsBeyond));
+            best = Math.Max(best, log);
+        }
+
+        return TripLogFactor(segment) + best;
+    }
+
+    private double LogPrior(int segment) => _logPriors[segment];
 
     /// <summary>
     /// The best hypothesis on a segment over a finer grid of fault resistance and position, with every
@@ -235,6 +359,31 @@ internal sealed class RankingComputation
         return total;
     }
 
+    /// <summary>The same plain sum with the records' devices that have the segment beyond them given (<see cref="RecordsBeyond"/>): the same arithmetic, for many faults on one segment.</summary>
+    internal double MeasurementLogLikelihoodDirect(in FaultSolution fault, bool[] beyond)
+    {
+        var total = 0.0;
+        for (var m = 0; m < _measured.Count; m++)
+        {
+            var point = _measured[m].Point;
+            var same = point.Substation >= 0 && point.Substation == fault.Substation;
+            total += MeasurementLogLikelihood(_measured[m].Measurement, Predicted(point, same, same && beyond[m], fault));
+        }
+
+        return total;
+    }
+
+    /// <summary>Which records' devices have a fault on the segment beyond them.</summary>
+    internal bool[] RecordsBeyond(int segment) => [.. _measured.Select(r => _model.IsFaultBeyond(r.Point, segment))];
+
+    /// <summary>The value a record's device would have measured for a solved fault, with whether its device has the fault beyond it given.</summary>
+    internal (double PhaseA, double ResidualA, double NeutralV) Predicted(int record, bool beyond, in FaultSolution fault)
+    {
+        var point = _measured[record].Point;
+        var same = point.Substation >= 0 && point.Substation == fault.Substation;
+        return Predicted(point, same, same && beyond, fault);
+    }
+
     /// <summary>The same sum through the tabulated shortcut the ranking uses.</summary>
     public double MeasurementLogLikelihoodFast(int segment, in FaultSolution fault)
     {
@@ -292,15 +441,7 @@ internal sealed class RankingComputation
     {
         var sub = Network.SubstationIndexOf(Network.SuppliedEndOf(segment));
         _recordsBeyond.Clear();
-        for (var m = 0; m < _measured.Count; m++)
-        {
-            var point = _measured[m].Point;
-            _measuredBeyond[m] = point.Substation == sub && _model.IsFaultBeyond(point, segment);
-            if (_measuredBeyond[m])
-            {
-                _recordsBeyond.Add(m);
-            }
-        }
+        _recordsAbove.Collect(Network.SuppliedEndOf(segment), _recordsBeyond);
 
         var tripLog = TripLogFactor(segment);
         if (refined)
@@ -338,8 +479,7 @@ internal sealed class RankingComputation
             marginal = LogMath.Add(marginal, typeMarginal);
         }
 
-        var logPrior = Math.Log(Math.Max(1e-12, _priors.FaultsPerYear(_grid, _grid.Segments[segment])));
-        return new SegmentScore(segment, logPrior, tripLog + marginal, best, byType);
+        return new SegmentScore(segment, LogPrior(segment), tripLog + marginal, best, byType);
     }
 
     /// <summary>
@@ -393,8 +533,7 @@ internal sealed class RankingComputation
             marginal = LogMath.Add(marginal, typeMarginal);
         }
 
-        var logPrior = Math.Log(Math.Max(1e-12, _priors.FaultsPerYear(_grid, _grid.Segments[segment])));
-        return new SegmentScore(segment, logPrior, tripLog + marginal, best, byType);
+        return new SegmentScore(segment, LogPrior(segment), tripLog + marginal, best, byType);
     }
 
     /// <summary>The indications' and records' joint log-likelihood of a fault at a position of the segment (the midpoint's solution reused).</summary>
@@ -412,6 +551,10 @@ internal sealed class RankingComputation
     /// </summary>
     private sealed record Quadrature(double[] ResistancesOhm, double[] LogWeights)
     {
+        public double LeastOhm { get; } = ResistancesOhm.Min();
+
+        public double MostOhm { get; } = ResistancesOhm.Max();
+
         public static Quadrature Coarse(FaultTypePlan plan) =>
             new([.. plan.ResistancesOhm], [.. plan.ResistanceLogWeights.Select(w => plan.LogWeight + w)]);
 

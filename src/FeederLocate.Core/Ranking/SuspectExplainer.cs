@@ -80,11 +80,13 @@ internal static class SuspectExplainer
         var network = computation.Network;
         var scheme = network.SubstationOf(grid.Segments[score.Segment].From)?.Grounding.Scheme;
         var fallsWithDistance = scheme is GroundingScheme.Solid or GroundingScheme.Impedance || score.Best.Type is not (FaultType.LG or FaultType.LLG);
-        var records = computation.Measured.Where(r => r.Measurement.PhaseCurrentA is not null).ToList();
+        var records = Enumerable.Range(0, computation.Measured.Count).Where(m => computation.Measured[m].Measurement.PhaseCurrentA is not null).ToList();
         if (!fallsWithDistance || records.Count == 0)
         {
             return null;
         }
+
+        var beyond = computation.RecordsBeyond(score.Segment);
 
         const int steps = 50;
         var points = new List<(double Km, double Log, bool Fits)>();
@@ -94,15 +96,15 @@ internal static class SuspectExplainer
             {
                 var position = k / (double)steps;
                 var fault = computation.Model.Solve(score.Segment, position, score.Best.Type, rf);
-                var fits = records.All(r =>
+                var fits = records.All(m =>
                 {
-                    var predicted = computation.Predicted(r, score.Segment, fault).PhaseA;
+                    var predicted = computation.Predicted(m, beyond[m], fault).PhaseA;
                     var sigma = MeasurementLikelihood.Sigma(computation.Options.PhaseCurrentTolerance, predicted);
-                    return Math.Abs(r.Measurement.PhaseCurrentA!.Value - predicted) <= 2 * sigma;
+                    return Math.Abs(computation.Measured[m].Measurement.PhaseCurrentA!.Value - predicted) <= 2 * sigma;
                 });
                 if (fits)
                 {
-                    points.Add((distances.AlongSegmentKm(score.Segment, position), computation.MeasurementLogLikelihoodDirect(score.Segment, fault), true));
+                    points.Add((distances.AlongSegmentKm(score.Segment, position), computation.MeasurementLogLikelihoodDirect(fault, beyond), true));
                 }
             }
         }

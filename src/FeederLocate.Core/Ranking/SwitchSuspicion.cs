@@ -63,7 +63,7 @@ internal static class SwitchSuspicion
             RankingComputation computation;
             try
             {
-                computation = new RankingComputation(recorded.Graph, incident, options, recorded.Priors);
+                computation = new RankingComputation(recorded.Graph, incident, options, recorded.Priors) { Exhaustive = recorded.Exhaustive };
                 toggled = computation.RefineContenders(computation.ScoreSegments());
             }
             catch (RankingException)

@@ -1,3 +1,4 @@
+using System.Collections.Immutable;
 using System.Diagnostics.CodeAnalysis;
 using FeederLocate.Core.Model;
 using QuikGraph;
@@ -57,8 +58,47 @@ public sealed class NetworkGraph
     public EnergisedNetwork Energise(SwitchStates states) => EnergisedNetwork.Build(this, states);
 
     /// <summary>Builds the radial network energised in <paramref name="states"/>, or says why it cannot.</summary>
-    public bool TryEnergise(SwitchStates states, [NotNullWhen(true)] out EnergisedNetwork? network, [NotNullWhen(false)] out TopologyProblem? problem) =>
-        EnergisedNetwork.TryBuild(this, states, out network, out problem);
+    public bool TryEnergise(SwitchStates states, [NotNullWhen(true)] out EnergisedNetwork? network, [NotNullWhen(false)] out TopologyProblem? problem)
+    {
+        ArgumentNullException.ThrowIfNull(states);
+        lock (_energised)
+        {
+            foreach (var (closed, kept) in _energised)
+            {
+                if (closed.AsSpan().SequenceEqual(states.Closed.AsSpan()))
+                {
+                    (network, problem) = (kept, null);
+                    return true;
+                }
+            }
+        }
+
+        if (!EnergisedNetwork.TryBuild(this, states, out network, out problem))
+        {
+            return false;
+        }
+
+        lock (_energised)
+        {
+            if (_energised.Count == KeptNetworks)
+            {
+                _energised.RemoveAt(0);
+            }
+
+            _energised.Add((states.Closed, network));
+        }
+
+        return true;
+    }
+
+    /// <summary>
+    /// The radial networks last built by <see cref="TryEnergise"/>, by switch positions: the network of one set
+    /// of positions is immutable, and most incidents of a grid are ranked on the same few (the normal ones, and
+    /// an incident's own each time it is ranked again), so building one again is spared.
+    /// </summary>
+    private readonly List<(ImmutableArray<bool> Closed, EnergisedNetwork Network)> _energised = [];
+
+    private const int KeptNetworks = 4;
 
     /// <summary>The name of an edge's element, e.g. "segment S7" or "switch LB2".</summary>
     public string Describe(EdgeRef edge) => $"{KindName(edge)} {IdOf(edge)}";

@@ -20,6 +20,9 @@ public sealed class SwitchStates
 
     public Grid Grid { get; }
 
+    /// <summary>True where the switch of that index is closed.</summary>
+    internal ImmutableArray<bool> Closed => _closed;
+
     /// <summary>Every device in its normal position: ties open, all others closed.</summary>
     public static SwitchStates Normal(Grid grid)
     {
