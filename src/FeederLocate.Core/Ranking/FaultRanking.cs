@@ -111,9 +111,16 @@ public static class FaultRanking
         var switchSuspects = SwitchSuspicion.Find(computation, scores);
         var explainedByRecorded = switchSuspects.Sum(s => s.Probability) < 0.5;
 
-        var singleLogs = scores.Select(s => s.LogPosterior).ToList();
+        var singleLogs = new double[scores.Count];
+        for (var k = 0; k < scores.Count; k++)
+        {
+            singleLogs[k] = scores[k].LogPosterior;
+        }
+
         var crossCountry = ImmutableArray<CrossCountrySuspect>.Empty;
-        var segmentProbability = new Dictionary<int, double>();
+        // Each segment's probability by index, NaN where it has none (not energised).
+        var segmentValues = new double[grid.Segments.Length];
+        Array.Fill(segmentValues, double.NaN);
         double[] probabilities;
         var crossCountryProbability = 0.0;
         var outcome = !consistent && CrossCountryRanking.Applies(computation, best) ? CrossCountryRanking.Rank(computation, scores, options) : null;
@@ -128,7 +135,7 @@ public static class FaultRanking
             crossCountryProbability = Math.Max(0, 1 - outcome.SingleProbabilities.Sum());
             foreach (var (segment, share) in outcome.SegmentShares)
             {
-                segmentProbability[segment] = share;
+                segmentValues[segment] = share;
             }
         }
         else
@@ -138,17 +145,11 @@ public static class FaultRanking
 
         for (var k = 0; k < scores.Count; k++)
         {
-            segmentProbability[scores[k].Segment] = segmentProbability.GetValueOrDefault(scores[k].Segment) + probabilities[k];
+            var segment = scores[k].Segment;
+            segmentValues[segment] = (double.IsNaN(segmentValues[segment]) ? 0 : segmentValues[segment]) + probabilities[k];
         }
 
         // Most probable first, ties by id (ordinal). A section's probability sums its segments' in that order.
-        var segmentValues = new double[grid.Segments.Length];
-        Array.Fill(segmentValues, double.NaN);
-        foreach (var (segment, p) in segmentProbability)
-        {
-            segmentValues[segment] = p;
-        }
-
         var segmentOrder = RankingOrder.Ranked(RankingOrder.Segments(grid), segmentValues);
         var rankedSegments = segmentOrder
             .Select(k => new RankedSegment(grid.Segments[k].Id, sections.OfSegment(k).Id, segmentValues[k]))
@@ -165,17 +166,27 @@ public static class FaultRanking
             .Select(k => new RankedSection(sections.All[k].Id, sections.All[k].Segments, sectionValues[k]))
             .ToImmutableArray();
 
-        var scoreOf = scores.ToDictionary(s => grid.Segments[s.Segment].Id);
-        var explanations = rankedSegments.Take(options.ExplainedSuspects)
-            .Where(s => scoreOf.ContainsKey(s.Id))
-            .Select(s => SuspectExplainer.Explain(computation, scoreOf[s.Id], s.Probability, distances))
-            .ToImmutableArray();
+        // Only the suspects reported are explained: the first of the list that were scored.
+        var scoreOfSegment = new SegmentScore?[grid.Segments.Length];
+        foreach (var s in scores)
+        {
+            scoreOfSegment[s.Segment] = s;
+        }
+
+        var explanations = ImmutableArray.CreateBuilder<SuspectExplanation>();
+        for (var k = 0; k < Math.Min(options.ExplainedSuspects, segmentOrder.Count); k++)
+        {
+            if (scoreOfSegment[segmentOrder[k]] is { } score)
+            {
+                explanations.Add(SuspectExplainer.Explain(computation, score, rankedSegments[k].Probability, distances));
+            }
+        }
 
         return new RankingResult(
             consistent && explainedByRecorded,
             rankedSegments,
             rankedSections,
-            explanations,
+            explanations.ToImmutable(),
             consistent && explainedByRecorded ? [] : [.. bestChecks.Where(c => !c.Agrees)],
             crossCountry,
             [.. computation.LeftOut],
@@ -199,11 +210,33 @@ public static class FaultRanking
 
     private static ImmutableDictionary<FaultType, double> FaultTypeProbabilities(List<SegmentScore> scores)
     {
-        var types = scores.SelectMany(s => s.LogByType.Keys).Distinct().ToList();
-        var logs = types.Select(t => scores.Aggregate(double.NegativeInfinity, (sum, s) =>
-            s.LogByType.TryGetValue(t, out var l) ? LogMath.Add(sum, s.LogPrior + l) : sum)).ToList();
+        // Each type's log-sum over the segments in their order, the types in the order they first appear.
+        var types = new List<FaultType>();
+        var logs = new List<double>();
+        foreach (var s in scores)
+        {
+            foreach (var (type, log) in s.LogByType)
+            {
+                var t = types.IndexOf(type);
+                if (t < 0)
+                {
+                    types.Add(type);
+                    logs.Add(double.NegativeInfinity);
+                    t = types.Count - 1;
+                }
+
+                logs[t] = LogMath.Add(logs[t], s.LogPrior + log);
+            }
+        }
+
         var p = LogMath.Normalise(logs);
-        return types.Select((t, i) => (t, p[i])).ToImmutableDictionary(x => x.t, x => x.Item2);
+        var builder = ImmutableDictionary.CreateBuilder<FaultType, double>();
+        for (var t = 0; t < types.Count; t++)
+        {
+            builder.Add(types[t], p[t]);
+        }
+
+        return builder.ToImmutable();
     }
 
     private static ImmutableArray<string> Assumptions(RankingComputation computation)

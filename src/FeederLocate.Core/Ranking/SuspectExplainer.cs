@@ -80,31 +80,49 @@ internal static class SuspectExplainer
         var network = computation.Network;
         var scheme = network.SubstationOf(grid.Segments[score.Segment].From)?.Grounding.Scheme;
         var fallsWithDistance = scheme is GroundingScheme.Solid or GroundingScheme.Impedance || score.Best.Type is not (FaultType.LG or FaultType.LLG);
-        var records = Enumerable.Range(0, computation.Measured.Count).Where(m => computation.Measured[m].Measurement.PhaseCurrentA is not null).ToList();
+        var records = new List<int>();
+        for (var m = 0; m < computation.Measured.Count; m++)
+        {
+            if (computation.Measured[m].Measurement.PhaseCurrentA is not null)
+            {
+                records.Add(m);
+            }
+        }
+
         if (!fallsWithDistance || records.Count == 0)
         {
             return null;
         }
 
         var beyond = computation.RecordsBeyond(score.Segment);
+        var tolerance = computation.Options.PhaseCurrentTolerance;
+        var measuredA = new double[records.Count];
+        for (var r = 0; r < records.Count; r++)
+        {
+            measuredA[r] = computation.Measured[records[r]].Measurement.PhaseCurrentA!.Value;
+        }
 
+        // Every fitting point's distance and log-likelihood; the window is the extent of those within a
+        // factor of 20 of the best. One pass, no per-point allocation.
         const int steps = 50;
-        var points = new List<(double Km, double Log, bool Fits)>();
+        var points = new List<(double Km, double Log)>();
+        var best = double.NegativeInfinity;
         foreach (var rf in computation.FineResistancesFor(score.Segment, score.Best.Type))
         {
             for (var k = 0; k <= steps; k++)
             {
                 var position = k / (double)steps;
                 var fault = computation.Model.Solve(score.Segment, position, score.Best.Type, rf);
-                var fits = records.All(m =>
+                if (!Fits(computation, records, measuredA, beyond, tolerance, fault))
                 {
-                    var predicted = computation.Predicted(m, beyond[m], fault).PhaseA;
-                    var sigma = MeasurementLikelihood.Sigma(computation.Options.PhaseCurrentTolerance, predicted);
-                    return Math.Abs(computation.Measured[m].Measurement.PhaseCurrentA!.Value - predicted) <= 2 * sigma;
-                });
-                if (fits)
+                    continue;
+                }
+
+                var log = computation.MeasurementLogLikelihoodDirect(fault, beyond);
+                points.Add((distances.AlongSegmentKm(score.Segment, position), log));
+                if (log > best)
                 {
-                    points.Add((distances.AlongSegmentKm(score.Segment, position), computation.MeasurementLogLikelihoodDirect(fault, beyond), true));
+                    best = log;
                 }
             }
         }
@@ -115,9 +133,35 @@ internal static class SuspectExplainer
         }
 
         // Of the points where the phase current fits, those the other records find about as likely as the best.
-        var best = points.Max(p => p.Log);
-        var inside = points.Where(p => p.Log >= best - Math.Log(20)).ToList();
-        return new DistanceWindow(inside.Min(p => p.Km), inside.Max(p => p.Km));
+        var floor = best - Math.Log(20);
+        var (fromKm, toKm) = (double.PositiveInfinity, double.NegativeInfinity);
+        foreach (var (km, log) in points)
+        {
+            if (log >= floor)
+            {
+                fromKm = Math.Min(fromKm, km);
+                toKm = Math.Max(toKm, km);
+            }
+        }
+
+        return new DistanceWindow(fromKm, toKm);
+    }
+
+    /// <summary>Whether the faulted-phase current of every record with one fits the fault within 2σ.</summary>
+    private static bool Fits(RankingComputation computation, List<int> records, double[] measuredA, bool[] beyond, MeasurementTolerance tolerance, in FaultSolution fault)
+    {
+        for (var r = 0; r < records.Count; r++)
+        {
+            var m = records[r];
+            var predicted = computation.Predicted(m, beyond[m], fault).PhaseA;
+            var sigma = MeasurementLikelihood.Sigma(tolerance, predicted);
+            if (!(Math.Abs(measuredA[r] - predicted) <= 2 * sigma))
+            {
+                return false;
+            }
+        }
+
+        return true;
     }
 
     private static MeasurementCheck Check(SwitchId device, string quantity, double measured, double predicted, MeasurementTolerance tolerance) =>
