@@ -60,8 +60,17 @@ public sealed class FaultResponseModel
     public Grid Grid => Network.Grid;
 
     /// <summary>Solves a fault on segment index <paramref name="segment"/> at <paramref name="position"/> (fraction from its from node).</summary>
-    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    public FaultSolution Solve(int segment, double position, FaultType type, double faultResistanceOhm)
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
+    public FaultSolution Solve(int segment, double position, FaultType type, double faultResistanceOhm) =>
+        Solve(Place(segment, position), type, faultResistanceOhm);
+
+    /// <summary>
+    /// The part of a fault's solution that depends on where it lies, not on its type or resistance: the
+    /// path impedances to <paramref name="position"/> (fraction from the from node) of segment index
+    /// <paramref name="segment"/>. Solving many faults at one place reuses it.
+    /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
+    internal FaultPlace Place(int segment, double position)
     {
         if (!(position is >= 0 and <= 1))
         {
@@ -76,12 +85,19 @@ public sealed class FaultResponseModel
         }
 
         var sub = Network.SubstationIndexOf(up);
-        var terms = _substations[sub];
         var fromSupply = _suppliedFromFrom[segment] ? position : 1 - position;
-        var z1 = terms.SourceOhm + Aggregates.PositiveSequencePathOhm(up) + (_segmentZ1Ohm[segment] * fromSupply);
+        var z1 = _substations[sub].SourceOhm + Aggregates.PositiveSequencePathOhm(up) + (_segmentZ1Ohm[segment] * fromSupply);
         var z0Path = Aggregates.ZeroSequencePathOhm(up) + (_segmentZ0Ohm[segment] * fromSupply);
-        var currents = SequenceFault.Solve(type, terms.PhaseVoltageV, z1, z0Path, terms.ZeroSequenceBusS, faultResistanceOhm);
-        return new FaultSolution(type, segment, up, sub, z1, z0Path, terms.PhaseVoltageV, currents,
+        return new FaultPlace(segment, up, sub, z1, z0Path);
+    }
+
+    /// <summary>Solves a fault of <paramref name="type"/> through <paramref name="faultResistanceOhm"/> at a <see cref="Place"/>.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    internal FaultSolution Solve(in FaultPlace place, FaultType type, double faultResistanceOhm)
+    {
+        var terms = _substations[place.Substation];
+        var currents = SequenceFault.Solve(type, terms.PhaseVoltageV, place.PositiveSequenceOhm, place.ZeroSequencePathOhm, terms.ZeroSequenceBusS, faultResistanceOhm);
+        return new FaultSolution(type, place.Segment, place.SuppliedNode, place.Substation, place.PositiveSequenceOhm, place.ZeroSequencePathOhm, terms.PhaseVoltageV, currents,
             SequenceFault.FaultedPhaseCurrentA(type, currents));
     }
 
@@ -295,6 +311,9 @@ public sealed class FaultResponseModel
     private readonly record struct SubstationTerms(
         double PhaseVoltageV, Complex SourceOhm, Complex ZeroSequenceBusS, Complex NeutralS, double DampingPercent);
 }
+
+/// <summary>Where a fault lies: its segment, the segment's supplied end and substation, and the path impedances to it.</summary>
+internal readonly record struct FaultPlace(int Segment, int SuppliedNode, int Substation, Complex PositiveSequenceOhm, Complex ZeroSequencePathOhm);
 
 /// <summary>A solved fault, ready for reading indicators.</summary>
 public readonly record struct FaultSolution(

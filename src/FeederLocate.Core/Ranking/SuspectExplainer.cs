@@ -105,21 +105,27 @@ internal static class SuspectExplainer
         // Every fitting point's distance and log-likelihood; the window is the extent of those within a
         // factor of 20 of the best. One pass, no per-point allocation.
         const int steps = 50;
+        var model = computation.Model;
+        var places = new FaultPlace[steps + 1];
+        for (var k = 0; k <= steps; k++)
+        {
+            places[k] = model.Place(score.Segment, k / (double)steps);
+        }
+
         var points = new List<(double Km, double Log)>();
         var best = double.NegativeInfinity;
         foreach (var rf in computation.FineResistancesFor(score.Segment, score.Best.Type))
         {
             for (var k = 0; k <= steps; k++)
             {
-                var position = k / (double)steps;
-                var fault = computation.Model.Solve(score.Segment, position, score.Best.Type, rf);
+                var fault = model.Solve(places[k], score.Best.Type, rf);
                 if (!Fits(computation, records, measuredA, beyond, tolerance, fault))
                 {
                     continue;
                 }
 
                 var log = computation.MeasurementLogLikelihoodDirect(fault, beyond);
-                points.Add((distances.AlongSegmentKm(score.Segment, position), log));
+                points.Add((distances.AlongSegmentKm(score.Segment, k / (double)steps), log));
                 if (log > best)
                 {
                     best = log;
