@@ -203,7 +203,7 @@ public static class FaultRanking
     private static (ImmutableArray<IndicationCheck> Checks, bool Consistent) Judge(RankingComputation computation, SegmentScore best, DistanceCalculator distances, bool refined)
     {
         var checks = SuspectExplainer.Checks(computation, best.Segment, best.Best, refined ? best.Best.Position : 0.5);
-        var explanation = SuspectExplainer.Explain(computation, best, 0, distances, refined, withWindow: false);
+        var explanation = SuspectExplainer.Explain(computation, best, 0, distances, refined, withWindow: false, checks);
         var consistent = ConsistencyCheck.Explains(checks, explanation.Measurements, computation.TripLogFactor(best.Segment) == 0, computation.Options);
         return (checks, consistent);
     }

@@ -29,28 +29,52 @@ internal static class RankingOrder
     /// </summary>
     public static List<int> Ranked(int[] byId, double[] probability)
     {
-        var place = new int[byId.Length];
+        // The positive ones sorted on a key that orders them most probable first: a positive double's bits
+        // grow with its value, so their complement falls with it. Equal keys are equal probabilities; their
+        // places (the positions in byId) are put in order afterwards, so the sort needs no comparer.
+        var keys = new ulong[byId.Length];
+        var places = new int[byId.Length];
+        var positive = 0;
+        var zero = new List<int>();
         for (var k = 0; k < byId.Length; k++)
         {
-            place[byId[k]] = k;
+            var p = probability[byId[k]];
+            if (p > 0)
+            {
+                keys[positive] = ulong.MaxValue - (ulong)BitConverter.DoubleToInt64Bits(p);
+                places[positive] = k;
+                positive++;
+            }
+            else if (!double.IsNaN(p))
+            {
+                zero.Add(byId[k]);
+            }
         }
 
-        var positive = new List<int>();
-        var zero = new List<int>();
-        foreach (var i in byId)
+        Array.Sort(keys, places, 0, positive);
+        for (var start = 0; start < positive;)
         {
-            if (probability[i] > 0)
+            var end = start + 1;
+            while (end < positive && keys[end] == keys[start])
             {
-                positive.Add(i);
+                end++;
             }
-            else if (!double.IsNaN(probability[i]))
+
+            if (end - start > 1)
             {
-                zero.Add(i);
+                Array.Sort(places, start, end - start);
             }
+
+            start = end;
         }
 
-        positive.Sort((a, b) => probability[a] != probability[b] ? probability[b].CompareTo(probability[a]) : place[a].CompareTo(place[b]));
-        positive.AddRange(zero);
-        return positive;
+        var ranked = new List<int>(positive + zero.Count);
+        for (var k = 0; k < positive; k++)
+        {
+            ranked.Add(byId[places[k]]);
+        }
+
+        ranked.AddRange(zero);
+        return ranked;
     }
 }

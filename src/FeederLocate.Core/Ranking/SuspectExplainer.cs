@@ -30,9 +30,10 @@ internal static class SuspectExplainer
             IndicationLikelihood.Describe(expected, observed));
     }
 
-    public static SuspectExplanation Explain(RankingComputation computation, SegmentScore score, double probability, DistanceCalculator distances, bool refined = false, bool withWindow = true)
+    /// <summary>The explanation of a suspect; <paramref name="checks"/>, where given, are its <see cref="Checks"/> already worked out (at the same position).</summary>
+    public static SuspectExplanation Explain(RankingComputation computation, SegmentScore score, double probability, DistanceCalculator distances, bool refined = false, bool withWindow = true, ImmutableArray<IndicationCheck>? checks = null)
     {
-        var checks = Checks(computation, score.Segment, score.Best, refined ? score.Best.Position : 0.5);
+        var indications = checks ?? Checks(computation, score.Segment, score.Best, refined ? score.Best.Position : 0.5);
         var fault = computation.Model.Solve(score.Segment, score.Best.Position, score.Best.Type, score.Best.FaultResistanceOhm);
         var options = computation.Options;
         var measurements = ImmutableArray.CreateBuilder<MeasurementCheck>();
@@ -61,8 +62,8 @@ internal static class SuspectExplainer
             probability,
             score.Best.Type,
             score.Best.FaultResistanceOhm,
-            [.. checks.Where(c => c.Agrees)],
-            [.. checks.Where(c => !c.Agrees)],
+            [.. indications.Where(c => c.Agrees)],
+            [.. indications.Where(c => !c.Agrees)],
             measurements.ToImmutable(),
             withWindow ? Window(computation, score, distances) : null);
     }
