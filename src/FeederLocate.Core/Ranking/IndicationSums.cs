@@ -104,7 +104,6 @@ internal sealed class IndicationSums
 
         // Chain of away-looking indicators above each node: pushed at the far end of their segment.
         _chainHead = new int[model.Grid.Nodes.Length];
-        Array.Fill(_chainHead, -1);
         var atFarEnd = new Dictionary<int, List<int>>();
         for (var i = 0; i < observed.Count; i++)
         {
@@ -116,20 +115,7 @@ internal sealed class IndicationSums
             }
         }
 
-        foreach (var v in network.FeedOrder)
-        {
-            var head = network.ParentOf(v) is var parent and >= 0 ? _chainHead[parent] : -1;
-            if (atFarEnd.TryGetValue(v, out var here))
-            {
-                foreach (var i in here)
-                {
-                    _chain.Add((i, head));
-                    head = _chain.Count - 1;
-                }
-            }
-
-            _chainHead[v] = head;
-        }
+        UpstreamChain.Link(network, atFarEnd, _chain, _chainHead);
     }
 
     /// <summary>Σ log P(record | expected) over every observed indication, for a fault on the segment.</summary>

@@ -28,21 +28,7 @@ internal sealed class PointsAbove
         }
 
         _head = new int[network.Grid.Nodes.Length];
-        Array.Fill(_head, -1);
-        foreach (var v in network.FeedOrder)
-        {
-            var head = network.ParentOf(v) is var parent and >= 0 ? _head[parent] : -1;
-            if (atFarEnd.TryGetValue(v, out var here))
-            {
-                foreach (var k in here)
-                {
-                    _chain.Add((k, head));
-                    head = _chain.Count - 1;
-                }
-            }
-
-            _head[v] = head;
-        }
+        UpstreamChain.Link(network, atFarEnd, _chain, _head);
     }
 
     /// <summary>Adds to <paramref name="into"/> the points with a fault supplied from <paramref name="suppliedNode"/> beyond them, in ascending order.</summary>
