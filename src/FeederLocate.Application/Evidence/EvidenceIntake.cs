@@ -74,7 +74,7 @@ public sealed class EvidenceIntake(IncidentLog log, TimeProvider? clock = null)
     /// <summary>The indicators of the items (already read without errors) that do not mention <c>suspect</c>.</summary>
     private static HashSet<string> WithoutDistrustField(string json)
     {
-        using var document = JsonDocument.Parse(json);
+        using var document = JsonDocument.Parse(json, Core.Formats.ReaderJson.DocumentOptions);
         var items = document.RootElement.ValueKind == JsonValueKind.Array ? document.RootElement.EnumerateArray().ToList() : [document.RootElement];
         return [.. items
             .Where(item => !item.TryGetProperty("suspect", out _) && item.TryGetProperty("indicator", out var id) && id.ValueKind == JsonValueKind.String)

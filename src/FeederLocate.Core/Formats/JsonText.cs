@@ -5,13 +5,7 @@ namespace FeederLocate.Core.Formats;
 /// <summary>Parses JSON text into a document, reporting a syntax error with its line and position.</summary>
 internal static class JsonText
 {
-    private static readonly JsonDocumentOptions Options = new()
-    {
-        CommentHandling = JsonCommentHandling.Skip,
-        AllowTrailingCommas = true,
-        MaxDepth = 64,
-        AllowDuplicateProperties = false,
-    };
+    private static readonly JsonDocumentOptions Options = ReaderJson.DocumentOptions;
 
     public static JsonDocument? Parse(string text, string kind, IssueLog log)
     {

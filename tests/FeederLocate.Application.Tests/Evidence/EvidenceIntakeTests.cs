@@ -49,6 +49,21 @@ public sealed class EvidenceIntakeTests : IDisposable
         Assert.Equal((IndicatorState.Fault, false), (cleared.State, cleared.Distrusted));
     }
 
+    [Fact]
+    public void What_the_reader_accepts_with_a_trailing_comma_or_a_comment_is_logged_and_keeps_the_distrust_mark()
+    {
+        // A fuzz finding: the reader allows both, the check for a missing "suspect" read the same text strictly and threw.
+        var id = OpenTrip();
+        var intake = new EvidenceIntake(_test.Log);
+        _test.Log.Append(id, new IndicationEntered(new Indication(new IndicatorId("FPI-A1-14"), IndicatorState.Fault, IndicationSource.Remote, Distrusted: true)), Samples.Operator);
+
+        var result = intake.AddIndications(id, _grid, "{\n  \"indicator\": \"FPI-A1-14\", // remote\n  \"state\": \"none\",\n  \"source\": \"remote\",\n}", Samples.Operator);
+
+        Assert.Equal(1, result.Accepted);
+        var now = _test.Log.State(id).Incident.IndicationOf(new IndicatorId("FPI-A1-14"))!;
+        Assert.Equal((IndicatorState.None, true), (now.State, now.Distrusted));
+    }
+
     [Theory]
     [InlineData("""[ { "indicator": "FPI-A1-01", "state": "forward", "source": "remote" }, { "indicator": "FPI-A1-04", "state": "sideways", "source": "remote" } ]""")]
     [InlineData("""[ { "indicator": "FPI-A1-99", "state": "fault", "source": "remote" }, 7, { "state": "fault" } ]""")]

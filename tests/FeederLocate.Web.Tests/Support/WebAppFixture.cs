@@ -93,7 +93,15 @@ public sealed class WebAppFixture : IAsyncLifetime
         _factory.UseKestrel(0);
         _factory.StartServer();
         var addresses = _factory.Services.GetRequiredService<IServer>().Features.Get<IServerAddressesFeature>()!.Addresses;
-        BaseAddress = addresses.First(a => a.StartsWith("http://127.0.0.1", StringComparison.Ordinal));
+        for (var wait = 0; wait < 50 && !addresses.Any(a => a.StartsWith("http://", StringComparison.Ordinal)); wait++)
+        {
+            Thread.Sleep(100);
+        }
+
+        // The loopback address Kestrel bound; after a restart it has been seen listed as localhost instead.
+        BaseAddress = addresses.FirstOrDefault(a => a.StartsWith("http://127.0.0.1", StringComparison.Ordinal))
+            ?? addresses.FirstOrDefault(a => a.StartsWith("http://localhost", StringComparison.Ordinal))?.Replace("http://localhost", "http://127.0.0.1", StringComparison.Ordinal)
+            ?? throw new InvalidOperationException($"the app listens on no loopback address: [{string.Join(", ", addresses)}]");
     }
 
     /// <summary>A new page (its own cookies) signed in through the sign-in form, left on <paramref name="path"/>.</summary>
