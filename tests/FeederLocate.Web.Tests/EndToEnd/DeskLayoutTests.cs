@@ -139,6 +139,8 @@ public sealed class DeskLayoutTests(WebAppFixture app) : IClassFixture<WebAppFix
         Assert.True(await phone.EvaluateAsync<bool>("() => document.documentElement.scrollWidth <= 390"), "the phone page is wider than the phone");
         await Assertions.Expect(phone.Locator("nav a[href='history']").Or(phone.Locator("nav a[href='/history']"))).ToBeInViewportAsync();
         await Assertions.Expect(phone.Locator("[data-testid=field-unread] button").First).ToBeVisibleAsync();
+        // Each unread indicator says what kind it is and where it is, by section name ("field indicator · on A1: …").
+        await Assertions.Expect(phone.Locator("[data-testid=field-unread] button").First).ToContainTextAsync(new System.Text.RegularExpressions.Regex(@"(field indicator|remote, not reported) · on [A-Z0-9]+: "));
         var smallest = await phone.EvaluateAsync<double>("() => Math.min(...[...document.querySelectorAll('[data-testid=field-page] button, nav a')].map(e => e.getBoundingClientRect()).filter(r => r.width > 0).map(r => Math.min(r.width, r.height)))");
         Assert.True(smallest >= 44, $"a tap target is {smallest:0} px");
 
