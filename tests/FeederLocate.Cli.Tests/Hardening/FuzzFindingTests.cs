@@ -141,8 +141,7 @@ public sealed class FuzzFindingTests
         var text = File.ReadAllText(RepositoryFiles.Path("sample-grid", "incidents", "solid-lg-trip-a1.incident.json"));
         var node = JsonNode.Parse(text)!;
         node["grid"] = "\u0000";
-        var path = Path.Combine(Path.GetTempPath(), $"null-grid-{Guid.NewGuid():N}.incident.json");
-        File.WriteAllText(path, node.ToJsonString());
+        var path = TempFile("incident", node.ToJsonString());
         try
         {
             var run = CliRun.Of("rank", SampleGrids.Path("solid"), path);
