@@ -42,10 +42,10 @@ public sealed class WorkspaceAnalysisTests : BunitContext
 
         _ranker.Hold();
         var cut = Render<IncidentWorkspace>(p => p.Add(c => c.Id, id.Value));
-        var busy = cut.Find("[data-testid=working]");
+        // Checked while the ranking is held: once released, the page may already say it is planning the order.
+        cut.Find("[data-testid=working]").MarkupMatches("""<span class="busy" role="status" data-testid="working">computing the suspects and the switching order…</span>""");
         _ranker.Release();
 
-        busy.MarkupMatches("""<span class="busy" role="status" data-testid="working">computing the suspects and the switching order…</span>""");
         cut.WaitForAssertion(() => Assert.Empty(cut.FindAll("[data-testid=working]")), TimeSpan.FromMinutes(1));
         Assert.NotEmpty(cut.FindAll("li[data-section]"));
     }
@@ -78,23 +78,25 @@ public sealed class WorkspaceAnalysisTests : BunitContext
     }
 
     [Fact]
-    public void A_switch_click_records_nothing_until_the_operator_confirms_the_device_and_position()
+    public async Task A_switch_click_records_nothing_until_the_operator_confirms_the_device_and_position()
     {
         var id = _board.Open(_grids.Default!, new SwitchId("CB-A1"), FaultType.LG, new DateTimeOffset(2026, 11, 30, 6, 12, 0, TimeSpan.Zero), new Actor("ana", "operator"));
         var cut = Render<IncidentWorkspace>(p => p.Add(c => c.Id, id.Value));
-        // The page is ready once the analysis is shown (it renders again then).
-        cut.WaitForAssertion(() => Assert.NotEmpty(cut.FindAll("li[data-section]")), TimeSpan.FromMinutes(1));
+        // The page is settled once the switching order is shown (the suspects come first, the order after:
+        // each renders again); every click finds its element on the renderer's thread, so no render comes between.
+        cut.WaitForAssertion(() => Assert.NotEmpty(cut.FindAll("[data-testid=next-step]")), TimeSpan.FromMinutes(1));
 
-        cut.Find("g[data-switch='LB-A1-3']").Click();
+        await cut.InvokeAsync(() => cut.Find("g[data-switch='LB-A1-3']").Click());
 
         cut.WaitForAssertion(() => Assert.Contains("Record that LB-A1-3 is found open?", cut.Find("[data-testid=switch-confirmation]").TextContent, StringComparison.Ordinal));
         Assert.Single(_board.Events(id));
-        cut.Find("[data-testid=switch-cancel]").Click();
+        await cut.InvokeAsync(() => cut.Find("[data-testid=switch-cancel]").Click());
         cut.WaitForAssertion(() => Assert.Empty(cut.FindAll("[data-testid=switch-confirmation]")));
         Assert.Single(_board.Events(id));
 
-        cut.Find("g[data-switch='LB-A1-3']").Click();
-        cut.WaitForElement("[data-testid=switch-confirm]").Click();
+        await cut.InvokeAsync(() => cut.Find("g[data-switch='LB-A1-3']").Click());
+        cut.WaitForElement("[data-testid=switch-confirm]");
+        await cut.InvokeAsync(() => cut.Find("[data-testid=switch-confirm]").Click());
 
         var changed = Assert.IsType<SwitchStateChanged>(_board.Events(id)[^1].Event);
         Assert.Equal(new SwitchStateChanged(new SwitchId("LB-A1-3"), SwitchPosition.Open), changed);
